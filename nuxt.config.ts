@@ -1,0 +1,67 @@
+// Gridmark — Nuxt configuration. The source folder is the project root (srcDir '.'),
+// so a stray file under app/ cannot silently move it.
+export default defineNuxtConfig({
+  srcDir: '.',
+  compatibilityDate: '2026-11-01',
+  devtools: { enabled: false },
+  telemetry: false,
+
+  modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint'],
+
+  css: [
+    '@fontsource/barlow/400.css',
+    '@fontsource/barlow/500.css',
+    '@fontsource/barlow/600.css',
+    '@fontsource/barlow/700.css',
+    '@fontsource/barlow/800.css',
+    '~/assets/css/main.css',
+  ],
+
+  app: {
+    head: {
+      htmlAttrs: { lang: 'en' },
+      title: 'Gridmark',
+      meta: [
+        { name: 'viewport', content: 'width=device-width, initial-scale=1, viewport-fit=cover' },
+        { name: 'description', content: 'Scrutineering desk for gliding competitions' },
+        { name: 'theme-color', content: '#0e1f3b' },
+      ],
+      link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }],
+    },
+  },
+
+  runtimeConfig: {
+    // Read at run time from the environment; the start and test scripts set them.
+    databaseUrl: '',
+    trustProxy: false,
+    loginLimit: {
+      perAccount: 5,
+      perAddress: 30,
+      windowSeconds: 900,
+    },
+    session: {
+      name: 'gridmark-session',
+      maxAge: 60 * 60 * 24 * 14,
+      // Secure cookies need https or http://127.0.0.1; a plain-http airfield LAN sets
+      // NUXT_SESSION_COOKIE_SECURE=false.
+      cookie: { secure: true, sameSite: 'lax' as const },
+    },
+  },
+
+  tailwindcss: {
+    cssPath: false,
+    viewer: false,
+  },
+
+  nitro: {
+    experimental: { websocket: true },
+  },
+
+  typescript: {
+    strict: true,
+  },
+
+  eslint: {
+    config: { stylistic: false },
+  },
+})

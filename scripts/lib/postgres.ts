@@ -1,0 +1,338 @@
+// A private PostgreSQL cluster run from Debian's server binaries: the demo database of
+// `npm start` and the throwaway one of `npm test`. The e2e tests import this module too
+// (clusterFromEnv + stopCluster/startCluster) to take the database away and bring it back.
+//
+// Two facts shape the code: the server refuses to run as root, so as root every server
+// tool runs as the `postgres` user (runuser) and its folders are handed to that user; and
+// that user must be able to reach the data folder, which a clone under /root is not.
+import { chownSync, existsSync, mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs'
+import { dirname, join } from 'node:path'
+import { aptInstall } from './apt'
+import { capture, isRoot, mustRun, ScriptError, step } from './common'
+import { isPortFree } from './net'
+
+export interface Cluster {
+  /** PGDATA: owned by the server user, mode 0700. */
+  dataDir: string
+  /** Where the server puts its Unix socket (-k); clients here use TCP on 127.0.0.1. */
+  socketDir: string
+  port: number
+  /** Server log written by pg_ctl -l; shown when a start fails. */
+  logFile: string
+  /** Folder holding initdb, pg_ctl, psql. */
+  binDir: string
+  /** false only for throwaway clusters: skips fsync/full-page writes for speed. */
+  fsync: boolean
+}
+
+const DEBIAN_PG_ROOT = '/usr/lib/postgresql'
+const SERVER_USER = 'postgres'
+/** The role initdb creates; the URL carries no password because auth is `trust` on loopback. */
+const DB_ROLE = 'app'
+
+// ---------------------------------------------------------------------------------------
+// Binaries
+
+/** The bin folder of the highest PostgreSQL version installed the Debian way, or null. */
+function findDebianBinDir(): string | null {
+  if (!existsSync(DEBIAN_PG_ROOT)) return null
+  const versions = readdirSync(DEBIAN_PG_ROOT)
+    .filter(version => existsSync(join(DEBIAN_PG_ROOT, version, 'bin', 'initdb')))
+    .sort(compareVersionsDescending)
+  return versions[0] ? join(DEBIAN_PG_ROOT, versions[0], 'bin') : null
+}
+
+function compareVersionsDescending(a: string, b: string): number {
+  const pa = a.split('.').map(Number)
+  const pb = b.split('.').map(Number)
+  for (let i = 0; i < Math.max(pa.length, pb.length); i++) {
+    const diff = (pb[i] ?? 0) - (pa[i] ?? 0)
+    if (diff !== 0 && !Number.isNaN(diff)) return diff
+  }
+  return b.localeCompare(a)
+}
+
+/**
+ * Returns the folder of the PostgreSQL server binaries, installing Debian's package first
+ * when they are missing and we are root. GRIDMARK_PG_BIN picks a specific folder instead.
+ */
+export async function ensurePostgresBinaries(): Promise<string> {
+  const override = process.env.GRIDMARK_PG_BIN
+  if (override) {
+    if (!existsSync(join(override, 'initdb')) || !existsSync(join(override, 'pg_ctl'))) {
+      throw new ScriptError(`GRIDMARK_PG_BIN=${override} does not contain initdb and pg_ctl.`)
+    }
+    await checkServerUser()
+    return override
+  }
+
+  let binDir = findDebianBinDir()
+  if (!binDir) {
+    if (!isRoot()) {
+      throw new ScriptError([
+        `The PostgreSQL server is not installed (no ${DEBIAN_PG_ROOT}/*/bin/initdb).`,
+        'Either install it:   sudo apt-get install --no-install-recommends postgresql',
+        'or point GRIDMARK_PG_BIN at a folder holding initdb and pg_ctl,',
+        'or (npm start / migrate / seed:reset) set DATABASE_URL to an existing database.',
+      ].join('\n'))
+    }
+    await aptInstall(['postgresql'], 'PostgreSQL is not installed (about 15 s)')
+    binDir = findDebianBinDir()
+    if (!binDir) throw new ScriptError(`apt-get installed postgresql, but ${DEBIAN_PG_ROOT}/*/bin/initdb is still missing.`)
+  }
+  await checkServerUser()
+  return binDir
+}
+
+// ---------------------------------------------------------------------------------------
+// Running server tools as the server user
+
+let serverIds: { uid: number, gid: number } | undefined
+
+/** As root we need the `postgres` account (Debian's package creates it). */
+async function checkServerUser(): Promise<void> {
+  if (!isRoot() || serverIds) return
+  const uid = await capture('id', ['-u', SERVER_USER])
+  const gid = await capture('id', ['-g', SERVER_USER])
+  if (uid.code !== 0 || gid.code !== 0) {
+    throw new ScriptError(`PostgreSQL refuses to run as root, and there is no "${SERVER_USER}" user to run it as. `
+      + `Create one (useradd --system ${SERVER_USER}) or run as a normal user.`)
+  }
+  serverIds = { uid: Number(uid.output.trim()), gid: Number(gid.output.trim()) }
+}
+
+/** Hands a path we created to the server user (no-op unless root). */
+async function giveToServerUser(path: string): Promise<void> {
+  if (!isRoot()) return
+  await checkServerUser()
+  chownSync(path, serverIds!.uid, serverIds!.gid)
+}
+
+/** Runs one of the PostgreSQL tools, as the server user when we are root. */
+function runTool(what: string, binDir: string, tool: string, args: string[]): Promise<string> {
+  const executable = join(binDir, tool)
+  // cwd '/': the server user may not be allowed into our working directory (e.g. /root/…),
+  // which makes the tools print "could not change directory" warnings.
+  return isRoot()
+    ? mustRun(what, 'runuser', ['-u', SERVER_USER, '--', executable, ...args], { cwd: '/' })
+    : mustRun(what, executable, args, { cwd: '/' })
+}
+
+/**
+ * Whether the server user can enter `dir` (and so every folder above it). Always true when
+ * not root, because then the server runs as ourselves.
+ */
+export async function serverUserCanReach(dir: string): Promise<boolean> {
+  if (!isRoot()) return true
+  await checkServerUser()
+  const result = await capture('runuser', ['-u', SERVER_USER, '--', 'test', '-x', dir], { cwd: '/' })
+  return result.code === 0
+}
+
+// ---------------------------------------------------------------------------------------
+// Cluster lifecycle
+
+interface PostmasterInfo {
+  pid: number
+  port: number
+  socketDir: string
+}
+
+/** Reads DATA/postmaster.pid (pid, data dir, start time, port, socket dir, …), or null. */
+function readPostmasterPid(dataDir: string): PostmasterInfo | null {
+  const file = join(dataDir, 'postmaster.pid')
+  if (!existsSync(file)) return null
+  const lines = readFileSync(file, 'utf8').split('\n')
+  const pid = Number(lines[0])
+  if (!Number.isInteger(pid) || pid <= 0) return { pid: 0, port: 0, socketDir: '' }
+  return { pid, port: Number(lines[3]), socketDir: lines[4] ?? '' }
+}
+
+/** True when pid is a live postgres process (not some other program that reused the pid). */
+function isPostgresProcess(pid: number): boolean {
+  if (pid <= 0) return false
+  try {
+    process.kill(pid, 0)
+  }
+  catch (error) {
+    if ((error as NodeJS.ErrnoException).code !== 'EPERM') return false
+  }
+  const comm = `/proc/${pid}/comm`
+  if (!existsSync(comm)) return true // no /proc: trust the signal check
+  try {
+    return readFileSync(comm, 'utf8').trim().startsWith('postgres')
+  }
+  catch {
+    return false
+  }
+}
+
+/** The running server of this data folder, or null (a stale pid file counts as not running). */
+function runningPostmaster(dataDir: string): PostmasterInfo | null {
+  const info = readPostmasterPid(dataDir)
+  return info && isPostgresProcess(info.pid) ? info : null
+}
+
+export async function isClusterRunning(cluster: Cluster): Promise<boolean> {
+  return runningPostmaster(cluster.dataDir) !== null
+}
+
+/** Creates the socket folder and log file (they may live in /tmp and vanish) for the server user. */
+async function ensureRuntimePaths(cluster: Cluster): Promise<void> {
+  mkdirSync(cluster.socketDir, { recursive: true, mode: 0o755 })
+  await giveToServerUser(cluster.socketDir)
+  mkdirSync(dirname(cluster.logFile), { recursive: true })
+  if (!existsSync(cluster.logFile)) writeFileSync(cluster.logFile, '')
+  await giveToServerUser(cluster.logFile)
+}
+
+/** Runs initdb unless the data folder already holds a cluster. Returns whether it created one. */
+export async function initCluster(cluster: Cluster): Promise<boolean> {
+  if (existsSync(join(cluster.dataDir, 'PG_VERSION'))) return false
+  if (existsSync(cluster.dataDir) && readdirSync(cluster.dataDir).length > 0) {
+    throw new ScriptError(`${cluster.dataDir} is not empty but holds no PostgreSQL cluster (no PG_VERSION). `
+      + 'Move it away or delete it, then try again.')
+  }
+  mkdirSync(cluster.dataDir, { recursive: true, mode: 0o700 })
+  await giveToServerUser(cluster.dataDir)
+  await ensureRuntimePaths(cluster)
+  await runTool('initdb', cluster.binDir, 'initdb', [
+    '-D', cluster.dataDir,
+    '-U', DB_ROLE,
+    '--auth=trust',
+    '-E', 'UTF8',
+    '--locale=C.UTF-8',
+    '--no-instructions',
+  ])
+  return true
+}
+
+/**
+ * Starts the cluster and waits until it accepts connections. When it is already running
+ * this is a no-op that returns the cluster as it actually runs (its port may differ from
+ * the one asked for, e.g. after GRIDMARK_DB_PORT changed). A pid file left by a crash is
+ * removed first, because a reused pid would make the server refuse to start.
+ */
+export async function startCluster(cluster: Cluster): Promise<Cluster> {
+  const running = runningPostmaster(cluster.dataDir)
+  if (running) {
+    return { ...cluster, port: running.port || cluster.port, socketDir: running.socketDir || cluster.socketDir }
+  }
+  const pidFile = join(cluster.dataDir, 'postmaster.pid')
+  if (existsSync(pidFile)) {
+    step(`Removing a stale ${pidFile} (the server was not shut down cleanly)`)
+    rmSync(pidFile)
+  }
+  if (!(await isPortFree(cluster.port))) {
+    throw new ScriptError(`Port ${cluster.port} on 127.0.0.1 is already taken by another program, so PostgreSQL `
+      + 'cannot listen there. Stop that program, or choose another port (the demo database reads GRIDMARK_DB_PORT).')
+  }
+  await ensureRuntimePaths(cluster)
+
+  const options = [
+    '-c listen_addresses=127.0.0.1',
+    `-p ${cluster.port}`,
+    // pg_ctl hands these options to a shell, so the path is quoted.
+    `-k ${shellQuote(cluster.socketDir)}`,
+    ...(cluster.fsync ? [] : ['-c fsync=off', '-c synchronous_commit=off', '-c full_page_writes=off']),
+  ].join(' ')
+  try {
+    await runTool('Starting PostgreSQL', cluster.binDir, 'pg_ctl', [
+      '-w', '-t', '60', '-D', cluster.dataDir, '-l', cluster.logFile, '-o', options, 'start',
+    ])
+  }
+  catch (error) {
+    throw new ScriptError(`${(error as Error).message}\n  Server log (${cluster.logFile}), last lines:\n${logTail(cluster.logFile)}`)
+  }
+  return cluster
+}
+
+/** Stops the cluster in fast mode (open sessions are cut). Returns false when it was not running. */
+export async function stopCluster(cluster: Cluster): Promise<boolean> {
+  if (!runningPostmaster(cluster.dataDir)) return false
+  await runTool('Stopping PostgreSQL', cluster.binDir, 'pg_ctl', ['-w', '-t', '60', '-D', cluster.dataDir, '-m', 'fast', 'stop'])
+  return true
+}
+
+function logTail(file: string, lines = 15): string {
+  try {
+    return readFileSync(file, 'utf8').trimEnd().split('\n').slice(-lines).map(l => `    ${l}`).join('\n')
+  }
+  catch {
+    return '    (no log)'
+  }
+}
+
+function shellQuote(value: string): string {
+  return `'${value.replace(/'/g, `'\\''`)}'`
+}
+
+// ---------------------------------------------------------------------------------------
+// Databases
+
+function assertIdentifier(name: string): void {
+  // Plain lower-case identifiers only, so names never need escaping in SQL.
+  if (!/^[a-z_][a-z0-9_]{0,62}$/.test(name)) throw new ScriptError(`Invalid database name: ${name}`)
+}
+
+function psql(cluster: Cluster, sql: string): Promise<string> {
+  return runTool(`psql: ${sql}`, cluster.binDir, 'psql', [
+    '-X', '-q', '-At', '-v', 'ON_ERROR_STOP=1',
+    '-h', '127.0.0.1', '-p', String(cluster.port), '-U', DB_ROLE, '-d', 'postgres',
+    '-c', sql,
+  ])
+}
+
+/** Creates the database unless it exists. Returns whether it was created. */
+export async function createDatabase(cluster: Cluster, name: string): Promise<boolean> {
+  assertIdentifier(name)
+  const exists = await psql(cluster, `SELECT 1 FROM pg_database WHERE datname = '${name}'`)
+  if (exists.trim() === '1') return false
+  await psql(cluster, `CREATE DATABASE "${name}"`)
+  return true
+}
+
+/** Drops the database if it exists, disconnecting its sessions. */
+export async function dropDatabase(cluster: Cluster, name: string): Promise<void> {
+  assertIdentifier(name)
+  await psql(cluster, `DROP DATABASE IF EXISTS "${name}" WITH (FORCE)`)
+}
+
+export function clusterUrl(cluster: Cluster, database: string): string {
+  return `postgres://${DB_ROLE}@127.0.0.1:${cluster.port}/${database}`
+}
+
+// ---------------------------------------------------------------------------------------
+// Handing the test cluster to the tests
+
+/** The environment variables `npm test` uses to describe its cluster to the tests. */
+export function clusterEnv(cluster: Cluster): Record<string, string> {
+  return {
+    GRIDMARK_TEST_PGDATA: cluster.dataDir,
+    GRIDMARK_TEST_PGPORT: String(cluster.port),
+    GRIDMARK_TEST_PGSOCKET: cluster.socketDir,
+    GRIDMARK_TEST_PGLOG: cluster.logFile,
+    GRIDMARK_PG_BIN: cluster.binDir,
+  }
+}
+
+/**
+ * The test cluster described by the variables `npm test` sets (see clusterEnv), so a test
+ * can stop and restart it. Throws when they are missing, i.e. outside `npm test`.
+ */
+export function clusterFromEnv(env: NodeJS.ProcessEnv = process.env): Cluster {
+  const names = ['GRIDMARK_TEST_PGDATA', 'GRIDMARK_TEST_PGPORT', 'GRIDMARK_TEST_PGSOCKET', 'GRIDMARK_TEST_PGLOG', 'GRIDMARK_PG_BIN']
+  const missing = names.filter(name => !env[name])
+  if (missing.length > 0) {
+    throw new Error(`${missing.join(', ')} not set: the test cluster is described by \`npm test\`; run the tests through it.`)
+  }
+  return {
+    dataDir: env.GRIDMARK_TEST_PGDATA!,
+    port: Number(env.GRIDMARK_TEST_PGPORT),
+    socketDir: env.GRIDMARK_TEST_PGSOCKET!,
+    logFile: env.GRIDMARK_TEST_PGLOG!,
+    binDir: env.GRIDMARK_PG_BIN!,
+    // Only throwaway test clusters are described this way.
+    fsync: false,
+  }
+}

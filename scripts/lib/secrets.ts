@@ -1,0 +1,38 @@
+// The password that seals session cookies. The built server does not read .env, so the
+// start script passes it explicitly; keeping it in .data means sign-ins survive a restart.
+import { randomBytes } from 'node:crypto'
+import { chmodSync, existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs'
+import { join } from 'node:path'
+import { localDataDir, ScriptError, step } from './common'
+
+/** nuxt-auth-utils (h3 sealed sessions) rejects shorter passwords. */
+const MIN_LENGTH = 32
+const passwordFile = join(localDataDir, 'session-password')
+
+/** A new random password: 36 bytes → 48 URL-safe characters. */
+export function randomSessionPassword(): string {
+  return randomBytes(36).toString('base64url')
+}
+
+/** NUXT_SESSION_PASSWORD when set, else the one kept in .data/session-password (created once). */
+export function sessionPassword(): string {
+  const fromEnv = process.env.NUXT_SESSION_PASSWORD
+  if (fromEnv !== undefined && fromEnv !== '') {
+    if (fromEnv.length < MIN_LENGTH) {
+      throw new ScriptError(`NUXT_SESSION_PASSWORD is ${fromEnv.length} characters long; it needs at least ${MIN_LENGTH}. `
+        + 'Unset it to use a generated one.')
+    }
+    return fromEnv
+  }
+
+  if (existsSync(passwordFile)) {
+    const stored = readFileSync(passwordFile, 'utf8').trim()
+    if (stored.length >= MIN_LENGTH) return stored
+    step(`${passwordFile} holds a password shorter than ${MIN_LENGTH} characters; replacing it (existing sessions end)`)
+  }
+  const password = randomSessionPassword()
+  mkdirSync(localDataDir, { recursive: true })
+  writeFileSync(passwordFile, `${password}\n`, { mode: 0o600 })
+  chmodSync(passwordFile, 0o600) // mode above applies only when the file is new
+  return password
+}

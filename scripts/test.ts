@@ -1,0 +1,278 @@
+// `npm test [-- vitest args]`: every check, against a throwaway database — never the demo's.
+//
+//   setup      fresh PostgreSQL cluster in a new /tmp folder (fsync off, free port),
+//              database gridmark_test, migrations, demo data (browser tests sign in as the
+//              demo users), Chromium, build (if stale)
+//   lint       eslint .
+//   typecheck  nuxt typecheck                 (both skipped with GRIDMARK_SKIP_STATIC=1)
+//   vitest     vitest run + the extra arguments, e.g. `npm test -- --project unit`
+//
+// Every step runs even when an earlier one failed, so one run shows every problem. The
+// result goes to artifacts/test-summary.json ({ passed, failed, steps }), which CI reads;
+// the cluster is stopped and its folder removed in every case, Ctrl-C included.
+import type { ChildProcess } from 'node:child_process'
+import { chmodSync, existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs'
+import { join } from 'node:path'
+import { ensureBrowser } from './lib/browser'
+import { ensureBuild } from './lib/build'
+import { artifactsDir, formatDuration, reportError, repoRoot, runInherited, ScriptError, step } from './lib/common'
+import { migrate, seed } from './lib/db'
+import { freePort } from './lib/net'
+import { clusterEnv, clusterUrl, createDatabase, ensurePostgresBinaries, initCluster, isClusterRunning, startCluster, stopCluster } from './lib/postgres'
+import type { Cluster } from './lib/postgres'
+import { randomSessionPassword } from './lib/secrets'
+
+const TEST_DATABASE = 'gridmark_test'
+const summaryFile = join(artifactsDir, 'test-summary.json')
+const vitestJson = join(artifactsDir, 'vitest.json')
+const bin = (name: string) => join(repoRoot, 'node_modules', '.bin', name)
+
+interface StepResult {
+  name: string
+  status: 'passed' | 'failed' | 'skipped'
+  durationMs: number
+  exitCode?: number
+  /** vitest only: counts from its JSON report. */
+  tests?: { passed: number, failed: number, total: number }
+  error?: string
+}
+
+const steps: StepResult[] = []
+let cluster: Cluster | undefined
+let tempDir: string | undefined
+let currentChild: ChildProcess | undefined
+let interrupted: NodeJS.Signals | undefined
+
+// ---------------------------------------------------------------------------------------
+// Signals: finish the current step quickly, skip the rest, still clean up and report.
+
+function onSignal(signal: NodeJS.Signals): void {
+  // The terminal and bootstrap.mjs can both deliver one Ctrl-C; act on the first.
+  if (interrupted) return
+  interrupted = signal
+  console.log(`\n▸ ${signal}: stopping the current step, then cleaning up`)
+  if (currentChild && currentChild.exitCode === null && currentChild.signalCode === null) currentChild.kill(signal)
+}
+process.on('SIGINT', onSignal)
+process.on('SIGTERM', onSignal)
+
+function checkInterrupted(): void {
+  if (interrupted) throw new ScriptError(`Interrupted by ${interrupted}`)
+}
+
+// ---------------------------------------------------------------------------------------
+// Set-up
+
+async function timed<T>(label: string, task: () => Promise<T>): Promise<T> {
+  checkInterrupted()
+  const started = Date.now()
+  const result = await task()
+  console.log(`  ✓ ${label} (${formatDuration(Date.now() - started)})`)
+  return result
+}
+
+/** Prepares the throwaway database, browser and build; returns the database URL. */
+async function setUp(): Promise<string> {
+  const binDir = await timed('PostgreSQL binaries', ensurePostgresBinaries)
+  const testCluster = await timed('test cluster started', async () => {
+    tempDir = mkdtempSync('/tmp/gridmark-test-')
+    // mkdtemp makes it 0700; the postgres user must be able to enter it.
+    chmodSync(tempDir, 0o755)
+    const wanted: Cluster = {
+      dataDir: join(tempDir, 'pg'),
+      socketDir: join(tempDir, 'socket'),
+      logFile: join(tempDir, 'postgres.log'),
+      port: await freePort(),
+      binDir,
+      fsync: false,
+    }
+    await initCluster(wanted)
+    cluster = await startCluster(wanted)
+    return cluster
+  })
+  const url = clusterUrl(testCluster, TEST_DATABASE)
+  await timed(`database ${TEST_DATABASE} on port ${testCluster.port}`, () => createDatabase(testCluster, TEST_DATABASE))
+  await timed('migrations', () => migrate(url))
+  await timed('demo data', () => seed(url, false))
+  await timed('Chromium', ensureBrowser)
+  await timed('build', ensureBuild)
+  return url
+}
+
+// ---------------------------------------------------------------------------------------
+// Steps
+
+async function runStep(name: string, command: string, args: string[], env: NodeJS.ProcessEnv = process.env): Promise<StepResult> {
+  if (interrupted) return { name, status: 'skipped', durationMs: 0, error: `interrupted by ${interrupted}` }
+  console.log(`\n━━ ${name}: ${[command.replace(`${repoRoot}/`, ''), ...args].join(' ')}`)
+  const started = Date.now()
+  let exitCode: number
+  try {
+    exitCode = await runInherited(command, args, { cwd: repoRoot, env }, (child) => {
+      currentChild = child
+    })
+  }
+  catch (error) {
+    reportError(error)
+    exitCode = 127
+  }
+  finally {
+    currentChild = undefined
+  }
+  const durationMs = Date.now() - started
+  const status = exitCode === 0 ? 'passed' : 'failed'
+  console.log(`━━ ${name} ${status} in ${formatDuration(durationMs)}${exitCode === 0 ? '' : ` (exit code ${exitCode})`}`)
+  return { name, status, durationMs, exitCode }
+}
+
+interface VitestReport {
+  numPassedTests?: number
+  numFailedTests?: number
+  numTotalTests?: number
+  numFailedTestSuites?: number
+}
+
+async function runVitest(url: string, extraArgs: string[]): Promise<StepResult> {
+  rmSync(vitestJson, { force: true }) // a report left by an earlier run must not be counted
+  const env: NodeJS.ProcessEnv = {
+    ...process.env, // passes CI and the like through
+    DATABASE_URL: url,
+    // Fresh per run: nothing signed in by an earlier run stays valid.
+    NUXT_SESSION_PASSWORD: randomSessionPassword(),
+    ...clusterEnv(cluster!),
+    GRIDMARK_ARTIFACTS: artifactsDir,
+  }
+  const result = await runStep('vitest', bin('vitest'), [
+    'run',
+    '--reporter=default',
+    '--reporter=json',
+    '--outputFile.json=artifacts/vitest.json',
+    ...extraArgs,
+  ], env)
+  if (result.status === 'skipped') return result
+
+  const report = readVitestReport()
+  if (!report) {
+    // A crash before the report was written: count it as one failure.
+    return { ...result, status: 'failed', tests: { passed: 0, failed: 1, total: 0 }, error: 'vitest wrote no JSON report' }
+  }
+  const passed = report.numPassedTests ?? 0
+  let failed = report.numFailedTests ?? 0
+  // vitest can fail with no failing test (a file that does not load, no test files found,
+  // an error outside tests): count at least one failure so the totals agree with the exit code.
+  if (result.exitCode !== 0 && failed === 0) failed = Math.max(1, report.numFailedTestSuites ?? 0)
+  return { ...result, tests: { passed, failed, total: report.numTotalTests ?? passed + failed } }
+}
+
+function readVitestReport(): VitestReport | null {
+  if (!existsSync(vitestJson)) return null
+  try {
+    return JSON.parse(readFileSync(vitestJson, 'utf8')) as VitestReport
+  }
+  catch {
+    return null
+  }
+}
+
+// ---------------------------------------------------------------------------------------
+// Summary and clean-up
+
+function totals(): { passed: number, failed: number } {
+  let passed = 0
+  let failed = 0
+  for (const s of steps) {
+    if (s.tests) {
+      passed += s.tests.passed
+      failed += s.tests.failed
+    }
+    else if (s.status === 'passed' && s.name !== 'setup') passed += 1
+    else if (s.status === 'failed') failed += 1
+  }
+  if (interrupted && failed === 0) failed = 1 // an interrupted run never counts as green
+  return { passed, failed }
+}
+
+function writeSummary(): { passed: number, failed: number } {
+  const { passed, failed } = totals()
+  mkdirSync(artifactsDir, { recursive: true })
+  writeFileSync(summaryFile, `${JSON.stringify({ passed, failed, steps, ...(interrupted ? { interrupted } : {}) }, null, 2)}\n`)
+
+  console.log('\nSummary')
+  for (const s of steps) {
+    const detail = s.tests ? `  (${s.tests.passed} passed, ${s.tests.failed} failed)` : s.error ? `  (${s.error.split('\n')[0]})` : ''
+    console.log(`  ${s.name.padEnd(10)} ${s.status.padEnd(8)} ${formatDuration(s.durationMs).padStart(8)}${detail}`)
+  }
+  console.log(`  ${passed} passed, ${failed} failed (artifacts/test-summary.json)`)
+  return { passed, failed }
+}
+
+let cleanedUp = false
+async function cleanUp(): Promise<void> {
+  if (cleanedUp) return
+  cleanedUp = true
+  if (cluster) {
+    try {
+      if (await isClusterRunning(cluster)) await stopCluster(cluster)
+    }
+    catch (error) {
+      console.error('Could not stop the test cluster:')
+      reportError(error)
+    }
+  }
+  if (tempDir) rmSync(tempDir, { recursive: true, force: true })
+}
+
+// ---------------------------------------------------------------------------------------
+
+async function main(): Promise<number> {
+  rmSync(summaryFile, { force: true })
+  const extraArgs = process.argv.slice(2)
+  const skipStatic = process.env.GRIDMARK_SKIP_STATIC === '1'
+
+  step('Setting up a throwaway database, the browser and the build')
+  const started = Date.now()
+  let url: string
+  try {
+    url = await setUp()
+    steps.push({ name: 'setup', status: 'passed', durationMs: Date.now() - started })
+  }
+  catch (error) {
+    reportError(error)
+    steps.push({ name: 'setup', status: 'failed', durationMs: Date.now() - started, error: (error as Error).message })
+    writeSummary()
+    return interrupted ? 130 : 1
+  }
+
+  for (const [name, command, args] of [
+    ['lint', bin('eslint'), ['.']],
+    ['typecheck', bin('nuxt'), ['typecheck']],
+  ] as const) {
+    steps.push(skipStatic
+      ? { name, status: 'skipped', durationMs: 0, error: 'GRIDMARK_SKIP_STATIC=1' }
+      : await runStep(name, command, [...args]))
+  }
+  steps.push(await runVitest(url, extraArgs))
+
+  const { failed } = writeSummary()
+  if (interrupted) return 130
+  return failed > 0 ? 1 : 0
+}
+
+main()
+  .catch((error: unknown) => {
+    // A bug in this script: still leave a summary CI can read.
+    reportError(error)
+    steps.push({ name: 'internal', status: 'failed', durationMs: 0, error: String(error) })
+    writeSummary()
+    return 1
+  })
+  .then(async (code) => {
+    try {
+      await cleanUp()
+    }
+    catch (error) {
+      console.error(`Could not remove ${tempDir}:`)
+      reportError(error)
+    }
+    process.exit(code)
+  })

@@ -1,0 +1,67 @@
+// Competitions and their classes.
+import type { Knex } from 'knex'
+import type { Role } from '#shared/constants/roles'
+import type { CompetitionClassSummary, CompetitionDetail } from '#shared/types/api'
+import type { ClassRow, CompetitionRow } from '#shared/types/rows'
+
+// Contest days are calendar dates: read them as text so no time zone can shift them.
+const COMPETITION_COLUMNS = [
+  'id', 'slug', 'name', 'airfield_name', 'airfield_icao', 'time_zone', 'currency', 'settings',
+  'created_by', 'created_at', 'updated_at',
+]
+
+export async function findCompetition(id: string, db: Knex = useDb()): Promise<CompetitionRow | undefined> {
+  return db('competitions')
+    .where({ id })
+    .first(
+      ...COMPETITION_COLUMNS,
+      db.raw(`to_char(first_contest_day, 'YYYY-MM-DD') as first_contest_day`),
+      db.raw(`to_char(last_contest_day, 'YYYY-MM-DD') as last_contest_day`),
+    )
+}
+
+export async function listClasses(competitionId: string, db: Knex = useDb()): Promise<CompetitionClassSummary[]> {
+  const rows: ClassRow[] = await db('classes').where({ competition_id: competitionId }).orderBy(['sort_order', 'name'])
+  return rows.map(c => ({
+    id: c.id,
+    name: c.name,
+    code: c.code,
+    maxSpanM: c.max_span_m === null ? null : Number(c.max_span_m),
+    maxMtomKg: c.max_mtom_kg === null ? null : Number(c.max_mtom_kg),
+    waterBallast: c.water_ballast,
+  }))
+}
+
+export async function competitionDetail(row: CompetitionRow, roles: Role[], db: Knex = useDb()): Promise<CompetitionDetail> {
+  return {
+    id: row.id,
+    slug: row.slug,
+    name: row.name,
+    airfieldName: row.airfield_name,
+    airfieldIcao: row.airfield_icao,
+    timeZone: row.time_zone,
+    firstContestDay: row.first_contest_day,
+    lastContestDay: row.last_contest_day,
+    classes: await listClasses(row.id, db),
+    roles,
+  }
+}
+
+/** Every competition, for site administrators. */
+export async function listAllCompetitions(db: Knex = useDb()) {
+  const rows = await db('competitions')
+    .orderByRaw('first_contest_day NULLS LAST, name')
+    .select(
+      'id', 'slug', 'name', 'airfield_name',
+      db.raw(`to_char(first_contest_day, 'YYYY-MM-DD') as first_contest_day`),
+      db.raw(`to_char(last_contest_day, 'YYYY-MM-DD') as last_contest_day`),
+    )
+  return rows.map(r => ({
+    competitionId: r.id as string,
+    slug: r.slug as string,
+    name: r.name as string,
+    airfieldName: r.airfield_name as string,
+    firstContestDay: r.first_contest_day as string | null,
+    lastContestDay: r.last_contest_day as string | null,
+  }))
+}

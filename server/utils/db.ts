@@ -1,0 +1,33 @@
+// The one Knex instance of this server process, created on first use.
+import knex, { type Knex } from 'knex'
+import { createKnexConfig } from '../../knexfile'
+
+let instance: Knex | undefined
+
+export function databaseUrl(): string {
+  // DATABASE_URL is the operators' usual name; NUXT_DATABASE_URL also works via runtimeConfig.
+  const url = process.env.DATABASE_URL || useRuntimeConfig().databaseUrl
+  if (!url) throw new Error('DATABASE_URL is not set: point it at a PostgreSQL database.')
+  return url
+}
+
+export function useDb(): Knex {
+  instance ??= knex(createKnexConfig(databaseUrl()))
+  return instance
+}
+
+/** True when PostgreSQL answers a trivial query within the pool's timeout. */
+export async function pingDatabase(): Promise<boolean> {
+  try {
+    await useDb().raw('select 1')
+    return true
+  }
+  catch {
+    return false
+  }
+}
+
+export async function closeDb(): Promise<void> {
+  await instance?.destroy()
+  instance = undefined
+}

@@ -1,0 +1,58 @@
+// Sign-in sessions. The cookie (sealed by nuxt-auth-utils) names a user_sessions row; each
+// request checks the row is still open, so sign-out ends a session everywhere at once, and
+// sessions survive a server restart because both the row and the cookie's key persist.
+import type { H3Event } from 'h3'
+import type { User } from '#auth-utils'
+import type { UserRow, UserSessionRow } from '#shared/types/rows'
+import { MESSAGES } from '#shared/constants/messages'
+
+// Touch last_seen_at at most this often, to keep reads cheap.
+const TOUCH_AFTER_MS = 5 * 60 * 1000
+
+export async function startSession(event: H3Event, user: UserRow): Promise<void> {
+  const [row] = await useDb()<UserSessionRow>('user_sessions')
+    .insert({
+      user_id: user.id,
+      user_agent: getRequestHeader(event, 'user-agent')?.slice(0, 300) ?? null,
+      ip_address: clientAddress(event),
+    })
+    .returning('id')
+  await replaceUserSession(event, { user: toPublicUser(user), sessionId: row!.id })
+}
+
+export async function endSession(event: H3Event): Promise<void> {
+  const session = await getUserSession(event)
+  if (session.sessionId) await revokeSession(session.sessionId)
+  await clearUserSession(event)
+}
+
+export async function revokeSession(sessionId: string): Promise<void> {
+  await useDb()('user_sessions').where({ id: sessionId }).whereNull('revoked_at').update({ revoked_at: useDb().fn.now() })
+}
+
+/** The signed-in user, fresh from the database; 401 when there is none or it was revoked. */
+export async function requireUser(event: H3Event): Promise<User> {
+  const cached = event.context.gridmarkUser as User | undefined
+  if (cached) return cached
+  const session = await getUserSession(event)
+  if (!session.user || !session.sessionId) {
+    throw httpError(401, MESSAGES.notSignedIn)
+  }
+  const db = useDb()
+  const row = await db('user_sessions as s')
+    .join('users as u', 'u.id', 's.user_id')
+    .where('s.id', session.sessionId)
+    .first<UserRow & { revoked_at: Date | null, last_seen_at: Date, session_id: string }>(
+      'u.*', 's.revoked_at', 's.last_seen_at', 's.id as session_id',
+    )
+  if (!row || row.revoked_at || row.id !== session.user.id) {
+    await clearUserSession(event)
+    throw httpError(401, MESSAGES.sessionEnded)
+  }
+  if (Date.now() - new Date(row.last_seen_at).getTime() > TOUCH_AFTER_MS) {
+    await db('user_sessions').where({ id: row.session_id }).update({ last_seen_at: db.fn.now() })
+  }
+  const user = toPublicUser(row)
+  event.context.gridmarkUser = user
+  return user
+}

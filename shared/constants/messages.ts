@@ -1,0 +1,19 @@
+// Every message the API answers with, in one place, worded for the person who reads it.
+export const MESSAGES = {
+  invalidInput: 'Some fields need attention.',
+  invalidJson: 'The request body is not valid JSON.',
+  notSignedIn: 'Please sign in to continue.',
+  sessionEnded: 'Your session has ended. Please sign in again.',
+  badCredentials: 'That e-mail address and password do not match an account.',
+  emailTaken: 'An account with this e-mail address already exists. Sign in instead, or use another address.',
+  tooManyAttempts: (minutes: number) =>
+    `Too many sign-in attempts. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`,
+  competitionNotFound: 'No such competition, or you are not part of it.',
+  roleRequired: (roles: string) => `This needs the ${roles} role in this competition.`,
+  adminRequired: 'Only a site administrator can do this.',
+  notFound: 'Nothing was found at this address.',
+  conflict: 'That would clash with a record that already exists.',
+  referenceMissing: 'It refers to something that does not exist (any more).',
+  databaseDown: 'The database is not reachable just now. Nothing was changed; please try again in a moment.',
+  unexpected: 'Something went wrong on our side. Nothing was changed; please try again.',
+} as const
