@@ -23,6 +23,7 @@ export default defineConfig({
           name: 'nuxt',
           include: ['tests/nuxt/**/*.test.ts'],
           environment: 'nuxt',
+          setupFiles: ['tests/nuxt/setup.ts'],
         },
       }),
       {
@@ -31,6 +32,8 @@ export default defineConfig({
           name: 'e2e',
           include: ['tests/e2e/**/*.test.ts'],
           environment: 'node',
+          // The health test stops PostgreSQL for a moment: no browser test may run meanwhile.
+          sequence: { groupOrder: 1 },
           globalSetup: ['tests/support/global-server.ts'],
           fileParallelism: false,
           testTimeout: 30_000,
@@ -43,6 +46,7 @@ export default defineConfig({
           name: 'browser',
           include: ['tests/browser/**/*.test.ts'],
           environment: 'node',
+          sequence: { groupOrder: 2 },
           globalSetup: ['tests/support/global-server.ts'],
           fileParallelism: false,
           testTimeout: 60_000,

@@ -1,7 +1,8 @@
 // Competitions and their classes.
 import type { Knex } from 'knex'
 import type { Role } from '#shared/constants/roles'
-import type { CompetitionClassSummary, CompetitionDetail } from '#shared/types/api'
+import type { CompetitionClassSummary, CompetitionDetail, MembershipSummary } from '#shared/types/api'
+import { effectiveRoles } from '#shared/utils/access'
 import type { ClassRow, CompetitionRow } from '#shared/types/rows'
 
 // Contest days are calendar dates: read them as text so no time zone can shift them.
@@ -47,21 +48,30 @@ export async function competitionDetail(row: CompetitionRow, roles: Role[], db: 
   }
 }
 
-/** Every competition, for site administrators. */
-export async function listAllCompetitions(db: Knex = useDb()) {
-  const rows = await db('competitions')
-    .orderByRaw('first_contest_day NULLS LAST, name')
+/**
+ * Every competition, for site administrators, with the roles they act with in each: those
+ * they hold, plus organiser rights everywhere.
+ */
+export async function competitionSummariesForAdmin(userId: string, db: Knex = useDb()): Promise<MembershipSummary[]> {
+  const rows = await db('competitions as c')
+    .leftJoin('memberships as m', function () {
+      this.on('m.competition_id', 'c.id').andOn('m.user_id', db.raw('?', [userId]))
+    })
+    .groupBy('c.id')
+    .orderByRaw('c.first_contest_day NULLS LAST, c.name')
     .select(
-      'id', 'slug', 'name', 'airfield_name',
-      db.raw(`to_char(first_contest_day, 'YYYY-MM-DD') as first_contest_day`),
-      db.raw(`to_char(last_contest_day, 'YYYY-MM-DD') as last_contest_day`),
+      'c.id', 'c.slug', 'c.name', 'c.airfield_name',
+      db.raw(`to_char(c.first_contest_day, 'YYYY-MM-DD') as first_contest_day`),
+      db.raw(`to_char(c.last_contest_day, 'YYYY-MM-DD') as last_contest_day`),
+      db.raw('array_remove(array_agg(m.role), NULL) as roles'),
     )
   return rows.map(r => ({
-    competitionId: r.id as string,
-    slug: r.slug as string,
-    name: r.name as string,
-    airfieldName: r.airfield_name as string,
-    firstContestDay: r.first_contest_day as string | null,
-    lastContestDay: r.last_contest_day as string | null,
+    competitionId: r.id,
+    slug: r.slug,
+    name: r.name,
+    airfieldName: r.airfield_name,
+    firstContestDay: r.first_contest_day,
+    lastContestDay: r.last_contest_day,
+    roles: effectiveRoles(r.roles as Role[], true),
   }))
 }

@@ -1,7 +1,7 @@
-// GET /api/competitions — signed-in users. The competitions the user takes part in;
-// site administrators get every competition.
+// GET /api/competitions — signed-in users. {competitions: MembershipSummary[]}: the
+// competitions the user takes part in; site administrators get every competition.
 export default defineApiHandler(async (event) => {
   const user = await requireUser(event)
-  if (user.isAdmin) return { competitions: await listAllCompetitions() }
-  return { competitions: await membershipSummaries(user.id) }
+  const competitions = user.isAdmin ? await competitionSummariesForAdmin(user.id) : await membershipSummaries(user.id)
+  return { competitions }
 })

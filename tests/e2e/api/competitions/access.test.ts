@@ -74,8 +74,9 @@ describe('competition access', () => {
     const res = await admin.get(`/api/competitions/${theirs}/memberships`)
     expect(res.status).toBe(200)
     const list = await admin.get('/api/competitions')
-    const ids = list.body.competitions.map((c: { competitionId: string }) => c.competitionId)
-    expect(ids).toEqual(expect.arrayContaining([ours, theirs]))
+    const byId = new Map(list.body.competitions.map((c: { competitionId: string, roles: string[] }) => [c.competitionId, c.roles]))
+    expect(byId.get(ours)).toEqual(['organiser'])
+    expect(byId.get(theirs)).toEqual(['organiser'])
   })
 
   it('answers 400 for an identifier that is not one', async () => {
