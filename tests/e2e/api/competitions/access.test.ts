@@ -79,10 +79,10 @@ describe('competition access', () => {
     expect(byId.get(theirs)).toEqual(['organiser'])
   })
 
-  it('answers 400 for an identifier that is not one', async () => {
+  it('answers 404 for an identifier in the address that is not one', async () => {
     const res = await entrant.get('/api/competitions/not-a-uuid')
-    expect(res.status).toBe(400)
-    expect(res.body.data.fieldErrors.competitionId).toEqual(['That is not a valid identifier.'])
+    expect(res.status).toBe(404)
+    expect(res.body.message).toBe('Nothing was found at this address.')
   })
 
   it('answers unknown API addresses with a JSON 404', async () => {
