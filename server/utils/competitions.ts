@@ -59,19 +59,6 @@ export async function competitionSummariesForAdmin(userId: string, db: Knex = us
     })
     .groupBy('c.id')
     .orderByRaw('c.first_contest_day NULLS LAST, c.name')
-    .select(
-      'c.id', 'c.slug', 'c.name', 'c.airfield_name',
-      db.raw(`to_char(c.first_contest_day, 'YYYY-MM-DD') as first_contest_day`),
-      db.raw(`to_char(c.last_contest_day, 'YYYY-MM-DD') as last_contest_day`),
-      db.raw('array_remove(array_agg(m.role), NULL) as roles'),
-    )
-  return rows.map(r => ({
-    competitionId: r.id,
-    slug: r.slug,
-    name: r.name,
-    airfieldName: r.airfield_name,
-    firstContestDay: r.first_contest_day,
-    lastContestDay: r.last_contest_day,
-    roles: effectiveRoles(r.roles as Role[], true),
-  }))
+    .select(...summaryColumns(db), db.raw('array_remove(array_agg(m.role), NULL) as roles'))
+  return rows.map(r => toMembershipSummary(r, effectiveRoles(r.roles as Role[], true)))
 }

@@ -8,6 +8,36 @@ export async function rolesInCompetition(userId: string, competitionId: string, 
   return rows.map(r => r.role as Role)
 }
 
+/** Columns of a competition (aliased `c`) that a MembershipSummary shows. */
+export function summaryColumns(db: Knex) {
+  return [
+    'c.id', 'c.slug', 'c.name', 'c.airfield_name',
+    db.raw(`to_char(c.first_contest_day, 'YYYY-MM-DD') as first_contest_day`),
+    db.raw(`to_char(c.last_contest_day, 'YYYY-MM-DD') as last_contest_day`),
+  ]
+}
+
+interface SummaryRow {
+  id: string
+  slug: string
+  name: string
+  airfield_name: string
+  first_contest_day: string | null
+  last_contest_day: string | null
+}
+
+export function toMembershipSummary(r: SummaryRow, roles: Role[]): MembershipSummary {
+  return {
+    competitionId: r.id,
+    slug: r.slug,
+    name: r.name,
+    airfieldName: r.airfield_name,
+    firstContestDay: r.first_contest_day,
+    lastContestDay: r.last_contest_day,
+    roles,
+  }
+}
+
 /** The user's competitions with their roles in each, soonest contest first. */
 export async function membershipSummaries(userId: string, db: Knex = useDb()): Promise<MembershipSummary[]> {
   const rows = await db('memberships as m')
@@ -15,21 +45,8 @@ export async function membershipSummaries(userId: string, db: Knex = useDb()): P
     .where('m.user_id', userId)
     .groupBy('c.id')
     .orderByRaw('c.first_contest_day NULLS LAST, c.name')
-    .select(
-      'c.id', 'c.slug', 'c.name', 'c.airfield_name',
-      db.raw(`to_char(c.first_contest_day, 'YYYY-MM-DD') as first_contest_day`),
-      db.raw(`to_char(c.last_contest_day, 'YYYY-MM-DD') as last_contest_day`),
-      db.raw('array_agg(m.role order by m.role) as roles'),
-    )
-  return rows.map(r => ({
-    competitionId: r.id,
-    slug: r.slug,
-    name: r.name,
-    airfieldName: r.airfield_name,
-    firstContestDay: r.first_contest_day,
-    lastContestDay: r.last_contest_day,
-    roles: r.roles as Role[],
-  }))
+    .select(...summaryColumns(db), db.raw('array_agg(m.role order by m.role) as roles'))
+  return rows.map(r => toMembershipSummary(r, r.roles as Role[]))
 }
 
 export interface MemberListItem {
