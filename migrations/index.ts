@@ -6,6 +6,11 @@ import * as m20261201000200 from './20261201000200_competitions'
 import * as m20261201000300 from './20261201000300_memberships'
 import * as m20261201000400 from './20261201000400_audit_log'
 import * as m20261201000500 from './20261201000500_rate_limits'
+import * as m20261202000100 from './20261202000100_competition_rules'
+import * as m20261202000200 from './20261202000200_entries'
+import * as m20261202000300 from './20261202000300_units'
+import * as m20261202000400 from './20261202000400_firmware_catalogue'
+import * as m20261202000500 from './20261202000500_mail_outbox'
 
 type Migration = Knex.Migration
 
@@ -15,6 +20,11 @@ const migrations: Record<string, Migration> = {
   '20261201000300_memberships': m20261201000300,
   '20261201000400_audit_log': m20261201000400,
   '20261201000500_rate_limits': m20261201000500,
+  '20261202000100_competition_rules': m20261202000100,
+  '20261202000200_entries': m20261202000200,
+  '20261202000300_units': m20261202000300,
+  '20261202000400_firmware_catalogue': m20261202000400,
+  '20261202000500_mail_outbox': m20261202000500,
 }
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -11,7 +11,8 @@ export { DEMO_SIGN_INS, DEMO_PASSWORD } from './demo-data'
 // The same driver and defaults nuxt-auth-utils' hashPassword uses, so verifyPassword accepts it.
 const hasher = new Hash(new Scrypt({}))
 
-const WIPE_ORDER = ['audit_log', 'memberships', 'classes', 'competitions', 'user_sessions', 'users']
+// Every table of the schema; TRUNCATE … CASCADE also reaches tables added later that refer to these.
+const WIPE_ORDER = ['audit_log', 'mail_outbox', 'rate_limits', 'memberships', 'classes', 'competitions', 'user_sessions', 'users']
 
 export async function seedDemo(knex: Knex, opts: { reset?: boolean } = {}): Promise<{ seeded: boolean }> {
   return knex.transaction(async (trx) => {

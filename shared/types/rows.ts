@@ -70,3 +70,79 @@ export interface AuditRow {
   subject_id: string | null
   details: Record<string, unknown>
 }
+
+export interface EntryRow {
+  id: string
+  competition_id: string
+  class_id: string
+  entrant_user_id: string
+  status: 'draft' | 'submitted' | 'accepted' | 'rejected' | 'withdrawn'
+  decision_reason: string | null
+  pilot_name: string
+  pilot_nationality: string | null
+  pilot_licence_number: string | null
+  pilot_phone: string | null
+  emergency_contact: string | null
+  copilot_name: string | null
+  crew_names: string[]
+  glider_type: string
+  registration: string
+  comp_id: string
+  /** numeric columns arrive from pg as strings */
+  span_m: string | null
+  mtom_kg: string | null
+  empty_mass_kg: string | null
+  cg_forward_limit_m: string | null
+  cg_aft_limit_m: string | null
+  datum_description: string | null
+  submitted_at: Date | null
+  decided_at: Date | null
+  decided_by: string | null
+  withdrawn_at: Date | null
+  created_at: Date
+  updated_at: Date
+}
+
+export interface UnitRow {
+  id: string
+  entry_id: string
+  competition_id: string
+  kind: 'collision-warning' | 'flight-recorder'
+  model: string
+  serial: string
+  firmware_version: string | null
+  radio_id: string | null
+  /** date columns read as YYYY-MM-DD text (to_char) */
+  firmware_expires_on: string | null
+  firmware_updated_on: string | null
+  obstacle_db_version: string | null
+  obstacle_db_expires_on: string | null
+  approval_level: string | null
+  created_at: Date
+  updated_at: Date
+}
+
+export interface FirmwareReleaseRow {
+  id: string
+  competition_id: string
+  unit_family: string
+  version: string
+  expires_on: string
+  created_at: Date
+}
+
+export interface MailOutboxRow {
+  id: string
+  to_address: string
+  subject: string
+  text_body: string
+  html_body: string | null
+  template: string
+  competition_id: string | null
+  entry_id: string | null
+  attempts: number
+  next_attempt_at: Date
+  sent_at: Date | null
+  last_error: string | null
+  created_at: Date
+}

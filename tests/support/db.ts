@@ -26,3 +26,34 @@ export async function createCompetition(name: string, members: { userId: string,
   }
   return row.id as string
 }
+
+/** A class of its own in a competition (defaults: Standard limits, fee 300.00). */
+export async function createClass(competitionId: string, name = 'Standard', entryFeeMinor = 30000) {
+  const [row] = await testDb()('classes')
+    .insert({ competition_id: competitionId, name, code: 'standard', max_span_m: 15, max_mtom_kg: 525, entry_fee_minor: entryFeeMinor })
+    .returning('id')
+  return row.id as string
+}
+
+/** An entry of the given entrant in a class, arranged directly in the database. */
+export async function createEntry(input: {
+  competitionId: string
+  classId: string
+  entrantUserId: string
+  compId?: string
+  status?: string
+}) {
+  const [row] = await testDb()('entries')
+    .insert({
+      competition_id: input.competitionId,
+      class_id: input.classId,
+      entrant_user_id: input.entrantUserId,
+      status: input.status ?? 'draft',
+      pilot_name: 'Test Pilot',
+      glider_type: 'Test Glider 15',
+      registration: `D-${Math.floor(1000 + Math.random() * 9000)}`,
+      comp_id: input.compId ?? Math.random().toString(36).slice(2, 5).toUpperCase(),
+    })
+    .returning('id')
+  return row.id as string
+}

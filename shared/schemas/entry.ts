@@ -1,0 +1,73 @@
+import { z } from 'zod'
+import { APPROVAL_LEVELS } from '../constants/entries'
+import { isoDate } from './competition'
+
+const text = (label: string, max = 120) =>
+  z.string({ error: `Enter the ${label}.` }).trim().min(1, { error: `Enter the ${label}.` }).max(max, { error: `Keep the ${label} under ${max} characters.` })
+const optionalText = (max = 120) =>
+  z.string().trim().max(max, { error: `Keep it under ${max} characters.` }).optional().transform(v => (v ? v : undefined))
+const positive = (label: string, max: number) =>
+  z.number({ error: `Enter the ${label} as a number.` }).positive({ error: `The ${label} must be more than 0.` }).max(max, { error: `The ${label} looks too large.` })
+
+/** The competition ID painted on the glider: 1–3 letters or digits, kept in upper case. */
+export const compIdSchema = z
+  .string({ error: 'Enter the competition ID.' })
+  .trim()
+  .toUpperCase()
+  .regex(/^[A-Z0-9]{1,3}$/, { error: 'A competition ID is 1 to 3 letters or digits.' })
+
+/** A radio ID: the 24-bit address as six hex digits (ICAO Annex 10 Vol III ch. 9). */
+export const radioIdSchema = z
+  .string({ error: 'Enter the radio ID.' })
+  .trim()
+  .toUpperCase()
+  .regex(/^[0-9A-F]{6}$/, { error: 'A radio ID is six hexadecimal digits, e.g. 3D2F1A.' })
+
+export const entryBodySchema = z.object({
+  classId: z.uuid({ error: 'Choose a class.' }),
+  pilotName: text('pilot’s name'),
+  pilotNationality: z.string().trim().toUpperCase().regex(/^[A-Z]{2,3}$/, { error: 'Use a two- or three-letter country code.' }).optional(),
+  pilotLicenceNumber: optionalText(60),
+  pilotPhone: optionalText(40),
+  emergencyContact: optionalText(160),
+  copilotName: optionalText(),
+  crewNames: z.array(z.string().trim().min(1).max(120)).max(10, { error: 'List at most 10 crew.' }).default([]),
+  gliderType: text('glider type', 60),
+  registration: text('registration', 20),
+  compId: compIdSchema,
+  spanM: positive('span', 40).optional(),
+  mtomKg: positive('maximum take-off mass', 1500).optional(),
+  emptyMassKg: positive('empty mass', 1500).optional(),
+  cgForwardLimitM: z.number().min(-5).max(5).optional(),
+  cgAftLimitM: z.number().min(-5).max(5).optional(),
+  datumDescription: optionalText(300),
+}, { error: 'Send the fields as a JSON object.' }).refine(
+  e => e.cgForwardLimitM === undefined || e.cgAftLimitM === undefined || e.cgForwardLimitM < e.cgAftLimitM,
+  { error: 'The forward CG limit must lie ahead of the aft limit.', path: ['cgAftLimitM'] },
+)
+export type EntryBody = z.infer<typeof entryBodySchema>
+
+export const collisionWarningUnitSchema = z.object({
+  kind: z.literal('collision-warning'),
+  model: text('model', 80),
+  serial: text('serial number', 40),
+  radioId: radioIdSchema,
+  firmwareVersion: text('firmware version', 40),
+  firmwareExpiresOn: isoDate,
+  firmwareUpdatedOn: isoDate.optional(),
+  obstacleDbVersion: optionalText(40),
+  obstacleDbExpiresOn: isoDate.optional(),
+})
+
+export const flightRecorderUnitSchema = z.object({
+  kind: z.literal('flight-recorder'),
+  model: text('model', 80),
+  serial: text('serial number', 40),
+  firmwareVersion: optionalText(40),
+  approvalLevel: z.enum(APPROVAL_LEVELS, { error: 'Choose the recorder’s IGC approval level.' }),
+})
+
+export const unitBodySchema = z.discriminatedUnion('kind', [collisionWarningUnitSchema, flightRecorderUnitSchema], {
+  error: 'Choose whether this is a collision-warning unit or a flight recorder.',
+})
+export type UnitBody = z.infer<typeof unitBodySchema>
