@@ -5,8 +5,9 @@ import { defineVitestProject } from '@nuxt/test-utils/config'
 // The plain-node layers resolve Nuxt's `#shared` alias themselves.
 const alias = { '#shared': fileURLToPath(new URL('./shared', import.meta.url)) }
 
-// Four layers, mirroring the source tree. e2e and browser share one built server, started
-// by tests/support/global-server.ts against the throwaway database `npm test` prepared.
+// Four layers, mirroring the source tree. e2e and browser share one built server and one set
+// of service fakes, started by scripts/test.ts against the throwaway database `npm test`
+// prepared and handed on by tests/support/global-server.ts.
 export default defineConfig({
   test: {
     projects: [

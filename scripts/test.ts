@@ -21,6 +21,8 @@ import { freePort } from './lib/net'
 import { clusterEnv, clusterUrl, createDatabase, ensurePostgresBinaries, initCluster, isClusterRunning, startCluster, stopCluster } from './lib/postgres'
 import type { Cluster } from './lib/postgres'
 import { randomSessionPassword } from './lib/secrets'
+import { startServices, type StartedServices } from './lib/services'
+import { startServer, type RunningServer } from '../tests/support/server'
 
 const TEST_DATABASE = 'gridmark_test'
 const summaryFile = join(artifactsDir, 'test-summary.json')
@@ -42,6 +44,8 @@ let cluster: Cluster | undefined
 let tempDir: string | undefined
 let currentChild: ChildProcess | undefined
 let interrupted: NodeJS.Signals | undefined
+let fakes: StartedServices | undefined
+let server: RunningServer | undefined
 
 // ---------------------------------------------------------------------------------------
 // Signals: finish the current step quickly, skip the rest, still clean up and report.
@@ -142,6 +146,22 @@ async function runVitest(url: string, extraArgs: string[]): Promise<StepResult> 
     ...clusterEnv(cluster!),
     GRIDMARK_ARTIFACTS: artifactsDir,
   }
+  // One built server and one set of fakes for the e2e and browser layers together
+  // (tests/support/global-server.ts hands them on).
+  const started = Date.now()
+  try {
+    Object.assign(process.env, env)
+    fakes = await startServices()
+    server = await startServer(fakes.env)
+    env.GRIDMARK_TEST_BASE_URL = server.url
+    env.GRIDMARK_TEST_SERVICE_ENV = JSON.stringify(fakes.env)
+    console.log(`  ✓ test server on ${server.url} (${formatDuration(Date.now() - started)})`)
+  }
+  catch (error) {
+    reportError(error)
+    await stopServer()
+    return { name: 'vitest', status: 'failed', durationMs: Date.now() - started, tests: { passed: 0, failed: 1, total: 1 }, error: 'the test server did not start' }
+  }
   const result = await runStep('vitest', bin('vitest'), [
     'run',
     '--reporter=default',
@@ -151,6 +171,7 @@ async function runVitest(url: string, extraArgs: string[]): Promise<StepResult> 
   ], env)
   if (result.status === 'skipped') return result
 
+  await stopServer()
   const report = readVitestReport()
   if (!report) {
     // A crash before the report was written: count it as one failure.
@@ -206,10 +227,23 @@ function writeSummary(): { passed: number, failed: number } {
   return { passed, failed }
 }
 
+async function stopServer(): Promise<void> {
+  try {
+    await server?.stop()
+    await fakes?.stopAll()
+  }
+  catch (error) {
+    reportError(error)
+  }
+  server = undefined
+  fakes = undefined
+}
+
 let cleanedUp = false
 async function cleanUp(): Promise<void> {
   if (cleanedUp) return
   cleanedUp = true
+  await stopServer()
   if (cluster) {
     try {
       if (await isClusterRunning(cluster)) await stopCluster(cluster)

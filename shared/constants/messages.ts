@@ -1,4 +1,11 @@
-// Every message the API answers with, in one place, worded for the person who reads it.
+// Every message the API answers with, worded for the person who reads it: the common ones
+// here, each area's in messages-<area>.ts (one file per area keeps changes apart).
+import { MAIL_MESSAGES } from './messages-mail'
+import { PAYMENTS_MESSAGES } from './messages-payments'
+import { FILES_MESSAGES } from './messages-files'
+import { ENTRIES_MESSAGES } from './messages-entries'
+import { SETUP_MESSAGES } from './messages-setup'
+
 export const MESSAGES = {
   invalidInput: 'Some fields need attention.',
   invalidJson: 'The request body is not valid JSON.',
@@ -16,4 +23,9 @@ export const MESSAGES = {
   referenceMissing: 'It refers to something that does not exist (any more).',
   databaseDown: 'The database is not reachable just now. Nothing was changed; please try again in a moment.',
   unexpected: 'Something went wrong on our side. Nothing was changed; please try again.',
+  ...MAIL_MESSAGES,
+  ...PAYMENTS_MESSAGES,
+  ...FILES_MESSAGES,
+  ...ENTRIES_MESSAGES,
+  ...SETUP_MESSAGES,
 } as const

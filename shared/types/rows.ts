@@ -1,5 +1,11 @@
-// Row types of the database tables, written by hand to match migrations/.
+// Row types of the database tables, written by hand to match migrations/; each area's newer
+// tables in rows-<area>.ts, re-exported here.
 import type { Role } from '../constants/roles'
+export type * from './rows-mail'
+export type * from './rows-payments'
+export type * from './rows-files'
+export type * from './rows-entries'
+export type * from './rows-setup'
 
 export interface UserRow {
   id: string

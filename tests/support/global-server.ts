@@ -1,8 +1,9 @@
-// vitest globalSetup for the e2e and browser layers: the local service fakes `npm start`
-// also runs (scripts/lib/services.ts), then one built server for the whole run, wired to them.
+// vitest globalSetup for the e2e and browser layers. `npm test` (scripts/test.ts) starts the
+// local service fakes and ONE built server before vitest and passes them in
+// GRIDMARK_TEST_BASE_URL / GRIDMARK_TEST_SERVICE_ENV, so both layers talk to the same app:
+// two servers on one database would each run a mail worker and take each other's mail.
+// Each project loads this file on its own; it only hands the shared server on.
 import type { TestProject } from 'vitest/node'
-import { startServices } from '../../scripts/lib/services'
-import { startServer } from './server'
 
 declare module 'vitest' {
   export interface ProvidedContext {
@@ -12,19 +13,9 @@ declare module 'vitest' {
   }
 }
 
-export default async function setup(project: TestProject) {
-  const services = await startServices()
-  try {
-    const server = await startServer(services.env)
-    project.provide('baseUrl', server.url)
-    project.provide('serviceEnv', services.env)
-    return async () => {
-      await server.stop()
-      await services.stopAll()
-    }
-  }
-  catch (error) {
-    await services.stopAll()
-    throw error
-  }
+export default function setup(project: TestProject) {
+  const baseUrl = process.env.GRIDMARK_TEST_BASE_URL
+  if (!baseUrl) throw new Error('GRIDMARK_TEST_BASE_URL is not set: run the tests through `npm test`, which starts the server.')
+  project.provide('baseUrl', baseUrl)
+  project.provide('serviceEnv', JSON.parse(process.env.GRIDMARK_TEST_SERVICE_ENV ?? '{}') as Record<string, string>)
 }
