@@ -11,6 +11,7 @@ import * as m20261202000200 from './20261202000200_entries'
 import * as m20261202000300 from './20261202000300_units'
 import * as m20261202000400 from './20261202000400_firmware_catalogue'
 import * as m20261202000500 from './20261202000500_mail_outbox'
+import * as m20261203000050 from './20261203000050_entry_payment_status'
 
 type Migration = Knex.Migration
 
@@ -25,6 +26,7 @@ const migrations: Record<string, Migration> = {
   '20261202000300_units': m20261202000300,
   '20261202000400_firmware_catalogue': m20261202000400,
   '20261202000500_mail_outbox': m20261202000500,
+  '20261203000050_entry_payment_status': m20261203000050,
 }
 
 export const migrationSource: Knex.MigrationSource<string> = {

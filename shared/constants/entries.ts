@@ -2,6 +2,10 @@
 export const ENTRY_STATUSES = ['draft', 'submitted', 'accepted', 'rejected', 'withdrawn'] as const
 export type EntryStatus = (typeof ENTRY_STATUSES)[number]
 
+/** Kept on the entry by the payment module (paid = the fee due is covered). */
+export const PAYMENT_STATUSES = ['unpaid', 'paid', 'refunded'] as const
+export type PaymentStatus = (typeof PAYMENT_STATUSES)[number]
+
 export const UNIT_KINDS = ['collision-warning', 'flight-recorder'] as const
 export type UnitKind = (typeof UNIT_KINDS)[number]
 

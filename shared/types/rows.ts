@@ -1,6 +1,7 @@
 // Row types of the database tables, written by hand to match migrations/; each area's newer
 // tables in rows-<area>.ts, re-exported here.
 import type { Role } from '../constants/roles'
+import type { PaymentStatus } from '../constants/entries'
 export type * from './rows-mail'
 export type * from './rows-payments'
 export type * from './rows-files'
@@ -105,6 +106,8 @@ export interface EntryRow {
   decided_at: Date | null
   decided_by: string | null
   withdrawn_at: Date | null
+  payment_status: PaymentStatus
+  paid_minor: number
   created_at: Date
   updated_at: Date
 }
