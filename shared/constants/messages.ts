@@ -19,6 +19,8 @@ export const MESSAGES = {
   roleRequired: (roles: string) => `This needs the ${roles} role in this competition.`,
   adminRequired: 'Only a site administrator can do this.',
   notFound: 'Nothing was found at this address.',
+  entryNotFound: 'No such entry in this competition, or it is not yours.',
+  entrantOnly: 'Only the entry’s own entrant can do this.',
   conflict: 'That would clash with a record that already exists.',
   referenceMissing: 'It refers to something that does not exist (any more).',
   databaseDown: 'The database is not reachable just now. Nothing was changed; please try again in a moment.',
