@@ -1,7 +1,6 @@
 // What an entry still lacks and what its entrant should do next, in plain words. Pure: the
 // submit route, the dossier page and "My entries" all read the same answer.
-import type { EntryStatus, PaymentStatus } from '../constants/entries'
-import { DOCUMENT_KIND_LABELS, type DocumentKind } from '../constants/entries'
+import { DOCUMENT_KIND_LABELS, type DocumentKind, type EntryStatus, type PaymentStatus } from '../constants/entries'
 import type { CompetitionRules } from '../schemas/competition'
 
 export interface ProgressEntry {
