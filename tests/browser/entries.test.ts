@@ -113,6 +113,14 @@ describe('entrant registration in the browser', () => {
       const card = page.getByTestId('my-entry').filter({ hasText: 'G-MOOR' })
       await expect(card.textContent()).resolves.toContain('Wait for the organiser to accept the entry.')
       await screenshot(page, 'my-entries-phone')
+
+      // Sunlight mode on the grid: the dossier still fits the phone.
+      await browser.context.addCookies([{ name: 'gridmark-sunlight', value: 'on', url: baseUrl }])
+      await gotoApp(page, baseUrl, dossierPath)
+      await page.getByTestId('status-banner').waitFor()
+      await expectNoSidewaysScroll(page)
+      await screenshot(page, 'entry-dossier-sunlight-phone')
+      await browser.context.addCookies([{ name: 'gridmark-sunlight', value: 'off', url: baseUrl }])
     }
     finally {
       await page.close()

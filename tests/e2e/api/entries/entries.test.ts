@@ -1,7 +1,7 @@
 // Entrant registration through the real routes: joining, the dossier, audited changes,
 // uniqueness of competition and radio IDs, the edit window, and the status flow with its e-mails.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { ApiClient } from '../../../support/api'
+import { ApiClient, signedUpClient } from '../../../support/api'
 import { closeTestDb, createCompetition, createClass, testDb } from '../../../support/db'
 import {
   auditRows, collisionWarningUnit, completeEntry, createEntryVia, entriesWorld, entryBody, flightRecorderUnit,
@@ -420,8 +420,34 @@ describe('firmware suggestion', () => {
     expect(bad.body.data.fieldErrors.version).toEqual(['Give the firmware version.'])
     const outsider = await new ApiClient(baseUrl).get(`/api/competitions/${w.competitionId}/firmware/suggest?family=CW-2&version=7.22`)
     expect(outsider.status).toBe(401)
-    const stranger = (await import('../../../support/api')).signedUpClient
-    const s = await stranger(baseUrl, 'Stranger')
+    const s = await signedUpClient(baseUrl, 'Stranger')
     expect((await s.client.get(`/api/competitions/${w.competitionId}/firmware/suggest?family=CW-2&version=7.22`)).status).toBe(404)
+  })
+})
+
+describe('races and site administrators', () => {
+  it('lets only one of two simultaneous units take the same radio ID', async () => {
+    const competitionId = await createCompetition('Race Cup')
+    const cls = await createClass(competitionId)
+    const a = await createEntryVia(w.entrant.client, competitionId, entryBody(cls, { compId: 'A1' }))
+    const b = await createEntryVia(w.otherEntrant.client, competitionId, entryBody(cls, { compId: 'B1', registration: 'G-BBBB' }))
+    const [ra, rb] = await Promise.all([
+      w.entrant.client.post(`/api/competitions/${competitionId}/entries/${a}/units`, collisionWarningUnit({ radioId: 'ABC123' })),
+      w.otherEntrant.client.post(`/api/competitions/${competitionId}/entries/${b}/units`, collisionWarningUnit({ radioId: 'abc123' })),
+    ])
+    expect([ra.status, rb.status].sort()).toEqual([201, 409])
+    expect((await testDb()('units').where({ competition_id: competitionId, radio_id: 'ABC123' })).length).toBe(1)
+  })
+
+  it('gives a site administrator the organiser’s decision without membership', async () => {
+    const competitionId = await createCompetition('Admin Cup')
+    const cls = await createClass(competitionId)
+    const id = await completeEntry(w.entrant.client, competitionId, entryBody(cls, { compId: 'AD' }), 'ADAD01')
+    expect((await w.entrant.client.post(`/api/competitions/${competitionId}/entries/${id}/submit`)).status).toBe(200)
+    const a = await signedUpClient(baseUrl, 'Ada Admin')
+    await testDb()('users').where({ id: a.user.id }).update({ is_admin: true })
+    const res = await a.client.post(`/api/competitions/${competitionId}/entries/${id}/accept`)
+    expect(res.status).toBe(200)
+    expect(res.body.entry.status).toBe('accepted')
   })
 })
