@@ -3,6 +3,7 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import type { Page } from 'playwright-core'
 import { GOOD_PASSWORD, signedUpClient } from '../support/api'
+import { completeEntry, entryBody } from '../support/entries'
 import { gotoApp, launchBrowser, openPage, screenshot, signInThroughForm, type Browser } from '../support/browser'
 import { closeTestDb, createClass, createCompetition, testDb } from '../support/db'
 
@@ -142,6 +143,44 @@ describe('entrant registration in the browser', () => {
       expect(row.status).toBe('accepted')
       const mail = await testDb()('mail_outbox').where({ entry_id: row.id, template: 'entry-accepted' }).first()
       expect(mail.to_address).toBe(entrant.email)
+    }
+    finally {
+      await page.close()
+    }
+  })
+
+  it('lets the organiser reject with a reason, and the entrant change the entry and withdraw it', async () => {
+    const classId = (await testDb()('classes').where({ competition_id: competitionId, name: 'Club' }).first()).id
+    const id = await completeEntry(entrant.client, competitionId, entryBody(classId, { compId: 'RJ', registration: 'G-REJX', copilotName: 'Cleo Copilot' }), '5B6C7D')
+    expect((await entrant.client.post(`/api/competitions/${competitionId}/entries/${id}/submit`)).status).toBe(200)
+    const path = `/competitions/${competitionId}/entries/${id}`
+
+    await browser.context.clearCookies()
+    const page = await openPage(browser.context, baseUrl, '/sign-in', 'phone')
+    try {
+      await signInThroughForm(page, baseUrl, organiser.email, GOOD_PASSWORD, path)
+      await page.getByRole('button', { name: 'Reject with a reason…' }).click()
+      await page.getByRole('button', { name: 'Reject the entry' }).click()
+      await page.locator('#reject-reason-error').getByText('Give the entrant a reason.').waitFor()
+      await page.getByLabel('Reason for the entrant').fill('The registration does not match the insurance.')
+      await page.getByRole('button', { name: 'Reject the entry' }).click()
+      await page.getByTestId('entry-status').getByText('Rejected').waitFor()
+      await screenshot(page, 'entry-dossier-rejected-phone')
+
+      await browser.context.clearCookies()
+      await signInThroughForm(page, baseUrl, entrant.email, GOOD_PASSWORD, path)
+      await expect(page.getByTestId('next-step').textContent()).resolves.toContain('The registration does not match the insurance.')
+      await page.getByRole('button', { name: 'Change the entry' }).click()
+      await page.getByLabel('Co-pilot (optional)').fill('')
+      await page.getByRole('button', { name: 'Save the changes' }).click()
+      await page.getByRole('heading', { name: 'Pilot and crew' }).waitFor()
+      expect((await testDb()('entries').where({ id }).first()).copilot_name).toBeNull()
+
+      await page.getByRole('button', { name: 'Withdraw the entry…' }).click()
+      await page.getByRole('button', { name: 'Yes, withdraw' }).click()
+      await page.getByTestId('entry-status').getByText('Withdrawn').waitFor()
+      await expect(page.getByTestId('next-step').textContent()).resolves.toBe('This entry is withdrawn. Nothing more to do.')
+      expect(await page.getByRole('button', { name: 'Change the entry' }).count()).toBe(0)
     }
     finally {
       await page.close()
