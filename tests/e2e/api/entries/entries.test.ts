@@ -201,7 +201,10 @@ describe('changing an entry', () => {
     expect(refused.body.message).toBe('Registration closed on 1 March 2020: only the organiser can change this entry now.')
     const unit = await w.entrant.client.post(`${p}/units`, flightRecorderUnit())
     expect(unit.status).toBe(403)
-    expect((await w.entrant.client.get(p)).body.can.edit).toBe(false)
+    expect((await w.entrant.client.get(p)).body.can).toMatchObject({ edit: false, submit: false, withdraw: true })
+    const submit = await w.entrant.client.post(`${p}/submit`)
+    expect(submit.status).toBe(403)
+    expect(submit.body.message).toBe('Registration closed on 1 March 2020: only the organiser can change this entry now.')
 
     const allowed = await w.organiser.client.request('PATCH', p, { pilotPhone: '+44 1' })
     expect(allowed.status).toBe(200)
