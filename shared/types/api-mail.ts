@@ -1,5 +1,6 @@
 // API response types of invitations and the reminder job.
 import type { InvitableRole, InvitationState } from '../constants/invitations'
+import type { Role } from '../constants/roles'
 
 export interface InvitationListItem {
   id: string
@@ -37,4 +38,13 @@ export interface InvitationAccepted {
 export interface ReminderRunResult {
   queued: number
   entryIds: string[]
+}
+
+/** One person in GET /api/competitions/:id/memberships, with each role's membership id. */
+export interface MemberListEntry {
+  userId: string
+  name: string
+  email: string
+  roles: Role[]
+  memberships: { id: string, role: Role }[]
 }
