@@ -47,11 +47,11 @@ export default defineNuxtConfig({
       cookie: { secure: true, sameSite: 'lax' as const },
     },
     // E-mail (NUXT_SMTP_URL, NUXT_MAIL_FROM, NUXT_MAIL_WORKER_INTERVAL_MS, …). Without an SMTP
-    // URL mail stays queued in the outbox. publicBaseUrl is the address links in e-mails use;
+    // URL mail stays queued in the outbox. siteUrl (NUXT_SITE_URL) is the address links in e-mails use;
     // empty means the address the request came in on.
     smtpUrl: '',
     mailFrom: 'Gridmark <no-reply@gridmark.invalid>',
-    publicBaseUrl: '',
+    siteUrl: '',
     /** Signs invitation links; empty means the session password. */
     invitationSecret: '',
     mailWorker: {

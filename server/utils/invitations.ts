@@ -18,7 +18,7 @@ export function invitationSecret(): string {
 
 /** Where links in e-mails point: the configured public address, else the request's. */
 export function publicBaseUrl(event?: H3Event): string {
-  const configured = useRuntimeConfig().publicBaseUrl
+  const configured = useRuntimeConfig().siteUrl
   if (configured) return String(configured).replace(/\/+$/, '')
   if (event) return getRequestURL(event).origin
   const host = process.env.NITRO_HOST || process.env.HOST || '127.0.0.1'
