@@ -28,7 +28,9 @@ describe('inviting a scrutineer', () => {
   it('from the people page to the invitee holding the role', async () => {
     const invitee = uniqueEmail('browser-invitee')
     const page = await openPage(browser.context, baseUrl, '/sign-in', 'phone')
-    await signInThroughForm(page, baseUrl, organiserEmail, GOOD_PASSWORD, `/competitions/${competitionId}/people`)
+    await signInThroughForm(page, baseUrl, organiserEmail, GOOD_PASSWORD, `/competitions/${competitionId}`)
+    await page.getByTestId('people-link').click()
+    await page.waitForURL(url => url.pathname === `/competitions/${competitionId}/people`)
     await page.getByRole('heading', { level: 1, name: 'People' }).waitFor()
     expect(await page.getByTestId('members-organiser').getByTestId('member-row').allTextContents()).toEqual([expect.stringContaining('Petra People')])
 
@@ -75,6 +77,9 @@ describe('inviting a scrutineer', () => {
     ])
     await page.getByRole('heading', { level: 1, name: 'Heather Ridge Open' }).waitFor()
     await page.getByTestId('role-duties').getByRole('heading', { name: 'Scrutineer' }).waitFor()
+    expect(await page.getByTestId('people-link').count()).toBe(0)
+    const denied = await page.goto(new URL(`/competitions/${competitionId}/people`, baseUrl).toString())
+    expect(denied?.status()).toBe(403)
     await screenshot(page, 'invitation-accepted-phone')
 
     // The link is spent: opening it again says so.
