@@ -47,6 +47,12 @@ describe('inviting a scrutineer', () => {
     await screenshot(page, 'people-phone')
     await page.setViewportSize({ width: 1920, height: 1080 })
     await screenshot(page, 'people-wall')
+    // Sunlight mode for the field: the same page in high contrast, then back.
+    await page.getByTestId('sunlight-toggle').click()
+    await expect.poll(() => page.evaluate(() => document.documentElement.classList.contains('sunlight'))).toBe(true)
+    await screenshot(page, 'people-sunlight-wall')
+    await page.getByTestId('sunlight-toggle').click()
+    await expect.poll(() => page.evaluate(() => document.documentElement.classList.contains('sunlight'))).toBe(false)
 
     const [mail] = await waitForMail(invitee)
     expect(mail!.subject).toBe('Invitation: scrutineer at Heather Ridge Open')
