@@ -12,6 +12,7 @@ export interface PaymentScene {
   entrant: ApiClient
   entrantUser: { id: string, email: string, name: string }
   organiser: ApiClient
+  organiserEmail: string
   scrutineer: ApiClient
   /** Another entrant of the same competition. */
   otherEntrant: ApiClient
@@ -30,7 +31,7 @@ export async function paymentScene(baseUrl: string, opts: { feeMinor?: number, s
   ])
   const classId = await createClass(competitionId, 'Standard', opts.feeMinor ?? 30000)
   const entryId = await createEntry({ competitionId, classId, entrantUserId: e.user.id, status: opts.status ?? 'submitted' })
-  return { competitionId, classId, entryId, entrant: e.client, entrantUser: e.user, organiser: o.client, scrutineer: s.client, otherEntrant: x.client }
+  return { competitionId, classId, entryId, entrant: e.client, entrantUser: e.user, organiser: o.client, organiserEmail: o.email, scrutineer: s.client, otherEntrant: x.client }
 }
 
 export function fakeUrl(serviceEnv: Record<string, string>): string {
