@@ -83,7 +83,7 @@ describe('card payment of the entry fee', () => {
       page.once('dialog', dialog => void dialog.accept())
       await row.getByRole('button', { name: /Refund/ }).click()
       await page.getByText('Refunded €320.50 to Ada Brightwater (KM7).').waitFor()
-      expect(await page.getByTestId('total-refunded').textContent()).toContain('€320.50')
+      await page.getByTestId('total-refunded').filter({ hasText: '€320.50' }).waitFor()
       expect(await entryRow(s.entryId)).toMatchObject({ payment_status: 'refunded', paid_minor: 0 })
       await screenshot(page, 'payments-organiser-refunded-wall')
 
