@@ -163,7 +163,7 @@ export async function startCheckout(event: H3Event, entry: EntryRow, competition
       price_data: {
         currency: fee.currency.toLowerCase(),
         unit_amount: due,
-        product_data: { name: `Entry fee ${competition.name}, ${entry.comp_id} (${entry.pilot_name})`.slice(0, 250) },
+        product_data: { name: `Entry fee: ${competition.name}, ${entry.comp_id} (${entry.pilot_name})`.slice(0, 250) },
       },
     }],
     client_reference_id: entry.id,

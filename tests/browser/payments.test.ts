@@ -44,6 +44,8 @@ describe('card payment of the entry fee', () => {
       await page.getByRole('button', { name: /^Pay/ }).click()
       await page.getByRole('alert').waitFor()
       expect(await page.getByRole('alert').textContent()).toContain('declined')
+      await page.evaluate(() => document.fonts.ready.then(() => undefined))
+      await screenshot(page, 'payment-card-page-declined-phone')
       expect(await entryRow(s.entryId)).toMatchObject({ payment_status: 'unpaid' })
 
       await page.getByLabel('Card number').fill('4242 4242 4242 4242')
