@@ -34,6 +34,10 @@ export default defineNuxtConfig({
     // Read at run time from the environment; the start and test scripts set them.
     databaseUrl: '',
     trustProxy: false,
+    // Card payments (NUXT_PAYMENTS_SECRET_KEY, …_WEBHOOK_SECRET, …_API_BASE). With real keys and
+    // no apiBase the SDK talks to the real service; npm start and npm test point apiBase at
+    // the local fake. Without a secret key, checkout answers that card payment is not set up.
+    payments: { secretKey: '', webhookSecret: '', apiBase: '' },
     loginLimit: {
       perAccount: 5,
       perAddress: 30,

@@ -14,6 +14,7 @@ import * as m20261202000500 from './20261202000500_mail_outbox'
 import * as m20261203000050 from './20261203000050_entry_payment_status'
 import * as m20261203000100 from './20261203000100_invitations'
 import * as m20261203000200 from './20261203000200_mail_reminders'
+import * as m20261203000210 from './20261203000210_payments'
 
 type Migration = Knex.Migration
 
@@ -31,6 +32,7 @@ const migrations: Record<string, Migration> = {
   '20261203000050_entry_payment_status': m20261203000050,
   '20261203000100_invitations': m20261203000100,
   '20261203000200_mail_reminders': m20261203000200,
+  '20261203000210_payments': m20261203000210,
 }
 
 export const migrationSource: Knex.MigrationSource<string> = {

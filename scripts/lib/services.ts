@@ -7,6 +7,7 @@
 // reverse order when the app stops. A service that fails to start stops the ones before it.
 import { reportError, step } from './common'
 import { mailCapture } from './mail-capture'
+import { paymentsFake } from './fake-payments'
 
 export interface RunningService {
   /** Variables for the app's environment, e.g. { SMTP_URL: 'smtp://127.0.0.1:2525' }. */
@@ -29,6 +30,7 @@ export interface LocalService {
 
 export const services: LocalService[] = [
   mailCapture,
+  paymentsFake,
 ]
 
 export interface StartedServices {

@@ -1,0 +1,8 @@
+// POST /api/payments/webhook — the payment service only (no session; the signature is the proof).
+// Verifies the Stripe-Signature header over the raw body, then applies the event exactly once.
+export default defineApiHandler(async (event) => {
+  const raw = await readRawBody(event, false)
+  const signature = getRequestHeader(event, 'stripe-signature')
+  const verified = verifyWebhook(raw, signature)
+  return processPaymentEvent(verified)
+})

@@ -1,0 +1,25 @@
+// Vocabulary of card payments, shared by client and server.
+
+/** One payment attempt: pending until the payment service confirms or gives up on it. */
+export const PAYMENT_ROW_STATUSES = ['pending', 'paid', 'failed', 'refunded'] as const
+export type PaymentRowStatus = (typeof PAYMENT_ROW_STATUSES)[number]
+
+export const PAYMENT_ROW_STATUS_LABELS: Record<PaymentRowStatus, string> = {
+  pending: 'Waiting for payment',
+  paid: 'Paid',
+  failed: 'Not completed',
+  refunded: 'Refunded',
+}
+
+/** Mail templates this area queues. */
+export const PAYMENT_MAIL_TEMPLATES = { received: 'payment-received', refund: 'payment-refund' } as const
+
+/** Formats an amount in minor units, e.g. 30000 EUR → "€300.00". */
+export function formatMoney(minor: number, currency: string, locale = 'en-GB'): string {
+  try {
+    return new Intl.NumberFormat(locale, { style: 'currency', currency }).format(minor / 100)
+  }
+  catch {
+    return `${(minor / 100).toFixed(2)} ${currency}`
+  }
+}

@@ -1,0 +1,102 @@
+// The entrant pays the entry fee by card on the payment service's page and comes back to
+// see it paid; the organiser sees the payment in the payments table and refunds a withdrawal.
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
+import { GOOD_PASSWORD } from '../support/api'
+import { gotoApp, launchBrowser, openPage, screenshot, signInThroughForm, type Browser } from '../support/browser'
+import { closeTestDb, testDb } from '../support/db'
+import { entryRow, paymentScene, type PaymentScene } from '../support/payments'
+
+const baseUrl = inject('baseUrl')
+
+let browser: Browser
+let s: PaymentScene
+beforeAll(async () => {
+  browser = await launchBrowser()
+  s = await paymentScene(baseUrl, { feeMinor: 32050 })
+  await testDb()('entries').where({ id: s.entryId }).update({ comp_id: 'KM7', pilot_name: 'Ada Brightwater' })
+})
+afterAll(async () => {
+  await browser?.close()
+  await closeTestDb()
+})
+
+async function noSidewaysScroll(page: import('playwright-core').Page) {
+  const { scrollWidth, innerWidth } = await page.evaluate(() => ({ scrollWidth: document.documentElement.scrollWidth, innerWidth: window.innerWidth }))
+  expect(scrollWidth).toBeLessThanOrEqual(innerWidth)
+}
+
+describe('card payment of the entry fee', () => {
+  it('the entrant pays on the card page, returns and sees the payment received', async () => {
+    await browser.context.clearCookies()
+    const page = await openPage(browser.context, baseUrl, '/', 'phone')
+    try {
+      const path = `/competitions/${s.competitionId}/entries/${s.entryId}/payment`
+      await signInThroughForm(page, baseUrl, s.entrantUser.email, GOOD_PASSWORD, path)
+      await page.getByTestId('amount-due').waitFor()
+      expect(await page.getByTestId('amount-due').textContent()).toBe('€320.50')
+      await noSidewaysScroll(page)
+      await screenshot(page, 'payment-entrant-unpaid-phone')
+
+      // A declined card first: the card page says so and nothing is paid.
+      await page.getByTestId('pay-by-card').click()
+      await page.waitForURL(url => url.pathname.startsWith('/pay/'))
+      await page.getByLabel('Card number').fill('4000 0000 0000 0002')
+      await page.getByRole('button', { name: /^Pay/ }).click()
+      await page.getByRole('alert').waitFor()
+      expect(await page.getByRole('alert').textContent()).toContain('declined')
+      await page.evaluate(() => document.fonts.ready.then(() => undefined))
+      await screenshot(page, 'payment-card-page-declined-phone')
+      expect(await entryRow(s.entryId)).toMatchObject({ payment_status: 'unpaid' })
+
+      await page.getByLabel('Card number').fill('4242 4242 4242 4242')
+      await page.getByRole('button', { name: /^Pay/ }).click()
+      await page.waitForURL(url => url.pathname === path && url.searchParams.get('return') === 'success')
+      await page.getByTestId('payment-received').waitFor()
+      expect(await page.getByTestId('amount-due').textContent()).toBe('€0.00')
+      expect(await page.locator('[data-payment-status="paid"]').count()).toBeGreaterThan(0)
+      expect(await page.getByTestId('pay-by-card').count()).toBe(0)
+      await noSidewaysScroll(page)
+      await screenshot(page, 'payment-entrant-paid-phone')
+      await page.setViewportSize({ width: 1920, height: 1080 })
+      await screenshot(page, 'payment-entrant-paid-wall')
+    }
+    finally {
+      await page.close()
+    }
+  })
+
+  it('the organiser sees it in the payments table and refunds the withdrawn entry after confirming', async () => {
+    await testDb()('entries').where({ id: s.entryId }).update({ status: 'withdrawn', withdrawn_at: new Date() })
+    await browser.context.clearCookies()
+    const page = await openPage(browser.context, baseUrl, '/', 'wall')
+    try {
+      const path = `/competitions/${s.competitionId}/payments`
+      await signInThroughForm(page, baseUrl, s.organiserEmail, GOOD_PASSWORD, path)
+      const row = page.locator('[data-payment-row="KM7"]')
+      await row.waitFor().catch(async (e) => {
+        await screenshot(page, 'payments-organiser-failure')
+        throw new Error(`${e}\n${page.url()}\n${(await page.textContent('body'))?.slice(0, 500)}`)
+      })
+      expect(await row.textContent()).toContain('Ada Brightwater')
+      expect(await row.textContent()).toContain('€320.50')
+      expect(await page.getByTestId('total-collected').textContent()).toContain('€320.50')
+      await screenshot(page, 'payments-organiser-wall')
+
+      page.once('dialog', dialog => void dialog.accept())
+      await row.getByRole('button', { name: /Refund/ }).click()
+      await page.getByText('Refunded €320.50 to Ada Brightwater (KM7).').waitFor()
+      await page.getByTestId('total-refunded').filter({ hasText: '€320.50' }).waitFor()
+      expect(await entryRow(s.entryId)).toMatchObject({ payment_status: 'refunded', paid_minor: 0 })
+      await screenshot(page, 'payments-organiser-refunded-wall')
+
+      await page.setViewportSize({ width: 390, height: 844 })
+      await gotoApp(page, baseUrl, path)
+      await page.locator('[data-payment-card="KM7"]').waitFor()
+      await noSidewaysScroll(page)
+      await screenshot(page, 'payments-organiser-phone')
+    }
+    finally {
+      await page.close()
+    }
+  })
+})
