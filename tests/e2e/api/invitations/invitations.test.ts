@@ -15,6 +15,7 @@ let organiser: ApiClient
 let scrutineer: ApiClient
 let admin: ApiClient
 let outsider: ApiClient
+let scrutineerEmail: string
 
 beforeAll(async () => {
   const o = await signedUpClient(baseUrl, 'Olive Organiser')
@@ -24,6 +25,7 @@ beforeAll(async () => {
   await testDb()('users').where({ id: a.user.id }).update({ is_admin: true })
   organiser = o.client
   scrutineer = s.client
+  scrutineerEmail = s.user.email
   admin = a.client
   outsider = x.client
   competitionId = await createCompetition('Invite Open', [
@@ -96,8 +98,7 @@ describe('POST /api/competitions/:id/invitations', () => {
     const email = uniqueEmail('by-admin')
     const res = await admin.post(`/api/competitions/${competitionId}/invitations`, { email, role: 'organiser' })
     expect(res.status).toBe(201)
-    const samEmail = (await testDb()('users').where({ name: 'Sam Scrutineer' }).first()).email
-    const clash = await organiser.post(`/api/competitions/${competitionId}/invitations`, { email: samEmail, role: 'scrutineer' })
+    const clash = await organiser.post(`/api/competitions/${competitionId}/invitations`, { email: scrutineerEmail, role: 'scrutineer' })
     expect(clash.status).toBe(409)
     expect(clash.body.message).toBe(MESSAGES.alreadyHoldsRole)
   })
