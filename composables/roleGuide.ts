@@ -1,14 +1,25 @@
 import type { Role } from '#shared/constants/roles'
 
 // What each role does in a competition and where it goes next, in the product's own words.
-// Links point at the competition overview until the role pages arrive.
+// A role whose own page has not arrived yet (the director's board) points at its duties on
+// the competition overview.
+export interface RoleLink {
+  label: string
+  /** Path below /competitions/<id>, or an absolute path when it starts with '~' (e.g. '~/entries'). */
+  path: string
+}
+
 export interface RoleGuide {
   /** One line for the home page card. */
   next: string
   /** The call to action on the home page. */
   action: string
+  /** Where the call to action goes (a RoleLink path); '' = this role's duties on the overview. */
+  actionPath: string
   /** What the role does here, for the competition overview. */
   duties: string[]
+  /** The role's pages, shown with its duties. */
+  links: RoleLink[]
 }
 
 export const ROLE_ORDER: readonly Role[] = ['organiser', 'director', 'scrutineer', 'entrant']
@@ -17,43 +28,79 @@ export const ROLE_GUIDE: Record<Role, RoleGuide> = {
   organiser: {
     next: 'Set up classes, rules and fees; invite officials; accept entries.',
     action: 'Open the competition office',
+    actionPath: '/entries',
     duties: [
       'Set up the competition, its classes, rules and fees.',
       'Invite scrutineers and the contest director.',
       'Accept entries, refund withdrawals and print glider tags.',
       'Export the entry list and the scrutineering log.',
     ],
+    links: [
+      { label: 'Entries', path: '/entries' },
+      { label: 'Set-up', path: '/setup' },
+      { label: 'People', path: '/people' },
+      { label: 'Payments', path: '/payments' },
+      { label: 'Document review', path: '/documents' },
+      { label: 'Firmware catalogue', path: '/firmware' },
+    ],
   },
   director: {
     next: 'Watch the readiness board; hold, release or waive.',
     action: 'Open the readiness board',
+    actionPath: '',
     duties: [
       'Open each contest day and watch the readiness board.',
       'Hold or release a glider.',
       'Accept a finding for one day with a recorded reason (a waiver).',
     ],
+    links: [
+      { label: 'Entries', path: '/entries' },
+    ],
   },
   scrutineer: {
     next: 'Review documents, then check gliders on the launch grid.',
     action: 'Go to scrutineering',
+    actionPath: '/documents',
     duties: [
       'Review entrants’ documents before the event.',
       'On each contest day, scan a glider’s tag on the launch grid and work through the day’s checklist.',
       'Weigh when asked and record the outcome of each grid check.',
     ],
+    links: [
+      { label: 'Document review', path: '/documents' },
+      { label: 'Entries', path: '/entries' },
+      { label: 'Firmware catalogue', path: '/firmware' },
+    ],
   },
   entrant: {
     next: 'Describe your glider and its units, upload documents, see your findings.',
-    action: 'See your entry',
+    action: 'See your entries',
+    actionPath: '~/entries',
     duties: [
       'Describe your glider and the units fitted to it.',
       'Upload documents and an IGC file from each flight recorder.',
       'Pay the entry fee.',
       'See your findings early and fix them before you arrive.',
     ],
+    links: [
+      { label: 'Your entries', path: '~/entries' },
+      { label: 'Enter a glider', path: '/entries/new' },
+    ],
   },
 }
 
 export function sortRoles(roles: readonly Role[]): Role[] {
   return ROLE_ORDER.filter(r => roles.includes(r))
+}
+
+/** The address of a role link in one competition. */
+export function roleLinkTo(competitionId: string, path: string): string {
+  if (path.startsWith('~')) return path.slice(1)
+  return `/competitions/${competitionId}${path}`
+}
+
+/** Where a role's call to action goes in one competition. */
+export function roleActionTo(competitionId: string, role: Role): string {
+  const path = ROLE_GUIDE[role].actionPath
+  return path ? roleLinkTo(competitionId, path) : `/competitions/${competitionId}#role-${role}`
 }

@@ -20,7 +20,21 @@ export const DEMO_COMPETITION = {
   timeZone: 'Europe/Berlin',
   firstContestDay: '2027-07-12',
   lastContestDay: '2027-07-18',
+  practiceDays: ['2027-07-10', '2027-07-11'],
+  // Registration is open while the demo is shown (from late 2026 to the start of summer).
+  registrationOpensOn: '2026-11-01',
+  registrationClosesOn: '2027-06-30',
+  lateFeeAfter: '2027-05-31',
+  lateFeeMinor: 5000,
   currency: 'EUR',
+  rules: {
+    firmwareMarginDays: 0,
+    firmwareWarningDays: 30,
+    igcRecencyDays: 365,
+    requiredDocumentKinds: ['airworthiness', 'insurance', 'licence', 'medical'],
+    recordersRequired: 1,
+    acceptedApprovalLevels: ['all-flights', 'badges-up-to-diamonds'],
+  },
   classes: [
     { code: 'club', name: 'Club', entryFeeMinor: 32000 },
     { code: 'standard', name: 'Standard', entryFeeMinor: 35000 },

@@ -5,6 +5,7 @@ import { Hash } from '@adonisjs/hash'
 import { Scrypt } from '@adonisjs/hash/drivers/scrypt'
 import { faiClass } from '../shared/constants/classes'
 import { DEMO_COMPETITION, DEMO_PASSWORD, DEMO_PEOPLE } from './demo-data'
+import { DEMO_ENTRIES, DEMO_EXTRA_PILOTS, DEMO_FIRMWARE } from './demo-entries'
 
 export { DEMO_SIGN_INS, DEMO_PASSWORD } from './demo-data'
 
@@ -26,11 +27,11 @@ export async function seedDemo(knex: Knex, opts: { reset?: boolean } = {}): Prom
 
     const passwordHash = await hasher.make(DEMO_PASSWORD)
     const users = await trx('users')
-      .insert(DEMO_PEOPLE.map(p => ({
+      .insert([...DEMO_PEOPLE, ...DEMO_EXTRA_PILOTS].map(p => ({
         email: p.email,
         name: p.name,
         password_hash: passwordHash,
-        is_admin: p.isAdmin ?? false,
+        is_admin: 'isAdmin' in p ? p.isAdmin ?? false : false,
       })))
       // A re-run without reset keeps accounts someone signed up with a demo address.
       .onConflict(trx.raw('(lower(email))'))
@@ -49,11 +50,21 @@ export async function seedDemo(knex: Knex, opts: { reset?: boolean } = {}): Prom
         first_contest_day: DEMO_COMPETITION.firstContestDay,
         last_contest_day: DEMO_COMPETITION.lastContestDay,
         currency: DEMO_COMPETITION.currency,
+        registration_opens_on: DEMO_COMPETITION.registrationOpensOn,
+        registration_closes_on: DEMO_COMPETITION.registrationClosesOn,
+        late_fee_after: DEMO_COMPETITION.lateFeeAfter,
+        late_fee_minor: DEMO_COMPETITION.lateFeeMinor,
+        settings: DEMO_COMPETITION.rules,
         created_by: admin,
       })
       .returning('id')
 
-    await trx('classes').insert(DEMO_COMPETITION.classes.map((c, i) => {
+    await trx('competition_days').insert([
+      ...DEMO_COMPETITION.practiceDays.map(day => ({ competition_id: competition.id, day, kind: 'practice' })),
+      ...contestDays(DEMO_COMPETITION.firstContestDay, DEMO_COMPETITION.lastContestDay).map(day => ({ competition_id: competition.id, day, kind: 'contest' })),
+    ])
+
+    const classes = await trx('classes').insert(DEMO_COMPETITION.classes.map((c, i) => {
       const fai = faiClass(c.code)!
       return {
         competition_id: competition.id,
@@ -65,7 +76,12 @@ export async function seedDemo(knex: Knex, opts: { reset?: boolean } = {}): Prom
         entry_fee_minor: c.entryFeeMinor,
         sort_order: i,
       }
-    }))
+    })).returning(['id', 'code'])
+    const classIdByCode = new Map(classes.map(c => [c.code as string, c.id as string]))
+
+    await trx('firmware_releases').insert(DEMO_FIRMWARE.map(f => ({
+      competition_id: competition.id, unit_family: f.family, version: f.version, expires_on: f.expiresOn,
+    })))
 
     const memberships = DEMO_PEOPLE.flatMap(p => p.roles.map(role => ({
       user_id: idByEmail.get(p.email),
@@ -75,14 +91,71 @@ export async function seedDemo(knex: Knex, opts: { reset?: boolean } = {}): Prom
     })))
     await trx('memberships').insert(memberships).onConflict(['user_id', 'competition_id', 'role']).ignore()
 
+    const organiser = idByEmail.get('organiser@gridmark.example')
+    for (const [i, e] of DEMO_ENTRIES.entries()) {
+      const entrantId = idByEmail.get(e.entrantEmail)!
+      // Submitted in the spring, decided a few days later (fixed dates: the seed is repeatable).
+      const submittedAt = e.status === 'draft' ? null : `2027-0${3 + (i % 3)}-${String(1 + (i % 27)).padStart(2, '0')}T09:${String(10 + i).padStart(2, '0')}:00Z`
+      const decided = e.status === 'accepted' || e.status === 'rejected'
+      const [entry] = await trx('entries').insert({
+        competition_id: competition.id,
+        class_id: classIdByCode.get(e.classCode),
+        entrant_user_id: entrantId,
+        status: e.status,
+        decision_reason: e.decisionReason ?? null,
+        pilot_name: e.pilotName,
+        pilot_nationality: e.pilotNationality,
+        pilot_licence_number: e.pilotLicenceNumber,
+        pilot_phone: e.pilotPhone,
+        emergency_contact: e.emergencyContact,
+        copilot_name: e.copilotName ?? null,
+        crew_names: e.crewNames,
+        glider_type: e.gliderType,
+        registration: e.registration,
+        comp_id: e.compId,
+        span_m: e.spanM,
+        mtom_kg: e.mtomKg,
+        empty_mass_kg: e.emptyMassKg,
+        submitted_at: submittedAt,
+        decided_at: decided ? trx.raw(`?::timestamptz + interval '3 days'`, [submittedAt]) : null,
+        decided_by: decided ? organiser : null,
+        withdrawn_at: e.status === 'withdrawn' ? trx.raw(`?::timestamptz + interval '20 days'`, [submittedAt]) : null,
+        payment_status: e.paymentStatus,
+        paid_minor: e.paymentStatus === 'paid' ? DEMO_COMPETITION.classes.find(c => c.code === e.classCode)!.entryFeeMinor : 0,
+      }).returning('id')
+      await trx('units').insert(e.units.map(u => ({
+        entry_id: entry.id,
+        competition_id: competition.id,
+        kind: u.kind,
+        model: u.model,
+        serial: u.serial,
+        firmware_version: u.firmwareVersion,
+        radio_id: u.radioId ?? null,
+        firmware_expires_on: u.firmwareExpiresOn ?? null,
+        firmware_updated_on: u.firmwareUpdatedOn ?? null,
+        approval_level: u.approvalLevel ?? null,
+      })))
+      await trx('memberships').insert({ user_id: entrantId, competition_id: competition.id, role: 'entrant', granted_by: null })
+        .onConflict(['user_id', 'competition_id', 'role']).ignore()
+    }
+
     await trx('audit_log').insert({
       actor_user_id: null,
       competition_id: competition.id,
       action: 'demo.seeded',
       subject_type: 'competition',
       subject_id: competition.id,
-      details: { people: DEMO_PEOPLE.length },
+      details: { people: DEMO_PEOPLE.length + DEMO_EXTRA_PILOTS.length, entries: DEMO_ENTRIES.length },
     })
     return { seeded: true }
   })
+}
+
+/** Every day from first to last, inclusive, as YYYY-MM-DD (calendar arithmetic in UTC). */
+function contestDays(first: string, last: string): string[] {
+  const days: string[] = []
+  for (let d = new Date(`${first}T00:00:00Z`); d <= new Date(`${last}T00:00:00Z`); d.setUTCDate(d.getUTCDate() + 1)) {
+    days.push(d.toISOString().slice(0, 10))
+  }
+  return days
 }

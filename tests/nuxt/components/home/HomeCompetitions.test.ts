@@ -51,5 +51,6 @@ describe('HomeCompetitions', () => {
     const card = home.get('[data-testid="membership-card"]')
     expect(card.text()).toContain('Other Open')
     expect(card.findAll('[data-testid="role-chip"]').map(c => c.text())).toEqual(['Organiser'])
+    expect(card.find('a[href="/competitions/c9/entries"]').text()).toContain('Open the competition office')
   })
 })

@@ -1,0 +1,69 @@
+// The demo seed gives the field README promises: 40 entries, and the seeded problems a
+// scrutineer should find. Reads the throwaway database `npm test` seeded with the demo data.
+import { afterAll, describe, expect, it } from 'vitest'
+import { closeTestDb, testDb } from '../support/db'
+import { DEMO_COMPETITION } from '../../seeds/demo-data'
+import { SEEDED_PROBLEMS } from '../../seeds/demo-entries'
+
+afterAll(closeTestDb)
+
+async function demoEntry(compId: string) {
+  const entry = await testDb()('entries as e')
+    .join('competitions as c', 'c.id', 'e.competition_id')
+    .where({ 'c.slug': DEMO_COMPETITION.slug, 'e.comp_id': compId })
+    .first('e.*')
+  expect(entry, `entry ${compId}`).toBeTruthy()
+  const units = await testDb()('units').where({ entry_id: entry.id })
+    .select('kind', 'radio_id', testDb().raw(`to_char(firmware_expires_on, 'YYYY-MM-DD') as expires`), testDb().raw(`to_char(firmware_updated_on, 'YYYY-MM-DD') as updated`))
+  return { entry, units }
+}
+
+describe('demo seed', () => {
+  it('enters 40 gliders with unique competition IDs, each with a collision-warning unit', async () => {
+    const rows = await testDb()('entries as e').join('competitions as c', 'c.id', 'e.competition_id')
+      .where('c.slug', DEMO_COMPETITION.slug).select('e.id', 'e.comp_id')
+    expect(rows).toHaveLength(40)
+    expect(new Set(rows.map(r => r.comp_id)).size).toBe(40)
+    const withUnit = await testDb()('units').whereIn('entry_id', rows.map(r => r.id)).where('kind', 'collision-warning').countDistinct('entry_id as n').first()
+    expect(Number(withUnit!.n)).toBe(40)
+  })
+
+  it('lists a reason for every seeded problem', () => {
+    expect(Object.keys(SEEDED_PROBLEMS)).toEqual(expect.arrayContaining(['K7', 'T3', 'B2', 'M5', 'F9', 'R4', 'H8']))
+  })
+
+  it('has firmware expiring during the contest on K7, and soon after it on T3', async () => {
+    const k7 = await demoEntry('K7')
+    const t3 = await demoEntry('T3')
+    const k7Unit = k7.units.find(u => u.kind === 'collision-warning')!
+    const t3Unit = t3.units.find(u => u.kind === 'collision-warning')!
+    expect(k7Unit.expires > DEMO_COMPETITION.firstContestDay && k7Unit.expires <= DEMO_COMPETITION.lastContestDay).toBe(true)
+    expect(t3Unit.expires > DEMO_COMPETITION.lastContestDay).toBe(true)
+  })
+
+  it('shares one radio ID between B2 and M5 only', async () => {
+    const b2 = await demoEntry('B2')
+    const m5 = await demoEntry('M5')
+    const radio = b2.units.find(u => u.kind === 'collision-warning')!.radio_id
+    expect(m5.units.find(u => u.kind === 'collision-warning')!.radio_id).toBe(radio)
+    const sharing = await testDb()('units as u').join('competitions as c', 'c.id', 'u.competition_id')
+      .where({ 'c.slug': DEMO_COMPETITION.slug, 'u.radio_id': radio }).count('* as n').first()
+    expect(Number(sharing!.n)).toBe(2)
+  })
+
+  it('has F9 submitted but unpaid, R4 without a flight recorder, H8 not updated for over a year', async () => {
+    const f9 = await demoEntry('F9')
+    expect(f9.entry.status).toBe('submitted')
+    expect(f9.entry.payment_status).toBe('unpaid')
+    const r4 = await demoEntry('R4')
+    expect(r4.units.filter(u => u.kind === 'flight-recorder')).toHaveLength(0)
+    const h8 = await demoEntry('H8')
+    expect(h8.units.find(u => u.kind === 'collision-warning')!.updated < '2026-07-12').toBe(true)
+  })
+
+  it('leaves the tenth demo entrant without an entry, to register from scratch', async () => {
+    const count = await testDb()('entries as e').join('users as u', 'u.id', 'e.entrant_user_id')
+      .where('u.email', 'entrant10@gridmark.example').count('* as n').first()
+    expect(Number(count!.n)).toBe(0)
+  })
+})
