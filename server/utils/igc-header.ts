@@ -67,8 +67,10 @@ export function parseIgc(text: string): IgcParseResult {
   }
   catch (error) {
     const message = plainMessage(error)
-    const line = /A record/.test(message) ? Math.max(1, firstContentLine) : (errors[0]?.line ?? Math.max(1, firstContentLine))
-    return { ok: false, error: { line, message }, errors }
+    // No A record: the file fails at its first line. Otherwise the first broken line says more
+    // ("Missing HFDTE record before first B record", line 2) than the summary does.
+    if (/A record/.test(message) || !errors[0]) return { ok: false, error: { line: Math.max(1, firstContentLine), message }, errors }
+    return { ok: false, error: errors[0], errors }
   }
   return {
     ok: true,

@@ -24,7 +24,7 @@ describe('DocumentEntryPanel', () => {
     const panel = await mountSuspended(DocumentEntryPanel, { props: { competitionId: C, entryId: 'e1', canUpload: false } })
     const arc = panel.get('[data-kind="airworthiness"]')
     expect(arc.text()).toContain('Accepted')
-    expect(arc.get('[data-shape="accepted"]').exists()).toBe(true)
+    expect(arc.find('[data-shape="accepted"]').exists()).toBe(true)
     expect(arc.text()).toContain('2027-09-30')
     expect(arc.get('a').attributes('href')).toBe(`${base('e1')}/d1/file`)
     const ins = panel.get('[data-kind="insurance"]')

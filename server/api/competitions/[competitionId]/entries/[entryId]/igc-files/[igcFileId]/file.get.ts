@@ -12,7 +12,7 @@ export default defineApiHandler(async (event) => {
   if (!data) throw httpError(404, MESSAGES.fileUnavailable)
   setResponseHeaders(event, {
     'content-type': 'text/plain; charset=utf-8',
-    'content-length': String(data.byteLength),
+    'content-length': data.byteLength,
     'content-disposition': contentDisposition('attachment', file.original_filename),
     'x-content-type-options': 'nosniff',
     'cache-control': 'private, no-store',
