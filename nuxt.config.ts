@@ -46,6 +46,24 @@ export default defineNuxtConfig({
       // NUXT_SESSION_COOKIE_SECURE=false.
       cookie: { secure: true, sameSite: 'lax' as const },
     },
+    // E-mail (NUXT_SMTP_URL, NUXT_MAIL_FROM, NUXT_MAIL_WORKER_INTERVAL_MS, …). Without an SMTP
+    // URL mail stays queued in the outbox. siteUrl (NUXT_SITE_URL) is the address links in e-mails use;
+    // empty means the address the request came in on.
+    smtpUrl: '',
+    mailFrom: 'Gridmark <no-reply@gridmark.invalid>',
+    siteUrl: '',
+    /** Signs invitation links; empty means the session password. */
+    invitationSecret: '',
+    mailWorker: {
+      intervalMs: 2000,
+      batchSize: 10,
+      backoffBaseMs: 30_000,
+      backoffMaxMs: 60 * 60 * 1000,
+    },
+    reminders: {
+      /** How often the pre-event reminder job looks for due reminders; 0 turns the timer off. */
+      intervalMs: 60 * 60 * 1000,
+    },
   },
 
   tailwindcss: {

@@ -12,6 +12,8 @@ import * as m20261202000300 from './20261202000300_units'
 import * as m20261202000400 from './20261202000400_firmware_catalogue'
 import * as m20261202000500 from './20261202000500_mail_outbox'
 import * as m20261203000050 from './20261203000050_entry_payment_status'
+import * as m20261203000100 from './20261203000100_invitations'
+import * as m20261203000200 from './20261203000200_mail_reminders'
 import * as m20261203000300 from './20261203000300_documents'
 import * as m20261203000310 from './20261203000310_igc_files'
 
@@ -29,6 +31,8 @@ const migrations: Record<string, Migration> = {
   '20261202000400_firmware_catalogue': m20261202000400,
   '20261202000500_mail_outbox': m20261202000500,
   '20261203000050_entry_payment_status': m20261203000050,
+  '20261203000100_invitations': m20261203000100,
+  '20261203000200_mail_reminders': m20261203000200,
   '20261203000300_documents': m20261203000300,
   '20261203000310_igc_files': m20261203000310,
 }

@@ -151,7 +151,7 @@ async function runVitest(url: string, extraArgs: string[]): Promise<StepResult> 
   const started = Date.now()
   try {
     Object.assign(process.env, env)
-    fakes = await startServices()
+    fakes = await startServices(undefined, { forTests: true })
     server = await startServer(fakes.env)
     env.GRIDMARK_TEST_BASE_URL = server.url
     env.GRIDMARK_TEST_SERVICE_ENV = JSON.stringify(fakes.env)

@@ -6,6 +6,7 @@
 // into the app's environment (e.g. SMTP_URL pointing at the capture). They are stopped in
 // reverse order when the app stops. A service that fails to start stops the ones before it.
 import { reportError, step } from './common'
+import { mailCapture } from './mail-capture'
 
 export interface RunningService {
   /** Variables for the app's environment, e.g. { SMTP_URL: 'smtp://127.0.0.1:2525' }. */
@@ -15,13 +16,20 @@ export interface RunningService {
   stop(): Promise<void>
 }
 
+export interface ServiceOptions {
+  /** `npm test`: any free port instead of the fixed ones of `npm start`, and fast timings. */
+  forTests?: boolean
+}
+
 export interface LocalService {
   name: string
   /** Resolves once the service accepts connections. */
-  start(): Promise<RunningService>
+  start(options?: ServiceOptions): Promise<RunningService>
 }
 
-export const services: LocalService[] = []
+export const services: LocalService[] = [
+  mailCapture,
+]
 
 export interface StartedServices {
   env: Record<string, string>
@@ -29,7 +37,7 @@ export interface StartedServices {
   stopAll(): Promise<void>
 }
 
-export async function startServices(list: LocalService[] = services): Promise<StartedServices> {
+export async function startServices(list: LocalService[] = services, options: ServiceOptions = {}): Promise<StartedServices> {
   const running: { name: string, service: RunningService }[] = []
 
   const stopAll = async (): Promise<void> => {
@@ -48,7 +56,7 @@ export async function startServices(list: LocalService[] = services): Promise<St
   for (const entry of list) {
     step(`Starting ${entry.name}`)
     try {
-      running.push({ name: entry.name, service: await entry.start() })
+      running.push({ name: entry.name, service: await entry.start(options) })
     }
     catch (error) {
       await stopAll()

@@ -12,8 +12,9 @@ export interface OutgoingMail {
   entryId?: string | null
 }
 
-export async function enqueueMail(db: Knex, mail: OutgoingMail): Promise<void> {
-  await db('mail_outbox').insert({
+/** Returns the outbox row's id. */
+export async function enqueueMail(db: Knex, mail: OutgoingMail): Promise<string> {
+  const [row] = await db('mail_outbox').insert({
     to_address: mail.to,
     subject: mail.subject,
     text_body: mail.text,
@@ -21,5 +22,6 @@ export async function enqueueMail(db: Knex, mail: OutgoingMail): Promise<void> {
     template: mail.template,
     competition_id: mail.competitionId ?? null,
     entry_id: mail.entryId ?? null,
-  })
+  }).returning('id')
+  return String(row.id)
 }

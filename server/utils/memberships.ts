@@ -54,6 +54,8 @@ export interface MemberListItem {
   name: string
   email: string
   roles: Role[]
+  /** One row per role held, with the id an organiser removes it by. */
+  memberships: { id: string, role: Role }[]
 }
 
 export async function listMembers(competitionId: string, db: Knex = useDb()): Promise<MemberListItem[]> {
@@ -62,6 +64,7 @@ export async function listMembers(competitionId: string, db: Knex = useDb()): Pr
     .where('m.competition_id', competitionId)
     .groupBy('u.id')
     .orderBy('u.name')
-    .select('u.id', 'u.name', 'u.email', db.raw('array_agg(m.role order by m.role) as roles'))
-  return rows.map(r => ({ userId: r.id, name: r.name, email: r.email, roles: r.roles as Role[] }))
+    .select('u.id', 'u.name', 'u.email', db.raw('array_agg(m.role order by m.role) as roles'),
+      db.raw(`json_agg(json_build_object('id', m.id, 'role', m.role) order by m.role) as memberships`))
+  return rows.map(r => ({ userId: r.id, name: r.name, email: r.email, roles: r.roles as Role[], memberships: r.memberships }))
 }

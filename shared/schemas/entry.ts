@@ -71,3 +71,64 @@ export const unitBodySchema = z.discriminatedUnion('kind', [collisionWarningUnit
   error: 'Choose whether this is a collision-warning unit or a flight recorder.',
 })
 export type UnitBody = z.infer<typeof unitBodySchema>
+
+// ---------------------------------------------------------------------------------------
+// Changing an entry (PATCH): every field may be left out (unchanged). Optional text and
+// number fields may also be sent as null or '' to clear them; required ones may not.
+
+const clearableText = (max = 120) =>
+  z.union([z.null(), z.string().trim().max(max, { error: `Keep it under ${max} characters.` })], { error: 'Send text, or null to clear it.' })
+    .optional()
+    .transform(v => (v === '' ? null : v))
+const clearableNumber = (label: string, max: number) =>
+  z.union([z.null(), z.literal(''), positive(label, max)], { error: `Enter the ${label} as a number.` })
+    .optional()
+    .transform(v => (v === '' ? null : v))
+const clearableArm = z.union([z.null(), z.literal(''), z.number({ error: 'Enter the limit as a number of metres.' }).min(-5).max(5)], { error: 'Enter the limit as a number of metres.' })
+  .optional()
+  .transform(v => (v === '' ? null : v))
+
+export const entryPatchSchema = z.object({
+  classId: z.uuid({ error: 'Choose a class.' }).optional(),
+  pilotName: text('pilot’s name').optional(),
+  pilotNationality: z.union([
+    z.null(),
+    z.literal(''),
+    z.string().trim().toUpperCase().regex(/^[A-Z]{2,3}$/, { error: 'Use a two- or three-letter country code.' }),
+  ], { error: 'Use a two- or three-letter country code.' }).optional().transform(v => (v === '' ? null : v)),
+  pilotLicenceNumber: clearableText(60),
+  pilotPhone: clearableText(40),
+  emergencyContact: clearableText(160),
+  copilotName: clearableText(),
+  crewNames: z.array(z.string().trim().min(1).max(120)).max(10, { error: 'List at most 10 crew.' }).optional(),
+  gliderType: text('glider type', 60).optional(),
+  registration: text('registration', 20).optional(),
+  compId: compIdSchema.optional(),
+  spanM: clearableNumber('span', 40),
+  mtomKg: clearableNumber('maximum take-off mass', 1500),
+  emptyMassKg: clearableNumber('empty mass', 1500),
+  cgForwardLimitM: clearableArm,
+  cgAftLimitM: clearableArm,
+  datumDescription: clearableText(300),
+}, { error: 'Send the fields as a JSON object.' })
+export type EntryPatch = z.infer<typeof entryPatchSchema>
+
+/** The organiser's reason for rejecting an entry; the entrant reads it in the e-mail. */
+export const entryRejectSchema = z.object({
+  reason: z.string({ error: 'Give the entrant a reason.' }).trim()
+    .min(3, { error: 'Give the entrant a reason.' })
+    .max(1000, { error: 'Keep the reason under 1000 characters.' }),
+}, { error: 'Send the reason as a JSON object.' })
+
+export const entryParamsSchema = z.object({
+  competitionId: z.uuid(),
+  entryId: z.uuid(),
+})
+
+export const unitParamsSchema = entryParamsSchema.extend({ unitId: z.uuid() })
+
+/** ?family=&version= for the firmware catalogue's suggestion. */
+export const firmwareSuggestQuerySchema = z.object({
+  family: z.string({ error: 'Give the unit family or model.' }).trim().min(1, { error: 'Give the unit family or model.' }).max(80),
+  version: z.string({ error: 'Give the firmware version.' }).trim().min(1, { error: 'Give the firmware version.' }).max(40),
+})

@@ -1,0 +1,11 @@
+// DELETE /api/competitions/:competitionId/memberships/:membershipId — organisers (and site
+// administrators). Removes one role of one person; the last organiser cannot be removed.
+import { membershipParamsSchema } from '#shared/schemas/invitation'
+
+export default defineApiHandler(async (event) => {
+  const { competitionId, membershipId } = await validParams(event, membershipParamsSchema)
+  const { user } = await requireRole(event, competitionId, ['organiser'])
+  await removeMembership(competitionId, membershipId, user)
+  setResponseStatus(event, 204)
+  return null
+})

@@ -1,0 +1,50 @@
+// API response types of invitations and the reminder job.
+import type { InvitableRole, InvitationState } from '../constants/invitations'
+import type { Role } from '../constants/roles'
+
+export interface InvitationListItem {
+  id: string
+  email: string
+  role: InvitableRole
+  state: InvitationState
+  expiresAt: string
+  createdAt: string
+  invitedByName: string | null
+  acceptedAt: string | null
+  acceptedByName: string | null
+  revokedAt: string | null
+}
+
+/** What a link invites to, shown to anyone holding it. */
+export interface InvitationPreview {
+  role: InvitableRole
+  email: string
+  expiresAt: string
+  invitedByName: string | null
+  competition: {
+    id: string
+    name: string
+    airfieldName: string
+    firstContestDay: string | null
+    lastContestDay: string | null
+  }
+}
+
+export interface InvitationAccepted {
+  competitionId: string
+  role: InvitableRole
+}
+
+export interface ReminderRunResult {
+  queued: number
+  entryIds: string[]
+}
+
+/** One person in GET /api/competitions/:id/memberships, with each role's membership id. */
+export interface MemberListEntry {
+  userId: string
+  name: string
+  email: string
+  roles: Role[]
+  memberships: { id: string, role: Role }[]
+}

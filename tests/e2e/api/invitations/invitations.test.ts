@@ -1,0 +1,258 @@
+// Invitations: an organiser invites an official by e-mail; the signed, single-use link that
+// expires creates the membership for whoever signs in or signs up with it.
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
+import { ApiClient, signedUpClient, uniqueEmail, GOOD_PASSWORD } from '../../../support/api'
+import { closeTestDb, createCompetition, testDb } from '../../../support/db'
+import { invitationLink, tokenOf, waitForMail } from '../../../support/mail'
+import { MESSAGES } from '../../../../shared/constants/messages'
+
+const baseUrl = inject('baseUrl')
+afterAll(closeTestDb)
+
+let competitionId: string
+let otherCompetitionId: string
+let organiser: ApiClient
+let scrutineer: ApiClient
+let admin: ApiClient
+let outsider: ApiClient
+
+beforeAll(async () => {
+  const o = await signedUpClient(baseUrl, 'Olive Organiser')
+  const s = await signedUpClient(baseUrl, 'Sam Scrutineer')
+  const a = await signedUpClient(baseUrl, 'Ada Admin')
+  const x = await signedUpClient(baseUrl, 'Oscar Outsider')
+  await testDb()('users').where({ id: a.user.id }).update({ is_admin: true })
+  organiser = o.client
+  scrutineer = s.client
+  admin = a.client
+  outsider = x.client
+  competitionId = await createCompetition('Invite Open', [
+    { userId: o.user.id, role: 'organiser' },
+    { userId: s.user.id, role: 'scrutineer' },
+  ])
+  otherCompetitionId = await createCompetition('Invite Elsewhere', [{ userId: x.user.id, role: 'organiser' }])
+})
+
+async function invite(email: string, role = 'scrutineer', client = organiser) {
+  const res = await client.post(`/api/competitions/${competitionId}/invitations`, { email, role })
+  expect(res.status, JSON.stringify(res.body)).toBe(201)
+  const [mail] = await waitForMail(email)
+  return { invitation: res.body.invitation, mail: mail!, token: tokenOf(invitationLink(mail!)) }
+}
+
+describe('POST /api/competitions/:id/invitations', () => {
+  it('queues an invitation e-mail with a link that the capture receives', async () => {
+    const email = uniqueEmail('invitee')
+    const res = await organiser.post(`/api/competitions/${competitionId}/invitations`, { email: `  ${email.toUpperCase()} `, role: 'director' })
+    expect(res.status).toBe(201)
+    expect(res.body.invitation).toMatchObject({ email, role: 'director', state: 'pending', invitedByName: 'Olive Organiser' })
+    const expiresIn = new Date(res.body.invitation.expiresAt).getTime() - Date.now()
+    expect(expiresIn).toBeGreaterThan(6.9 * 24 * 3600e3)
+    expect(expiresIn).toBeLessThanOrEqual(7 * 24 * 3600e3)
+
+    const [mail] = await waitForMail(email)
+    expect(mail!.to).toEqual([email])
+    expect(mail!.subject).toBe('Invitation: contest director at Invite Open')
+    expect(mail!.text).toContain('Olive Organiser invites you to join Invite Open on Gridmark as contest director.')
+    const link = invitationLink(mail!)
+    expect(link.startsWith(`${baseUrl}/invitations/`)).toBe(true)
+    expect(mail!.html).toContain(`href="${link}"`)
+
+    // Only the token's hash is stored; an audit entry records the invitation.
+    const row = await testDb()('invitations').where({ id: res.body.invitation.id }).first()
+    expect(row.token_hash).toMatch(/^[0-9a-f]{64}$/)
+    expect(row.token_hash).not.toContain(tokenOf(link))
+    const auditRow = await testDb()('audit_log').where({ action: 'invitation.create', subject_id: row.id }).first()
+    expect(auditRow).toBeTruthy()
+    const outbox = await testDb()('mail_outbox').where({ to_address: email }).first()
+    expect(outbox).toMatchObject({ template: 'invitation', competition_id: competitionId })
+  })
+
+  it('answers 400 with field messages for a bad body', async () => {
+    const bad = await organiser.post(`/api/competitions/${competitionId}/invitations`, { email: 'not-an-address', role: 'entrant' })
+    expect(bad.status).toBe(400)
+    expect(bad.body.data.fieldErrors.email).toEqual(['Enter an e-mail address like name@example.org.'])
+    expect(bad.body.data.fieldErrors.role).toEqual(['Choose scrutineer, contest director or organiser.'])
+    const notJson = await organiser.postRaw(`/api/competitions/${competitionId}/invitations`, '{oops')
+    expect(notJson.status).toBe(400)
+    expect(notJson.body.message).toBe(MESSAGES.invalidJson)
+    const empty = await organiser.request('POST', `/api/competitions/${competitionId}/invitations`)
+    expect(empty.status).toBe(400)
+  })
+
+  it('refuses 401 signed out, 403 for a scrutineer, 404 for another competition’s organiser', async () => {
+    const body = { email: uniqueEmail(), role: 'scrutineer' }
+    expect((await new ApiClient(baseUrl).post(`/api/competitions/${competitionId}/invitations`, body)).status).toBe(401)
+    const forbidden = await scrutineer.post(`/api/competitions/${competitionId}/invitations`, body)
+    expect(forbidden.status).toBe(403)
+    expect(forbidden.body.message).toBe('This needs the organiser role in this competition.')
+    expect((await outsider.post(`/api/competitions/${competitionId}/invitations`, body)).status).toBe(404)
+    expect((await organiser.post(`/api/competitions/not-a-uuid/invitations`, body)).status).toBe(404)
+    expect(await testDb()('invitations').where({ email: body.email }).first()).toBeUndefined()
+    expect(await testDb()('mail_outbox').where({ to_address: body.email }).first()).toBeUndefined()
+  })
+
+  it('lets a site administrator invite, and refuses to invite someone who already holds the role', async () => {
+    const email = uniqueEmail('by-admin')
+    const res = await admin.post(`/api/competitions/${competitionId}/invitations`, { email, role: 'organiser' })
+    expect(res.status).toBe(201)
+    const samEmail = (await testDb()('users').where({ name: 'Sam Scrutineer' }).first()).email
+    const clash = await organiser.post(`/api/competitions/${competitionId}/invitations`, { email: samEmail, role: 'scrutineer' })
+    expect(clash.status).toBe(409)
+    expect(clash.body.message).toBe(MESSAGES.alreadyHoldsRole)
+  })
+
+  it('replaces a waiting invitation to the same address and role', async () => {
+    const email = uniqueEmail('twice')
+    const first = await invite(email)
+    const second = await organiser.post(`/api/competitions/${competitionId}/invitations`, { email, role: 'scrutineer' })
+    expect(second.status).toBe(201)
+    const preview = await new ApiClient(baseUrl).get(`/api/invitations/${first.token}`)
+    expect(preview.status).toBe(410)
+    expect(preview.body.message).toBe(MESSAGES.invitationRevoked)
+  })
+})
+
+describe('GET /api/competitions/:id/invitations', () => {
+  it('lists every invitation with its state, for organisers only', async () => {
+    const pending = await invite(uniqueEmail('listed'))
+    const expired = await invite(uniqueEmail('listed-old'))
+    await testDb()('invitations').where({ id: expired.invitation.id }).update({ expires_at: new Date(Date.now() - 1000) })
+    const res = await organiser.get(`/api/competitions/${competitionId}/invitations`)
+    expect(res.status).toBe(200)
+    const byId = new Map(res.body.invitations.map((i: { id: string, state: string }) => [i.id, i.state]))
+    expect(byId.get(pending.invitation.id)).toBe('pending')
+    expect(byId.get(expired.invitation.id)).toBe('expired')
+    expect((await scrutineer.get(`/api/competitions/${competitionId}/invitations`)).status).toBe(403)
+    expect((await outsider.get(`/api/competitions/${competitionId}/invitations`)).status).toBe(404)
+    expect((await new ApiClient(baseUrl).get(`/api/competitions/${competitionId}/invitations`)).status).toBe(401)
+  })
+})
+
+describe('GET /api/invitations/:token and accepting', () => {
+  it('shows what a link invites to, to anyone holding it', async () => {
+    const email = uniqueEmail('preview')
+    const { token } = await invite(email, 'scrutineer')
+    const res = await new ApiClient(baseUrl).get(`/api/invitations/${token}`)
+    expect(res.status).toBe(200)
+    expect(res.body).toMatchObject({
+      role: 'scrutineer',
+      email,
+      invitedByName: 'Olive Organiser',
+      competition: { id: competitionId, name: 'Invite Open', airfieldName: 'Test Field', firstContestDay: '2027-05-01', lastContestDay: '2027-05-07' },
+    })
+  })
+
+  it('answers 404 with a sentence for a malformed, forged or unknown token', async () => {
+    const { token } = await invite(uniqueEmail('forged'))
+    const [random, signature] = token.split('.') as [string, string]
+    const flipped = `${random}.${signature.startsWith('A') ? 'B' : 'A'}${signature.slice(1)}`
+    for (const bad of ['nonsense', `${random}.${random}`, flipped, `${'x'.repeat(43)}.${'y'.repeat(43)}`]) {
+      const res = await new ApiClient(baseUrl).get(`/api/invitations/${bad}`)
+      expect(res.status, bad).toBe(404)
+      expect(res.body.message).toBe(MESSAGES.invitationInvalid)
+      const accept = await organiser.post(`/api/invitations/${bad}/accept`)
+      expect(accept.status).toBe(404)
+    }
+  })
+
+  it('a new account signs up, accepts, and holds the role; the link then refuses a second use', async () => {
+    const email = uniqueEmail('newcomer')
+    const { token, invitation } = await invite(email, 'scrutineer')
+
+    const signedOut = await new ApiClient(baseUrl).post(`/api/invitations/${token}/accept`)
+    expect(signedOut.status).toBe(401)
+
+    const newcomer = new ApiClient(baseUrl)
+    const signup = await newcomer.post('/api/auth/signup', { email, name: 'Nia Newcomer', password: GOOD_PASSWORD })
+    expect(signup.status).toBe(201)
+    const accepted = await newcomer.post(`/api/invitations/${token}/accept`)
+    expect(accepted.status).toBe(200)
+    expect(accepted.body).toEqual({ competitionId, role: 'scrutineer' })
+
+    const detail = await newcomer.get(`/api/competitions/${competitionId}`)
+    expect(detail.status).toBe(200)
+    expect(detail.body.roles).toEqual(['scrutineer'])
+    const me = await newcomer.get('/api/me')
+    expect(me.body.memberships.find((m: { competitionId: string }) => m.competitionId === competitionId).roles).toEqual(['scrutineer'])
+
+    // Single use: neither the same person nor anyone else can use it again.
+    const again = await newcomer.post(`/api/invitations/${token}/accept`)
+    expect(again.status).toBe(410)
+    expect(again.body.message).toBe(MESSAGES.invitationUsed)
+    const other = await outsider.post(`/api/invitations/${token}/accept`)
+    expect(other.status).toBe(410)
+    expect((await outsider.get(`/api/competitions/${competitionId}`)).status).toBe(404)
+    expect((await new ApiClient(baseUrl).get(`/api/invitations/${token}`)).status).toBe(410)
+
+    const list = await organiser.get(`/api/competitions/${competitionId}/invitations`)
+    expect(list.body.invitations.find((i: { id: string }) => i.id === invitation.id)).toMatchObject({ state: 'accepted', acceptedByName: 'Nia Newcomer' })
+    expect(await testDb()('audit_log').where({ action: 'invitation.accept', subject_id: invitation.id }).first()).toBeTruthy()
+  })
+
+  it('works for an existing account right after sign-in', async () => {
+    const existing = await signedUpClient(baseUrl, 'Erin Existing')
+    const { token } = await invite(existing.email, 'director')
+    const fresh = new ApiClient(baseUrl)
+    expect((await fresh.post('/api/auth/login', { email: existing.email, password: GOOD_PASSWORD })).status).toBe(200)
+    const res = await fresh.post(`/api/invitations/${token}/accept`)
+    expect(res.status).toBe(200)
+    expect((await fresh.get(`/api/competitions/${competitionId}`)).body.roles).toEqual(['director'])
+  })
+
+  it('an expired link answers 410 and creates nothing', async () => {
+    const email = uniqueEmail('late')
+    const { token, invitation } = await invite(email)
+    await testDb()('invitations').where({ id: invitation.id }).update({ expires_at: new Date(Date.now() - 60_000) })
+    const preview = await new ApiClient(baseUrl).get(`/api/invitations/${token}`)
+    expect(preview.status).toBe(410)
+    expect(preview.body.message).toBe(MESSAGES.invitationExpired)
+    const late = await signedUpClient(baseUrl, 'Lee Late')
+    const res = await late.client.post(`/api/invitations/${token}/accept`)
+    expect(res.status).toBe(410)
+    expect(res.body.message).toBe(MESSAGES.invitationExpired)
+    expect(await testDb()('memberships').where({ user_id: late.user.id }).first()).toBeUndefined()
+  })
+
+  it('two accepts at the same moment: exactly one wins', async () => {
+    const { token } = await invite(uniqueEmail('race'))
+    const a = await signedUpClient(baseUrl, 'Racer A')
+    const b = await signedUpClient(baseUrl, 'Racer B')
+    const results = await Promise.all([a.client.post(`/api/invitations/${token}/accept`), b.client.post(`/api/invitations/${token}/accept`)])
+    expect(results.map(r => r.status).sort()).toEqual([200, 410])
+    const members = await testDb()('memberships').whereIn('user_id', [a.user.id, b.user.id])
+    expect(members).toHaveLength(1)
+  })
+})
+
+describe('DELETE /api/competitions/:id/invitations/:invitationId', () => {
+  it('withdraws a waiting invitation; its link then says so', async () => {
+    const { token, invitation } = await invite(uniqueEmail('withdrawn'))
+    expect((await scrutineer.request('DELETE', `/api/competitions/${competitionId}/invitations/${invitation.id}`)).status).toBe(403)
+    expect((await outsider.request('DELETE', `/api/competitions/${competitionId}/invitations/${invitation.id}`)).status).toBe(404)
+    expect((await new ApiClient(baseUrl).request('DELETE', `/api/competitions/${competitionId}/invitations/${invitation.id}`)).status).toBe(401)
+    // Another competition's organiser cannot reach it through their own competition either.
+    expect((await outsider.request('DELETE', `/api/competitions/${otherCompetitionId}/invitations/${invitation.id}`)).status).toBe(404)
+
+    const res = await organiser.request('DELETE', `/api/competitions/${competitionId}/invitations/${invitation.id}`)
+    expect(res.status).toBe(200)
+    expect(res.body.invitation.state).toBe('revoked')
+    const preview = await new ApiClient(baseUrl).get(`/api/invitations/${token}`)
+    expect(preview.status).toBe(410)
+    expect(preview.body.message).toBe(MESSAGES.invitationRevoked)
+    const someone = await signedUpClient(baseUrl, 'Rita Revoked')
+    expect((await someone.client.post(`/api/invitations/${token}/accept`)).status).toBe(410)
+
+    const twice = await organiser.request('DELETE', `/api/competitions/${competitionId}/invitations/${invitation.id}`)
+    expect(twice.status).toBe(409)
+    expect(twice.body.message).toBe(MESSAGES.invitationNotPending)
+    expect(await testDb()('audit_log').where({ action: 'invitation.revoke', subject_id: invitation.id }).first()).toBeTruthy()
+  })
+
+  it('answers 404 for an unknown or malformed invitation id', async () => {
+    const unknown = await organiser.request('DELETE', `/api/competitions/${competitionId}/invitations/00000000-0000-4000-8000-000000000000`)
+    expect(unknown.status).toBe(404)
+    expect(unknown.body.message).toBe(MESSAGES.invitationNotFound)
+    expect((await organiser.request('DELETE', `/api/competitions/${competitionId}/invitations/nope`)).status).toBe(404)
+  })
+})
