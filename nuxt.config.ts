@@ -77,6 +77,11 @@ export default defineNuxtConfig({
 
   nitro: {
     experimental: { websocket: true },
+    // Uploaded documents and IGC files; server/plugins/uploads-storage.ts can swap in an
+    // S3-compatible bucket at run time.
+    storage: {
+      uploads: { driver: 'fs', base: './.data/uploads' },
+    },
   },
 
   typescript: {

@@ -15,6 +15,8 @@ import * as m20261203000050 from './20261203000050_entry_payment_status'
 import * as m20261203000100 from './20261203000100_invitations'
 import * as m20261203000200 from './20261203000200_mail_reminders'
 import * as m20261203000210 from './20261203000210_payments'
+import * as m20261203000300 from './20261203000300_documents'
+import * as m20261203000310 from './20261203000310_igc_files'
 
 type Migration = Knex.Migration
 
@@ -33,6 +35,8 @@ const migrations: Record<string, Migration> = {
   '20261203000100_invitations': m20261203000100,
   '20261203000200_mail_reminders': m20261203000200,
   '20261203000210_payments': m20261203000210,
+  '20261203000300_documents': m20261203000300,
+  '20261203000310_igc_files': m20261203000310,
 }
 
 export const migrationSource: Knex.MigrationSource<string> = {

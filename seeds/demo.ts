@@ -6,6 +6,7 @@ import { Scrypt } from '@adonisjs/hash/drivers/scrypt'
 import { faiClass } from '../shared/constants/classes'
 import { DEMO_COMPETITION, DEMO_PASSWORD, DEMO_PEOPLE } from './demo-data'
 import { DEMO_ENTRIES, DEMO_EXTRA_PILOTS, DEMO_FIRMWARE } from './demo-entries'
+import { seedDemoDocuments } from './demo-files'
 
 export { DEMO_SIGN_INS, DEMO_PASSWORD } from './demo-data'
 
@@ -138,6 +139,8 @@ export async function seedDemo(knex: Knex, opts: { reset?: boolean } = {}): Prom
       await trx('memberships').insert({ user_id: entrantId, competition_id: competition.id, role: 'entrant', granted_by: null })
         .onConflict(['user_id', 'competition_id', 'role']).ignore()
     }
+
+    await seedDemoDocuments(trx, competition.id)
 
     await trx('audit_log').insert({
       actor_user_id: null,

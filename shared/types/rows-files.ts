@@ -1,2 +1,53 @@
 // Row types of the files area's tables, written by hand to match migrations/.
-export {}
+import type { DocumentKind } from '../constants/entries'
+import type { DocumentStatus } from '../constants/files'
+
+export interface DocumentRow {
+  id: string
+  entry_id: string
+  competition_id: string
+  kind: DocumentKind
+  original_filename: string
+  media_type: string
+  size_bytes: number
+  sha256: string
+  storage_key: string
+  /** YYYY-MM-DD (read with to_char) */
+  expires_on: string
+  status: DocumentStatus
+  review_reason: string | null
+  reviewed_by: string | null
+  reviewed_at: Date | null
+  uploaded_by: string
+  uploaded_at: Date
+  /** The upload that replaced this one; null while it is the current document of its kind. */
+  replaced_by: string | null
+  superseded: boolean
+}
+
+export interface IgcFileRow {
+  id: string
+  entry_id: string
+  competition_id: string
+  unit_id: string | null
+  original_filename: string
+  storage_key: string
+  sha256: string
+  size_bytes: number
+  /** YYYY-MM-DD from HFDTE */
+  flight_date: string | null
+  pilot: string | null
+  copilot: string | null
+  glider_type: string | null
+  glider_id: string | null
+  declared_comp_id: string | null
+  declared_class: string | null
+  recorder_type: string | null
+  firmware_version: string | null
+  has_g_record: boolean
+  parse_errors: { line: number, message: string }[]
+  uploaded_by: string
+  uploaded_at: Date
+  replaced_by: string | null
+  superseded: boolean
+}

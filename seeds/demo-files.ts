@@ -1,0 +1,88 @@
+// Demo documents: a few entries with their documents uploaded, one entry's insurance rejected
+// (a seeded problem) and some waiting in the scrutineers' queue. The files are tiny invented
+// PDFs written to the uploads folder (the default storage), laid out as the app's fs driver
+// keeps them: documents/<entry id>/<uuid>.
+import { createHash, randomUUID } from 'node:crypto'
+import { mkdirSync, writeFileSync } from 'node:fs'
+import { dirname, join, resolve } from 'node:path'
+import { fileURLToPath } from 'node:url'
+import type { Knex } from 'knex'
+import { DOCUMENT_KIND_LABELS, type DocumentKind } from '../shared/constants/entries'
+
+const uploadsDir = () => process.env.NUXT_UPLOADS_DIR ?? resolve(dirname(fileURLToPath(import.meta.url)), '../.data/uploads')
+
+function demoPdf(title: string): Buffer {
+  const text = title.replace(/[()\\]/g, '')
+  const stream = `BT /F1 16 Tf 30 110 Td (${text}) Tj 0 -24 Td (Invented demo document) Tj ET`
+  const objects = [
+    '<< /Type /Catalog /Pages 2 0 R >>',
+    '<< /Type /Pages /Kids [3 0 R] /Count 1 >>',
+    '<< /Type /Page /Parent 2 0 R /MediaBox [0 0 420 200] /Contents 4 0 R /Resources << /Font << /F1 5 0 R >> >> >>',
+    `<< /Length ${stream.length} >>\nstream\n${stream}\nendstream`,
+    '<< /Type /Font /Subtype /Type1 /BaseFont /Helvetica >>',
+  ]
+  let out = '%PDF-1.4\n'
+  const offsets: number[] = []
+  objects.forEach((body, i) => {
+    offsets.push(out.length)
+    out += `${i + 1} 0 obj\n${body}\nendobj\n`
+  })
+  const xref = out.length
+  out += `xref\n0 ${objects.length + 1}\n0000000000 65535 f \n${offsets.map(o => `${String(o).padStart(10, '0')} 00000 n \n`).join('')}`
+  out += `trailer\n<< /Size ${objects.length + 1} /Root 1 0 R >>\nstartxref\n${xref}\n%%EOF\n`
+  return Buffer.from(out, 'latin1')
+}
+
+type Review = { status: 'accepted' } | { status: 'rejected', reason: string } | { status: 'pending' }
+
+const PLAN: Record<string, Partial<Record<DocumentKind, Review & { expiresOn: string }>>> = {
+  A1: {
+    airworthiness: { status: 'accepted', expiresOn: '2028-03-31' },
+    insurance: { status: 'accepted', expiresOn: '2027-12-31' },
+    licence: { status: 'accepted', expiresOn: '2029-05-01' },
+    medical: { status: 'accepted', expiresOn: '2028-01-15' },
+  },
+  C4: {
+    airworthiness: { status: 'accepted', expiresOn: '2028-02-28' },
+    insurance: { status: 'rejected', reason: 'The certificate ends on 2027-06-30, before the last contest day.', expiresOn: '2027-06-30' },
+    licence: { status: 'pending', expiresOn: '2030-04-01' },
+  },
+  D6: {
+    airworthiness: { status: 'pending', expiresOn: '2028-04-30' },
+    insurance: { status: 'pending', expiresOn: '2027-11-30' },
+  },
+}
+
+export async function seedDemoDocuments(trx: Knex, competitionId: string): Promise<void> {
+  const scrutineer = await trx('memberships').where({ competition_id: competitionId, role: 'scrutineer' }).orderBy('created_at').first('user_id')
+  const entries = await trx('entries').where({ competition_id: competitionId }).whereIn('comp_id', Object.keys(PLAN))
+    .select('id', 'comp_id', 'entrant_user_id') as { id: string, comp_id: string, entrant_user_id: string }[]
+  let minutes = 0
+  for (const entry of entries) {
+    for (const [kind, plan] of Object.entries(PLAN[entry.comp_id] ?? {}) as [DocumentKind, Review & { expiresOn: string }][]) {
+      const data = demoPdf(`${DOCUMENT_KIND_LABELS[kind]} - ${entry.comp_id}`)
+      const id = randomUUID()
+      const file = join(uploadsDir(), 'documents', entry.id, id)
+      mkdirSync(dirname(file), { recursive: true })
+      writeFileSync(file, data)
+      minutes += 7
+      await trx('documents').insert({
+        entry_id: entry.id,
+        competition_id: competitionId,
+        kind,
+        original_filename: `${kind}-${entry.comp_id.toLowerCase()}.pdf`,
+        media_type: 'application/pdf',
+        size_bytes: data.length,
+        sha256: createHash('sha256').update(data).digest('hex'),
+        storage_key: `documents:${entry.id}:${id}`,
+        expires_on: plan.expiresOn,
+        status: plan.status,
+        review_reason: plan.status === 'rejected' ? plan.reason : null,
+        reviewed_by: plan.status === 'pending' ? null : scrutineer?.user_id ?? null,
+        reviewed_at: plan.status === 'pending' ? null : trx.raw(`now() - interval '2 days'`),
+        uploaded_by: entry.entrant_user_id,
+        uploaded_at: trx.raw(`now() - interval '20 days' + (? || ' minutes')::interval`, [String(minutes)]),
+      })
+    }
+  }
+}

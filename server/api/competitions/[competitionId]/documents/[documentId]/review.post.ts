@@ -1,0 +1,17 @@
+// POST /api/competitions/:competitionId/documents/:documentId/review — scrutineers and organisers.
+// { decision: 'accept' } or { decision: 'reject', reason }; a rejection e-mails the entrant.
+import { competitionDocumentParamsSchema, reviewBodySchema } from '#shared/schemas/files'
+
+export default defineApiHandler(async (event) => {
+  const { competitionId, documentId } = await validParams(event, competitionDocumentParamsSchema)
+  const access = await requireRole(event, competitionId, ['scrutineer', 'organiser'])
+  const body = await validBody(event, reviewBodySchema)
+  const document = await reviewDocument({
+    competitionId,
+    competitionName: access.competition.name,
+    documentId,
+    actorUserId: access.user.id,
+    body,
+  })
+  return { document }
+})

@@ -1,0 +1,91 @@
+// Reads an IGC file's header with igc-parser in lenient mode, collecting each line's error
+// with its line number. A file without an A record (or date) is not an IGC file at all.
+// Field sources: IGC GNSS FR specification Appendix A, H records (HFDTE, HFPLT, HFCM2, HFGTY,
+// HFGID, HFCID, HFCCL, HFFTY, HFRFW) and A2.5.7 (G record, the security record).
+import IGCParser from 'igc-parser'
+
+export interface IgcHeader {
+  flightDate: string | null
+  pilot: string | null
+  copilot: string | null
+  gliderType: string | null
+  gliderId: string | null
+  competitionId: string | null
+  competitionClass: string | null
+  recorderType: string | null
+  firmwareVersion: string | null
+  hasGRecord: boolean
+}
+
+export interface IgcLineError {
+  line: number
+  message: string
+}
+
+export type IgcParseResult =
+  | { ok: true, header: IgcHeader, errors: IgcLineError[] }
+  | { ok: false, error: IgcLineError, errors: IgcLineError[] }
+
+interface LineParser {
+  processLine(line: string): void
+  readonly result: IGCParser.IGCFile
+}
+
+/** The parser's message without its own " at line N: <line>" tail (we give the line apart). */
+function plainMessage(error: unknown): string {
+  const message = error instanceof Error ? error.message : String(error)
+  return message.replace(/ at line \d+:.*$/s, '').trim()
+}
+
+function clean(value: string | null | undefined): string | null {
+  const v = value?.trim()
+  return v ? v : null
+}
+
+export function parseIgc(text: string): IgcParseResult {
+  const lines = text.split('\n')
+  // The same loop as IGCParser.parse in lenient mode, but keeping each error's line number.
+  const parser = new IGCParser({ lenient: true }) as unknown as LineParser
+  const errors: IgcLineError[] = []
+  let firstContentLine = 0
+  for (const [index, raw] of lines.entries()) {
+    const line = raw.trim()
+    if (line && !firstContentLine) firstContentLine = index + 1
+    try {
+      parser.processLine(line)
+    }
+    catch (error) {
+      errors.push({ line: index + 1, message: plainMessage(error) })
+    }
+  }
+  // A file must open with its A record (Appendix A); binary data is not a text record at all.
+  const binary = text.includes('\u0000')
+  let result: IGCParser.IGCFile
+  try {
+    if (binary) throw new Error('Missing A record')
+    result = parser.result
+  }
+  catch (error) {
+    const message = plainMessage(error)
+    // No A record: the file fails at its first line. Otherwise the first broken line says more
+    // ("Missing HFDTE record before first B record", line 2) than the summary does.
+    if (/A record/.test(message) || !errors[0]) return { ok: false, error: { line: Math.max(1, firstContentLine), message }, errors }
+    return { ok: false, error: errors[0], errors }
+  }
+  return {
+    ok: true,
+    errors,
+    header: {
+      flightDate: clean(result.date),
+      pilot: clean(result.pilot),
+      copilot: clean(result.copilot),
+      gliderType: clean(result.gliderType),
+      gliderId: clean(result.registration),
+      competitionId: clean(result.callsign),
+      competitionClass: clean(result.competitionClass),
+      recorderType: clean(result.loggerType),
+      firmwareVersion: clean(result.firmwareVersion),
+      hasGRecord: Boolean(result.security),
+    },
+  }
+}

@@ -1,0 +1,34 @@
+// Params and form fields of document and IGC file uploads, and the review decision.
+import { z } from 'zod'
+import { DOCUMENT_KINDS } from '../constants/entries'
+import { isoDate } from './competition'
+import { uuid } from './params'
+
+export const entryParamsSchema = z.object({ competitionId: uuid, entryId: uuid })
+export const entryDocumentParamsSchema = z.object({ competitionId: uuid, entryId: uuid, documentId: uuid })
+export const competitionDocumentParamsSchema = z.object({ competitionId: uuid, documentId: uuid })
+export const entryIgcParamsSchema = z.object({ competitionId: uuid, entryId: uuid, igcFileId: uuid })
+
+/** The text fields sent beside a document's file. */
+export const documentUploadSchema = z.object({
+  kind: z.enum(DOCUMENT_KINDS, { error: 'Choose what kind of document this is.' }),
+  expiresOn: isoDate,
+}, { error: 'Send the document’s kind and expiry date.' })
+export type DocumentUpload = z.infer<typeof documentUploadSchema>
+
+/** The text fields sent beside an IGC file: optionally, which flight recorder wrote it. */
+export const igcUploadSchema = z.object({
+  unitId: z.union([z.literal(''), uuid]).optional().transform(v => (v ? v : undefined)),
+})
+export type IgcUpload = z.infer<typeof igcUploadSchema>
+
+export const reviewBodySchema = z.discriminatedUnion('decision', [
+  z.object({ decision: z.literal('accept') }),
+  z.object({
+    decision: z.literal('reject'),
+    reason: z.string({ error: 'Say why the document is rejected.' }).trim()
+      .min(3, { error: 'Say why the document is rejected.' })
+      .max(500, { error: 'Keep the reason under 500 characters.' }),
+  }),
+], { error: 'Choose to accept or reject the document.' })
+export type ReviewBody = z.infer<typeof reviewBodySchema>

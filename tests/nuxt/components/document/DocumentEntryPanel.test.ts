@@ -1,0 +1,71 @@
+import { describe, expect, it } from 'vitest'
+import { flushPromises } from '@vue/test-utils'
+import { mountSuspended, registerEndpoint } from '@nuxt/test-utils/runtime'
+import { setResponseStatus } from 'h3'
+import DocumentEntryPanel from '~/components/document/DocumentEntryPanel.vue'
+
+const C = 'c-doc'
+const base = (entry: string) => `/api/competitions/${C}/entries/${entry}/documents`
+const doc = (over: Record<string, unknown>) => ({
+  id: 'd1', entryId: 'e1', kind: 'insurance', originalFilename: 'ins.pdf', mediaType: 'application/pdf', sizeBytes: 2048,
+  sha256: 'x', expiresOn: '2027-12-31', status: 'pending', reviewReason: null, reviewedAt: null, reviewedByName: null,
+  uploadedAt: '2026-11-01T10:00:00.000Z', uploadedByName: 'P', superseded: false, replacedBy: null, ...over,
+})
+
+describe('DocumentEntryPanel', () => {
+  it('lists each kind with its status as a word and a shape, expiry, reason and history', async () => {
+    registerEndpoint(base('e1'), () => ({
+      current: [
+        doc({ id: 'd1', kind: 'airworthiness', status: 'accepted', expiresOn: '2027-09-30' }),
+        doc({ id: 'd2', kind: 'insurance', status: 'rejected', reviewReason: 'Ends too early.' }),
+      ],
+      history: [doc({ id: 'd0', kind: 'insurance', status: 'rejected', superseded: true, replacedBy: 'd2' })],
+    }))
+    const panel = await mountSuspended(DocumentEntryPanel, { props: { competitionId: C, entryId: 'e1', canUpload: false } })
+    const arc = panel.get('[data-kind="airworthiness"]')
+    expect(arc.text()).toContain('Accepted')
+    expect(arc.find('[data-shape="accepted"]').exists()).toBe(true)
+    expect(arc.text()).toContain('2027-09-30')
+    expect(arc.get('a').attributes('href')).toBe(`${base('e1')}/d1/file`)
+    const ins = panel.get('[data-kind="insurance"]')
+    expect(ins.text()).toContain('Rejected')
+    expect(ins.text()).toContain('Ends too early.')
+    expect(panel.get('[data-kind="medical"]').text()).toContain('Not uploaded')
+    expect(panel.text()).toContain('Earlier uploads (1)')
+    expect(panel.find('form').exists()).toBe(false)
+  })
+
+  it('shows per-field errors before sending, and the server’s 415 sentence on the file field', async () => {
+    registerEndpoint(base('e2'), {
+      method: 'GET',
+      handler: () => ({ current: [], history: [] }),
+    })
+    registerEndpoint(base('e2'), {
+      method: 'POST',
+      handler: (event) => {
+        setResponseStatus(event, 415)
+        return { statusCode: 415, message: 'That file is not a PDF, JPEG or PNG.' }
+      },
+    })
+    const panel = await mountSuspended(DocumentEntryPanel, { props: { competitionId: C, entryId: 'e2', canUpload: true } })
+    await panel.get('form').trigger('submit')
+    await flushPromises()
+    expect(panel.text()).toContain('Choose what kind of document this is.')
+    expect(panel.text()).toContain('Enter a date as YYYY-MM-DD.')
+    expect(panel.text()).toContain('Choose a file to upload.')
+
+    await panel.get('select').setValue('medical')
+    await panel.get('input[type="date"]').setValue('2027-10-01')
+    const input = panel.get('input[type="file"]')
+    const file = new File(['not a pdf'], 'medical.pdf', { type: 'application/pdf' })
+    Object.defineProperty(input.element, 'files', { value: [file], configurable: true })
+    await input.trigger('change')
+    await panel.get('form').trigger('submit')
+    await flushPromises()
+    await new Promise(r => setTimeout(r, 50))
+    await flushPromises()
+    const fileError = panel.get('[id$="-file-error"]')
+    expect(fileError.text()).toContain('That file is not a PDF, JPEG or PNG.')
+    expect(input.attributes('aria-invalid')).toBe('true')
+  })
+})
