@@ -12,6 +12,7 @@ import * as m20261202000300 from './20261202000300_units'
 import * as m20261202000400 from './20261202000400_firmware_catalogue'
 import * as m20261202000500 from './20261202000500_mail_outbox'
 import * as m20261203000050 from './20261203000050_entry_payment_status'
+import * as m20261203000500 from './20261203000500_entry_table_indexes'
 
 type Migration = Knex.Migration
 
@@ -27,6 +28,7 @@ const migrations: Record<string, Migration> = {
   '20261202000400_firmware_catalogue': m20261202000400,
   '20261202000500_mail_outbox': m20261202000500,
   '20261203000050_entry_payment_status': m20261203000050,
+  '20261203000500_entry_table_indexes': m20261203000500,
 }
 
 export const migrationSource: Knex.MigrationSource<string> = {
