@@ -5,6 +5,7 @@ import { Hash } from '@adonisjs/hash'
 import { Scrypt } from '@adonisjs/hash/drivers/scrypt'
 import { faiClass } from '../shared/constants/classes'
 import { DEMO_COMPETITION, DEMO_PASSWORD, DEMO_PEOPLE } from './demo-data'
+import { seedSetupDemo } from './setup-demo'
 
 export { DEMO_SIGN_INS, DEMO_PASSWORD } from './demo-data'
 
@@ -74,6 +75,7 @@ export async function seedDemo(knex: Knex, opts: { reset?: boolean } = {}): Prom
       granted_by: admin,
     })))
     await trx('memberships').insert(memberships).onConflict(['user_id', 'competition_id', 'role']).ignore()
+    await seedSetupDemo(trx, competition.id, { first: DEMO_COMPETITION.firstContestDay, last: DEMO_COMPETITION.lastContestDay })
 
     await trx('audit_log').insert({
       actor_user_id: null,

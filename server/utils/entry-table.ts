@@ -5,11 +5,15 @@ import type { Knex } from 'knex'
 import { stringify } from 'csv-stringify/sync'
 import type { EntryTableFilter, EntryTableQuery, EntryTableSort } from '#shared/schemas/entry-table'
 import type { EntryTableResponse, EntryTableRow } from '#shared/types/setup'
+import { csvSafe } from '#shared/utils/csv-safe'
+
+// Competition IDs sort shorter first (padded to three), so 2 comes before 10 and 10 before KM1.
+const COMP_ID_KEY = `lpad(upper(e.comp_id), 3, ' ')`
 
 // Each sort names its column(s); ties always fall back to the competition ID, then the id,
 // so pages never overlap or skip a row.
 const SORT_COLUMNS: Record<EntryTableSort, string[]> = {
-  compId: ['upper(e.comp_id)'],
+  compId: [COMP_ID_KEY],
   pilot: ['lower(e.pilot_name)'],
   class: ['c.sort_order', 'lower(c.name)'],
   status: ['e.status'],
@@ -44,7 +48,7 @@ function orderBy(f: EntryTableFilter): string {
   // Unsubmitted entries (no date) go last whichever way the dates run.
   const nulls = f.sort === 'submitted' ? ' NULLS LAST' : ''
   const primary = SORT_COLUMNS[f.sort].map(c => `${c} ${dir}${nulls}`)
-  return [...primary, 'upper(e.comp_id) ASC', 'e.id ASC'].join(', ')
+  return [...primary, `${COMP_ID_KEY} ASC`, 'e.id ASC'].join(', ')
 }
 
 const ROW_COLUMNS = [
@@ -94,15 +98,6 @@ export async function entryTablePage(competitionId: string, query: EntryTableQue
     filteredEntries(db, competitionId, query).count('* as total').first() as Promise<{ total: string } | undefined>,
   ])
   return { rows: rows.map(toRow), total: Number(counted?.total ?? 0), page: query.page, pageSize: query.pageSize, currency }
-}
-
-/**
- * A cell a spreadsheet would run as a formula (=, +, -, @, or a leading tab or carriage
- * return) gets a leading apostrophe, so an exported pilot name can never execute.
- * Source: OWASP "CSV Injection" guidance.
- */
-export function csvSafe(value: string): string {
-  return /^[=+\-@\t\r]/.test(value) ? `'${value}` : value
 }
 
 function formatMinor(minor: number): string {

@@ -33,7 +33,9 @@ async function allPages(query: string, pageSize = 100) {
   }
 }
 
-const byCompId = (a: GeneratedEntry, b: GeneratedEntry) => (a.comp_id < b.comp_id ? -1 : a.comp_id > b.comp_id ? 1 : 0)
+// Competition IDs sort shorter first: "2" before "10" before "RS".
+const compKey = (e: GeneratedEntry) => e.comp_id.padStart(3, ' ')
+const byCompId = (a: GeneratedEntry, b: GeneratedEntry) => (compKey(a) < compKey(b) ? -1 : compKey(a) > compKey(b) ? 1 : 0)
 
 describe('GET /api/competitions/:id/entries', () => {
   it('answers the first page sorted by competition ID, with the total', async () => {
