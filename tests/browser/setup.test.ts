@@ -123,4 +123,36 @@ describe('set-up page', () => {
       await page.close()
     }
   })
+
+  it('lets a site administrator create a competition with its first organiser, then opens its set-up', async () => {
+    await browser.context.clearCookies()
+    const adminEmail = (await testDb()('users').where({ id: t.ids.admin }).first('email')).email
+    const page = await openPage(browser.context, baseUrl, '/sign-in', 'phone')
+    try {
+      await signInThroughForm(page, baseUrl, adminEmail, GOOD_PASSWORD)
+      await page.getByTestId('new-competition').click()
+      await page.getByRole('heading', { name: 'New competition' }).waitFor()
+      await page.getByLabel('Name of the competition').fill('Browser Created Trophy')
+      await page.getByLabel('Airfield').fill('Fenwick Down')
+      await page.getByLabel('Time zone').fill('Europe/Nowhere')
+      await page.getByLabel('First contest day').fill('2027-08-02')
+      await page.getByLabel('Last contest day').fill('2027-08-09')
+      await page.getByLabel('First organiser’s e-mail address').fill(organiserEmail)
+      await page.getByRole('button', { name: 'Create competition' }).click()
+      await page.getByText('That is not a known IANA time zone; use a name like Europe/Berlin.').first().waitFor()
+      await screenshot(page, 'new-competition-error-phone')
+      await page.getByLabel('Time zone').fill('Europe/London')
+      await Promise.all([
+        page.waitForURL(/\/competitions\/[0-9a-f-]{36}\/setup$/),
+        page.getByRole('button', { name: 'Create competition' }).click(),
+      ])
+      await page.getByRole('heading', { name: 'Set-up', level: 1 }).waitFor()
+      const created = await testDb()('competitions').where({ name: 'Browser Created Trophy' }).first('id')
+      const members = await testDb()('memberships').where({ competition_id: created.id })
+      expect(members.map(m => [m.user_id, m.role])).toEqual([[t.ids.organiser, 'organiser']])
+    }
+    finally {
+      await page.close()
+    }
+  })
 })
