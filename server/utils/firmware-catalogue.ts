@@ -140,6 +140,9 @@ export function parseFirmwareCsv(text: string): ParsedCatalogueLine[] {
 export async function importFirmwareCsv(competitionId: string, text: string, actorUserId: string): Promise<FirmwareImportResult> {
   const lines = parseFirmwareCsv(text)
   return useDb().transaction(async (trx) => {
+    // What the catalogue said before, so the audit records each change as from → to.
+    const known = new Map((await listFirmwareReleases(competitionId, trx))
+      .map(r => [`${r.unitFamily.toLowerCase()}\u0000${r.version.toLowerCase()}`, r]))
     const rows: { inserted: boolean }[] = await trx.raw(
       `INSERT INTO firmware_releases (competition_id, unit_family, version, expires_on)
        SELECT ?, v.unit_family, v.version, v.expires_on::date
@@ -151,7 +154,11 @@ export async function importFirmwareCsv(competitionId: string, text: string, act
     ).then((r: { rows: { inserted: boolean }[] }) => r.rows)
     const added = rows.filter(r => r.inserted).length
     const result = { added, updated: rows.length - added, total: rows.length }
-    await audit(trx, { actorUserId, competitionId, action: 'firmware.imported', subjectType: 'competition', subjectId: competitionId, details: { ...result, lines: lines.map(l => ({ unitFamily: l.unitFamily, version: l.version, expiresOn: l.expiresOn })) } })
+    const changes = lines.map((l) => {
+      const before = known.get(`${l.unitFamily.toLowerCase()}\u0000${l.version.toLowerCase()}`)
+      return { unitFamily: l.unitFamily, version: l.version, from: before ? before.expiresOn : null, to: l.expiresOn }
+    })
+    await audit(trx, { actorUserId, competitionId, action: 'firmware.imported', subjectType: 'competition', subjectId: competitionId, details: { ...result, changes } })
     return result
   })
 }

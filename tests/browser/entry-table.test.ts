@@ -91,6 +91,16 @@ describe('staff entries table', () => {
       const { scrollWidth, innerWidth } = await page.evaluate(() => ({ scrollWidth: document.documentElement.scrollWidth, innerWidth: window.innerWidth }))
       expect(scrollWidth).toBeLessThanOrEqual(innerWidth)
       await screenshot(page, 'entries-filtered-phone')
+
+      // Sunlight mode on the grid: the same cards, higher contrast, still no sideways scrolling.
+      await browser.context.addCookies([{ name: 'gridmark-sunlight', value: 'on', url: baseUrl }])
+      await page.reload()
+      await page.getByTestId('entry-card').first().waitFor()
+      expect(await page.evaluate(() => document.documentElement.classList.contains('sunlight'))).toBe(true)
+      const wide = await page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth)
+      expect(wide).toBe(true)
+      await screenshot(page, 'entries-sunlight-phone')
+      await browser.context.addCookies([{ name: 'gridmark-sunlight', value: 'off', url: baseUrl }])
     }
     finally {
       await page.close()

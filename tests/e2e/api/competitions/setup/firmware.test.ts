@@ -86,7 +86,13 @@ describe('CSV import', () => {
       ['unit b', '3.2', '2029-01-01'],
       ['Unit C, portable', '1.0', '2028-10-01'],
     ])
-    expect(await testDb()('audit_log').where({ competition_id: t.competitionId, action: 'firmware.imported' })).toHaveLength(1)
+    const logs = await testDb()('audit_log').where({ competition_id: t.competitionId, action: 'firmware.imported' })
+    expect(logs).toHaveLength(1)
+    expect(logs[0].details.changes).toEqual([
+      { unitFamily: 'Unit B', version: '3.1', from: '2027-01-01', to: '2028-09-01' },
+      { unitFamily: 'Unit C, portable', version: '1.0', from: null, to: '2028-10-01' },
+      { unitFamily: 'unit b', version: '3.2', from: null, to: '2029-01-01' },
+    ])
   })
 
   it('refuses the whole file when any line is bad, naming each bad line by its number; nothing is imported', async () => {
