@@ -9,18 +9,36 @@ export const isoDate = z
     error: 'That date does not exist.',
   })
 
+const days = (label: string, min: number, max: number) =>
+  z.number({ error: `Enter the ${label} as a whole number of days.` })
+    .int({ error: `Enter the ${label} as a whole number of days.` })
+    .min(min, { error: `The ${label} is at least ${min} day${min === 1 ? '' : 's'}.` })
+    .max(max, { error: `The ${label} is at most ${max} days.` })
+
+/** Each rule setting without its default, so a change of one rule leaves the others alone. */
+const ruleFields = {
+  /** Days the firmware must stay valid after the last contest day (common practice: 0). */
+  firmwareMarginDays: days('firmware margin', 0, 365),
+  /** Advise when firmware expires within this many days after the last contest day. */
+  firmwareWarningDays: days('firmware warning', 0, 365),
+  /** An IGC file counts as recent when dated within this many days before the first contest day. */
+  igcRecencyDays: days('IGC file recency', 1, 3650),
+  requiredDocumentKinds: z.array(z.enum(DOCUMENT_KINDS, { error: 'Choose document kinds from the list.' })),
+  recordersRequired: z.union([z.literal(1), z.literal(2)], { error: 'Require one or two flight recorders.' }),
+  acceptedApprovalLevels: z.array(z.enum(APPROVAL_LEVELS, { error: 'Choose approval levels from the list.' })).min(1, { error: 'Accept at least one recorder approval level.' }),
+}
+
 /** The rule settings a competition stores in competitions.settings. */
 export const competitionRulesSchema = z.object({
-  /** Days the firmware must stay valid after the last contest day (common practice: 0). */
-  firmwareMarginDays: z.number().int().min(0).max(365).default(0),
-  /** Advise when firmware expires within this many days after the last contest day. */
-  firmwareWarningDays: z.number().int().min(0).max(365).default(30),
-  /** An IGC file counts as recent when dated within this many days before the first contest day. */
-  igcRecencyDays: z.number().int().min(1).max(3650).default(365),
-  requiredDocumentKinds: z.array(z.enum(DOCUMENT_KINDS)).default(['airworthiness', 'insurance', 'licence', 'medical']),
-  recordersRequired: z.union([z.literal(1), z.literal(2)]).default(1),
-  acceptedApprovalLevels: z.array(z.enum(APPROVAL_LEVELS)).min(1).default(['all-flights', 'badges-up-to-diamonds']),
+  firmwareMarginDays: ruleFields.firmwareMarginDays.default(0),
+  firmwareWarningDays: ruleFields.firmwareWarningDays.default(30),
+  igcRecencyDays: ruleFields.igcRecencyDays.default(365),
+  requiredDocumentKinds: ruleFields.requiredDocumentKinds.default(['airworthiness', 'insurance', 'licence', 'medical']),
+  recordersRequired: ruleFields.recordersRequired.default(1),
+  acceptedApprovalLevels: ruleFields.acceptedApprovalLevels.default(['all-flights', 'badges-up-to-diamonds']),
 })
+/** A change to some rules (PATCH): what is left out keeps its stored value. */
+export const competitionRulesPatchSchema = z.object(ruleFields, { error: 'Send the rules as an object.' }).partial().strict()
 export type CompetitionRules = z.infer<typeof competitionRulesSchema>
 
 export const DEFAULT_RULES: CompetitionRules = competitionRulesSchema.parse({})
@@ -137,6 +155,9 @@ function checkDates(v: SetupShape, ctx: z.RefinementCtx) {
   if (closes && last && closes > last) {
     ctx.addIssue({ code: 'custom', path: ['registrationClosesOn'], message: 'Registration must close by the last contest day.' })
   }
+  if (v.lateFeeAfter && closes && v.lateFeeAfter > closes) {
+    ctx.addIssue({ code: 'custom', path: ['lateFeeAfter'], message: 'The late fee must start by the day registration closes.' })
+  }
   if (v.lateFeeAfter && opens && v.lateFeeAfter < opens) {
     ctx.addIssue({ code: 'custom', path: ['lateFeeAfter'], message: 'The late fee cannot start before registration opens.' })
   }
@@ -150,7 +171,7 @@ export type CompetitionSetup = z.output<typeof competitionSetupSchema>
 export type CompetitionSetupInput = z.input<typeof competitionSetupSchema>
 
 /** PATCH body: any subset of the set-up fields; the server merges it with what is stored and checks the whole. */
-export const competitionSetupPatchSchema = z.object(setupFields, asObject).partial().strict()
+export const competitionSetupPatchSchema = z.object({ ...setupFields, rules: competitionRulesPatchSchema }, asObject).partial().strict()
 export type CompetitionSetupPatch = z.output<typeof competitionSetupPatchSchema>
 
 /** What a site administrator fills in to create a competition. */

@@ -98,6 +98,9 @@ describe('set-up page', () => {
       await expect.poll(() => page.getByTestId('firmware-import-result').textContent()).toContain('2 added, 0 updated')
       await page.getByTestId('firmware-table').getByText('Unit B').waitFor()
       await screenshot(page, 'firmware-organiser-desk')
+      await page.setViewportSize({ width: 390, height: 844 })
+      await expect.poll(() => page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth)).toBe(true)
+      await screenshot(page, 'firmware-organiser-phone')
     }
     finally {
       await page.close()

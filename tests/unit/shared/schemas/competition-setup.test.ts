@@ -26,6 +26,11 @@ describe('competitionSetupSchema', () => {
     expect(fieldsOf(competitionSetupSchema.safeParse(setup({ registrationOpensOn: '2027-04-02' })))).toEqual(['registrationClosesOn'])
     expect(competitionSetupSchema.safeParse(setup({ registrationOpensOn: '2027-04-01' })).success).toBe(true)
   })
+  it('starts the late fee inside the registration window', () => {
+    expect(fieldsOf(competitionSetupSchema.safeParse(setup({ lateFeeAfter: '2027-04-02' })))).toEqual(['lateFeeAfter'])
+    expect(fieldsOf(competitionSetupSchema.safeParse(setup({ lateFeeAfter: '2026-12-31' })))).toEqual(['lateFeeAfter'])
+    expect(competitionSetupSchema.safeParse(setup({ lateFeeAfter: '2027-03-01' })).success).toBe(true)
+  })
 })
 
 describe('time zone, ICAO indicator, currency', () => {

@@ -168,6 +168,15 @@ describe('PATCH /api/competitions/:id', () => {
     expect(unknown.status).toBe(400)
   })
 
+  it('changes one rule without resetting the others to their defaults', async () => {
+    const res = await t.organiser.request('PATCH', path(), { rules: { firmwareWarningDays: 45 } })
+    expect(res.status).toBe(200)
+    expect(res.body.rules).toMatchObject({ firmwareMarginDays: 3, firmwareWarningDays: 45, recordersRequired: 2, acceptedApprovalLevels: ['all-flights'] })
+    const bad = await t.organiser.request('PATCH', path(), { rules: { acceptedApprovalLevels: [] } })
+    expect(bad.status).toBe(400)
+    expect(bad.body.data.fieldErrors.rules[0]).toBe('Accept at least one recorder approval level.')
+  })
+
   it('clears the ICAO indicator when sent empty', async () => {
     const res = await t.organiser.request('PATCH', path(), { airfieldIcao: '' })
     expect(res.status).toBe(200)
