@@ -99,6 +99,7 @@ describe('set-up page', () => {
       await page.getByTestId('firmware-table').getByText('Unit B').waitFor()
       await screenshot(page, 'firmware-organiser-desk')
       await page.setViewportSize({ width: 390, height: 844 })
+      await page.getByTestId('firmware-cards').getByText('Unit B').waitFor()
       await expect.poll(() => page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth)).toBe(true)
       await screenshot(page, 'firmware-organiser-phone')
     }
