@@ -17,6 +17,7 @@ import * as m20261203000200 from './20261203000200_mail_reminders'
 import * as m20261203000210 from './20261203000210_payments'
 import * as m20261203000300 from './20261203000300_documents'
 import * as m20261203000310 from './20261203000310_igc_files'
+import * as m20261203000500 from './20261203000500_entry_table_indexes'
 
 type Migration = Knex.Migration
 
@@ -37,6 +38,7 @@ const migrations: Record<string, Migration> = {
   '20261203000210_payments': m20261203000210,
   '20261203000300_documents': m20261203000300,
   '20261203000310_igc_files': m20261203000310,
+  '20261203000500_entry_table_indexes': m20261203000500,
 }
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -1,2 +1,8 @@
 // Row types of the setup area's tables, written by hand to match migrations/.
-export {}
+
+export interface CompetitionDayRow {
+  competition_id: string
+  /** read as YYYY-MM-DD text (to_char) */
+  day: string
+  kind: 'practice' | 'contest'
+}

@@ -1,0 +1,30 @@
+// Reads an uploaded CSV file from a request: a text/csv (or text/plain) body, the first file
+// of a multipart form, or JSON {csv}. Size-capped before parsing.
+import type { H3Event } from 'h3'
+import { FIRMWARE_CSV_MAX_BYTES, firmwareImportJsonSchema } from '#shared/schemas/firmware'
+import { MESSAGES } from '#shared/constants/messages'
+
+export async function readCatalogueUpload(event: H3Event): Promise<string> {
+  const declared = Number(getRequestHeader(event, 'content-length') ?? 0)
+  if (declared > FIRMWARE_CSV_MAX_BYTES * 1.1) throw httpError(413, MESSAGES.csvTooLarge)
+  const type = (getRequestHeader(event, 'content-type') ?? '').toLowerCase()
+  let text: string
+  if (type.startsWith('text/csv') || type.startsWith('text/plain') || type.startsWith('application/csv')) {
+    text = (await readRawBody(event, 'utf8')) ?? ''
+  }
+  else if (type.startsWith('multipart/form-data')) {
+    const parts = (await readMultipartFormData(event)) ?? []
+    const file = parts.find(p => p.filename) ?? parts.find(p => p.name === 'file' || p.name === 'csv')
+    if (!file) throw httpError(400, MESSAGES.csvEmpty)
+    text = file.data.toString('utf8')
+  }
+  else if (type.startsWith('application/json')) {
+    text = (await validBody(event, firmwareImportJsonSchema)).csv
+  }
+  else {
+    throw httpError(415, MESSAGES.csvMediaType)
+  }
+  if (Buffer.byteLength(text, 'utf8') > FIRMWARE_CSV_MAX_BYTES) throw httpError(413, MESSAGES.csvTooLarge)
+  if (!text.trim()) throw httpError(400, MESSAGES.csvEmpty)
+  return text
+}

@@ -1,0 +1,120 @@
+// The staff entries table of a competition: sorting, filters, a case-insensitive search over
+// pilot name, registration and competition ID, offset paging; and the same list as CSV.
+// Indexes: migrations/20261203000500_entry_table_indexes.ts.
+import type { Knex } from 'knex'
+import { stringify } from 'csv-stringify/sync'
+import type { EntryTableFilter, EntryTableQuery, EntryTableSort } from '#shared/schemas/entry-table'
+import type { EntryTableResponse, EntryTableRow } from '#shared/types/setup'
+import { csvSafe } from '#shared/utils/csv-safe'
+
+// Competition IDs sort shorter first (padded to three), so 2 comes before 10 and 10 before KM1.
+const COMP_ID_KEY = `lpad(upper(e.comp_id), 3, ' ')`
+
+// Each sort names its column(s); ties always fall back to the competition ID, then the id,
+// so pages never overlap or skip a row.
+const SORT_COLUMNS: Record<EntryTableSort, string[]> = {
+  compId: [COMP_ID_KEY],
+  pilot: ['lower(e.pilot_name)'],
+  class: ['c.sort_order', 'lower(c.name)'],
+  status: ['e.status'],
+  payment: ['e.payment_status'],
+  submitted: ['e.submitted_at'],
+}
+
+/** Escapes LIKE's wildcards so a search for "50%" finds that text. */
+function likePattern(q: string): string {
+  return `%${q.toLowerCase().replace(/[\\%_]/g, m => `\\${m}`)}%`
+}
+
+function filteredEntries(db: Knex, competitionId: string, f: EntryTableFilter) {
+  const q = db('entries as e')
+    .join('classes as c', 'c.id', 'e.class_id')
+    .where('e.competition_id', competitionId)
+  if (f.class) q.where('e.class_id', f.class)
+  if (f.status) q.where('e.status', f.status)
+  if (f.payment) q.where('e.payment_status', f.payment)
+  if (f.q) {
+    const pattern = likePattern(f.q)
+    q.where(w => w
+      .whereRaw(`lower(e.pilot_name) LIKE ? ESCAPE '\\'`, [pattern])
+      .orWhereRaw(`lower(e.registration) LIKE ? ESCAPE '\\'`, [pattern])
+      .orWhereRaw(`lower(e.comp_id) LIKE ? ESCAPE '\\'`, [pattern]))
+  }
+  return q
+}
+
+function orderBy(f: EntryTableFilter): string {
+  const dir = f.direction === 'desc' ? 'DESC' : 'ASC'
+  // Unsubmitted entries (no date) go last whichever way the dates run.
+  const nulls = f.sort === 'submitted' ? ' NULLS LAST' : ''
+  const primary = SORT_COLUMNS[f.sort].map(c => `${c} ${dir}${nulls}`)
+  return [...primary, `${COMP_ID_KEY} ASC`, 'e.id ASC'].join(', ')
+}
+
+const ROW_COLUMNS = [
+  'e.id', 'e.comp_id', 'e.pilot_name', 'e.class_id', 'c.name as class_name', 'e.glider_type', 'e.registration',
+  'e.status', 'e.payment_status', 'e.paid_minor', 'e.submitted_at', 'e.copilot_name', 'e.pilot_nationality',
+]
+
+interface RawRow {
+  id: string
+  comp_id: string
+  pilot_name: string
+  class_id: string
+  class_name: string
+  glider_type: string
+  registration: string
+  status: EntryTableRow['status']
+  payment_status: EntryTableRow['paymentStatus']
+  paid_minor: number
+  submitted_at: Date | null
+  copilot_name: string | null
+  pilot_nationality: string | null
+}
+
+function toRow(r: RawRow): EntryTableRow {
+  return {
+    id: r.id,
+    compId: r.comp_id,
+    pilotName: r.pilot_name,
+    classId: r.class_id,
+    className: r.class_name,
+    gliderType: r.glider_type,
+    registration: r.registration,
+    status: r.status,
+    paymentStatus: r.payment_status,
+    paidMinor: r.paid_minor,
+    submittedAt: r.submitted_at ? r.submitted_at.toISOString() : null,
+  }
+}
+
+export async function entryTablePage(competitionId: string, query: EntryTableQuery, currency: string, db: Knex = useDb()): Promise<EntryTableResponse> {
+  const [rows, counted] = await Promise.all([
+    filteredEntries(db, competitionId, query)
+      .select(ROW_COLUMNS)
+      .orderByRaw(orderBy(query))
+      .limit(query.pageSize)
+      .offset((query.page - 1) * query.pageSize) as Promise<RawRow[]>,
+    filteredEntries(db, competitionId, query).count('* as total').first() as Promise<{ total: string } | undefined>,
+  ])
+  return { rows: rows.map(toRow), total: Number(counted?.total ?? 0), page: query.page, pageSize: query.pageSize, currency }
+}
+
+function formatMinor(minor: number): string {
+  return (minor / 100).toFixed(2)
+}
+
+export const ENTRY_CSV_HEADER = [
+  'Competition ID', 'Pilot', 'Co-pilot', 'Nationality', 'Class', 'Glider type', 'Registration',
+  'Status', 'Payment', 'Paid', 'Currency', 'Submitted at',
+]
+
+/** Every entry that matches the filters, in the table's order, as CSV text (header first). */
+export async function entryTableCsv(competitionId: string, filter: EntryTableFilter, currency: string, db: Knex = useDb()): Promise<string> {
+  const rows: RawRow[] = await filteredEntries(db, competitionId, filter).select(ROW_COLUMNS).orderByRaw(orderBy(filter))
+  const records = rows.map(r => [
+    r.comp_id, r.pilot_name, r.copilot_name ?? '', r.pilot_nationality ?? '', r.class_name, r.glider_type, r.registration,
+    r.status, r.payment_status, formatMinor(r.paid_minor), currency, r.submitted_at ? r.submitted_at.toISOString() : '',
+  ].map(v => csvSafe(String(v))))
+  return stringify([ENTRY_CSV_HEADER, ...records])
+}
