@@ -13,11 +13,20 @@ export function isIsoDate(s: unknown): s is IsoDate {
   return d.toISOString().slice(0, 10) === s
 }
 
+// The checks ask for the same few dates (last contest day + margin, …) for every entry.
+const memo = new Map<string, IsoDate>()
+
 /** The date n days after (or before, n < 0) the given date. */
 export function addDays(date: IsoDate, n: number): IsoDate {
+  const key = `${date}|${n}`
+  const hit = memo.get(key)
+  if (hit) return hit
   const m = ISO.exec(date)
   if (!m) throw new RangeError(`not a date: ${date}`)
-  return new Date(Date.UTC(Number(m[1]), Number(m[2]) - 1, Number(m[3]) + n)).toISOString().slice(0, 10)
+  const out = new Date(Date.UTC(Number(m[1]), Number(m[2]) - 1, Number(m[3]) + n)).toISOString().slice(0, 10)
+  if (memo.size > 10_000) memo.clear()
+  memo.set(key, out)
+  return out
 }
 
 /** The same calendar date n years earlier or later (29 February falls back to 28). */

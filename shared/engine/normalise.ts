@@ -26,7 +26,12 @@ export function classKey(s: string | null | undefined): string {
 }
 
 /** Every key under which the class is known: its own name, its code, the FAI name and aliases. */
+const classKeysMemo = new Map<string, Set<string>>()
+
 export function classKeys(classCode: string, className: string, extraAliases: readonly string[] = []): Set<string> {
+  const memoKey = [classCode, className, ...extraAliases].join('\u0000')
+  const hit = classKeysMemo.get(memoKey)
+  if (hit) return hit
   const keys = new Set<string>([classKey(className), classKey(classCode)])
   const fai = FAI_CLASSES.find(c => c.code === classCode || classKey(c.name) === classKey(className))
   if (fai) {
@@ -36,6 +41,8 @@ export function classKeys(classCode: string, className: string, extraAliases: re
   }
   for (const a of extraAliases) keys.add(classKey(a))
   keys.delete('')
+  if (classKeysMemo.size > 1000) classKeysMemo.clear()
+  classKeysMemo.set(memoKey, keys)
   return keys
 }
 
