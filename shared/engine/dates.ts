@@ -47,3 +47,16 @@ export function daysBetween(a: IsoDate, b: IsoDate): number {
 function daysInMonth(year: number, month: number): number {
   return new Date(Date.UTC(year, month, 0)).getUTCDate()
 }
+
+const zoneFormats = new Map<string, Intl.DateTimeFormat>()
+
+/** The calendar date an instant falls on in a time zone: which contest day "now" is. */
+export function dateInZone(instant: Date | number, timeZone: string): IsoDate {
+  let f = zoneFormats.get(timeZone)
+  if (!f) {
+    f = new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' })
+    zoneFormats.set(timeZone, f)
+  }
+  const parts = Object.fromEntries(f.formatToParts(instant).map(p => [p.type, p.value]))
+  return `${parts.year}-${parts.month}-${parts.day}`
+}

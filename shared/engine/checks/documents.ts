@@ -28,7 +28,7 @@ export const documentsRequired: Check = {
         out.push({ ...base, reason: `No ${label.toLowerCase()} document is uploaded; the competition requires one.`, fixHint: `Upload your ${label.toLowerCase()} document, valid through ${last}.` })
       }
       else if (best.expiresOn && best.expiresOn < last) {
-        out.push({ ...base, reason: `The ${label.toLowerCase()} document is valid until ${best.expiresOn}, the last contest day is ${last}.`, fixHint: `Upload a ${label.toLowerCase()} document valid through ${last}.` })
+        out.push({ ...base, reason: `The ${label.toLowerCase()} document is valid until ${best.expiresOn}, the last contest day is ${last}.`, fixHint: `Upload your ${label.toLowerCase()} document, valid through ${last}.` })
       }
       else if (best.status === 'rejected') {
         out.push({ ...base, reason: `The ${label.toLowerCase()} document was rejected by a scrutineer.`, fixHint: 'Read the scrutineer’s reason on the document and upload a corrected one.' })

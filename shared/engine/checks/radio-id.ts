@@ -9,11 +9,12 @@ import { collisionWarningUnits, unitLabel } from './helpers'
 
 const SIX_HEX = /^[0-9A-F]{6}$/
 
-export function radioIdProblem(radioId: string | null | undefined): string | null {
+/** What is wrong with a radio ID, as the end of a sentence about it; null when it is well formed. */
+export function radioIdProblem(radioId: string | null | undefined): 'missing' | 'format' | 'reserved' | null {
   const r = normaliseRadioId(radioId)
-  if (!r) return 'is not entered'
-  if (!SIX_HEX.test(r)) return `“${radioId}” is not six hexadecimal digits`
-  if (r === '000000' || r === 'FFFFFF') return `${r} is reserved and never assigned to an aircraft`
+  if (!r) return 'missing'
+  if (!SIX_HEX.test(r)) return 'format'
+  if (r === '000000' || r === 'FFFFFF') return 'reserved'
   return null
 }
 
@@ -32,7 +33,11 @@ export const radioIdFormat: Check = {
         severity: 'blocking',
         unitId: u.id,
         caution: HARDWARE_CAUTION,
-        reason: `The radio ID of the collision-warning unit ${u.model} ${problem}.`,
+        reason: problem === 'missing'
+          ? `The radio ID of the collision-warning unit ${u.model} is not entered.`
+          : problem === 'format'
+            ? `The radio ID “${u.radioId}” of the collision-warning unit ${u.model} is not six hexadecimal digits.`
+            : `The radio ID ${normaliseRadioId(u.radioId)} of the collision-warning unit ${u.model} is reserved and never assigned to an aircraft.`,
         fixHint: 'Read the radio ID from the unit’s configuration (six hex digits, e.g. 3D2F1A) and enter it; if the unit itself is set wrongly, have it configured with the glider’s assigned address.',
       })
     }

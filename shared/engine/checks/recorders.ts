@@ -15,15 +15,16 @@ export const recorderPresent: Check = {
     const recorders = flightRecorders(dossier)
     const good = recorders.filter(r => r.approvalLevel && accepted.includes(r.approvalLevel))
     if (good.length >= required) return []
-    const acceptedText = accepted.map(l => APPROVAL_LEVEL_LABELS[l as ApprovalLevel]?.toLowerCase() ?? l).join(' or ')
+    const acceptedText = accepted.map(l => `“${APPROVAL_LEVEL_LABELS[l as ApprovalLevel]?.toLowerCase() ?? l}”`).join(' or ')
     const notAccepted = recorders.filter(r => !good.includes(r))
     let reason: string
     if (recorders.length === 0) {
       reason = `No flight recorder is declared; the competition requires ${plural(required, 'recorder', 'recorders')}.`
     }
     else {
-      const detail = notAccepted.map(r => `${r.model} (serial ${r.serial}) is ${r.approvalLevel ? `approved for “${APPROVAL_LEVEL_LABELS[r.approvalLevel as ApprovalLevel]?.toLowerCase() ?? r.approvalLevel}”` : 'of unknown approval level'}`).join('; ')
-      reason = `${plural(good.length, 'flight recorder', 'flight recorders')} with an accepted approval level (${acceptedText}) declared, the competition requires ${required}${detail ? `: ${detail}` : ''}.`
+      const detail = notAccepted.map(r => `The ${r.model} (serial ${r.serial}) is ${r.approvalLevel ? `approved for “${APPROVAL_LEVEL_LABELS[r.approvalLevel as ApprovalLevel]?.toLowerCase() ?? r.approvalLevel}”` : 'of unknown approval level'}`).join('; ')
+      const declared = good.length === 0 ? 'No flight recorder' : plural(good.length, 'flight recorder', 'flight recorders')
+      reason = `${declared} with an accepted approval level (${acceptedText}) ${good.length === 1 ? 'is' : 'are'} declared; the competition requires ${required}${detail ? `. ${detail}` : ''}.`
     }
     return [{
       checkId: this.id,
