@@ -1,7 +1,7 @@
 // The check engine's public face: import from here.
 export * from './types'
 export { CATALOGUE, checkById } from './catalogue'
-export { evaluate, blockingFirst } from './evaluate'
+export { evaluate, evaluateAll, blockingFirst } from './evaluate'
 export { readiness, applyWaivers, isHeld, type DirectorAction, type Readiness } from './readiness'
 export { buildField } from './field'
 export { weighIn, massAndArm, twoPointCg, lbToKg, inchToM } from './weigh-in'

@@ -2,7 +2,7 @@ import { existsSync, readFileSync } from 'node:fs'
 import { describe, expect, it } from 'vitest'
 import { CATALOGUE } from '#shared/engine/catalogue'
 import { buildField } from '#shared/engine/field'
-import { evaluate } from '#shared/engine/evaluate'
+import { evaluate, evaluateAll } from '#shared/engine/evaluate'
 import { competitionRulesSchema } from '#shared/schemas/competition'
 import type { Dossier, EngineUnit } from '#shared/engine/types'
 import { DEMO_COMPETITION } from '../../../../seeds/demo-data'
@@ -33,6 +33,14 @@ describe('evaluate', () => {
   it('finds nothing on a dossier in order', () => {
     const d = dossier()
     expect(evaluate(d, competition(), fieldOf(d))).toEqual([])
+  })
+
+  it('evaluates a whole competition against one field (evaluateAll)', () => {
+    const a = dossier({}, { id: 'a', compId: 'K7' })
+    const b = dossier({}, { id: 'b', compId: 'K7' })
+    const all = evaluateAll([a, b], competition())
+    expect([...all.keys()]).toEqual(['a', 'b'])
+    expect(all.get('a')!.map(f => f.checkId)).toContain('competition-id.unique')
   })
 
   it('lists findings in catalogue order, each with the severity its check declares', () => {

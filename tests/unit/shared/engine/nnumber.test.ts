@@ -37,4 +37,37 @@ describe('N-number → 24-bit address', () => {
     expect([...addresses].sort((a, b) => a - b)).toEqual(addresses)
     expect(new Set(addresses).size).toBe(addresses.length)
   })
+
+  it('walks the N1… and N9… branches in sequence with no gap, ending at N99999 = ADF7C7', () => {
+    // Our own enumeration of the order the mapping defines: a number, its letter suffixes, then its digits.
+    const L = 'ABCDEFGHJKLMNPQRSTUVWXYZ'
+    let expected = 0xA00001
+    let count = 0
+    const visit = (reg: string): void => {
+      if (nNumberToAddress(reg) !== (expected++).toString(16).toUpperCase()) throw new Error(reg)
+      count++
+      const digits = reg.length - 1
+      if (digits <= 3) {
+        for (const a of L) {
+          const one = reg + a
+          if (nNumberToAddress(one) !== (expected++).toString(16).toUpperCase()) throw new Error(one)
+          for (const b of L) {
+            if (nNumberToAddress(one + b) !== (expected++).toString(16).toUpperCase()) throw new Error(one + b)
+          }
+        }
+      }
+      else if (digits === 4) {
+        for (const a of L) {
+          if (nNumberToAddress(reg + a) !== (expected++).toString(16).toUpperCase()) throw new Error(reg + a)
+        }
+      }
+      if (digits < 5) for (let d = 0; d <= 9; d++) visit(reg + d)
+    }
+    visit('N1')
+    expect((expected).toString(16).toUpperCase()).toBe(nNumberToAddress('N2'))
+    expected = Number.parseInt(nNumberToAddress('N9')!, 16)
+    visit('N9')
+    expect(count).toBe(2 * 11111)
+    expect((expected - 1).toString(16).toUpperCase()).toBe('ADF7C7')
+  }, 30_000)
 })
