@@ -14,7 +14,9 @@ import { ctx, dossier, recorder } from '../builders'
 //  - records in the order A2.5.7 requires: A, H, I, J, C, then F/B/K, L, G last;
 //  - maker names in the FR type, GPS receiver and pressure sensor headers replaced by
 //    neutral words, and the manufacturer code set to XXX (the code for test files).
-// Pilot, glider, competition ID, class, date, flight number and declaration points are kept.
+// Pilot, glider type, glider ID, competition ID, class, date, flight number and declaration
+// points are the example's own values, kept as published (the glider type is the one place a
+// real type name appears in the project, because the specification's example uses it).
 const SPEC_EXAMPLE = readFileSync(new URL('../../../../fixtures/igc/spec-a9-2-corrected.igc', import.meta.url), 'utf8')
 
 function headerOf(text: string, unitId: string): EngineIgcFile {
