@@ -1,0 +1,45 @@
+// The rulebook: every check in the order findings are listed. Add a check here and in its
+// family's file under checks/; DEVELOPERS.md, "Add a check".
+import { cgWithinLimits } from './checks/cg'
+import { competitionIdUnique } from './checks/competition-id'
+import { declarationMatchesEntry, declarationRecent } from './checks/declaration'
+import { documentsRequired } from './checks/documents'
+import { firmwareCatalogueMismatch, firmwareExpiresSoon, firmwareValidThroughContest, firmwareYearlyUpdate } from './checks/firmware'
+import { igcSecurityRecord } from './checks/igc'
+import { massClassLimit, massFlightManual } from './checks/mass'
+import { obstaclesCurrent } from './checks/obstacles'
+import { entryPaid } from './checks/payment'
+import { radioIdFormat, radioIdRegistration, radioIdUnique } from './checks/radio-id'
+import { recorderPresent } from './checks/recorders'
+import type { Check } from './types'
+
+export const CATALOGUE: readonly Check[] = [
+  // Collision-warning units
+  firmwareValidThroughContest,
+  firmwareExpiresSoon,
+  firmwareYearlyUpdate,
+  firmwareCatalogueMismatch,
+  obstaclesCurrent,
+  radioIdFormat,
+  radioIdUnique,
+  radioIdRegistration,
+  // The glider's identity in the competition
+  competitionIdUnique,
+  // Papers
+  documentsRequired,
+  // Flight recorders and their IGC files
+  recorderPresent,
+  declarationMatchesEntry,
+  declarationRecent,
+  igcSecurityRecord,
+  // Weighing
+  massClassLimit,
+  massFlightManual,
+  cgWithinLimits,
+  // The office
+  entryPaid,
+]
+
+export function checkById(id: string): Check | undefined {
+  return CATALOGUE.find(c => c.id === id)
+}

@@ -1,0 +1,11 @@
+// The check engine's public face: import from here.
+export * from './types'
+export { CATALOGUE, checkById } from './catalogue'
+export { evaluate, evaluateAll, blockingFirst } from './evaluate'
+export { readiness, applyWaivers, isHeld, type DirectorAction, type Readiness } from './readiness'
+export { buildField } from './field'
+export { weighIn, massAndArm, twoPointCg, lbToKg, inchToM } from './weigh-in'
+export { nNumberToAddress, isNNumber } from './nnumber'
+export { normaliseId, normaliseRadioId, classMatches, namesMatch, gliderTypesMatch } from './normalise'
+export { HARDWARE_CAUTION } from './caution'
+export { addDays, addYears, dateInZone, daysBetween, isIsoDate } from './dates'
