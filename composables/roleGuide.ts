@@ -18,7 +18,7 @@ export interface RoleGuide {
   actionPath: string
   /** What the role does here, for the competition overview. */
   duties: string[]
-  /** The role's pages, shown with its duties. */
+  /** The role's pages, linked at the top of the competition overview (CompetitionPages). */
   links: RoleLink[]
 }
 

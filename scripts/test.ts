@@ -82,6 +82,8 @@ async function setUp(): Promise<string> {
     tempDir = mkdtempSync('/tmp/gridmark-test-')
     // mkdtemp makes it 0700; the postgres user must be able to enter it.
     chmodSync(tempDir, 0o755)
+    // Uploaded files of the run (demo seed and tests) live and die with it, apart from the demo's.
+    process.env.NUXT_UPLOADS_DIR = join(tempDir, 'uploads')
     const wanted: Cluster = {
       dataDir: join(tempDir, 'pg'),
       socketDir: join(tempDir, 'socket'),

@@ -86,3 +86,86 @@ export async function seedDemoDocuments(trx: Knex, competitionId: string): Promi
     }
   }
 }
+
+/**
+ * Demo IGC files, one per first flight recorder of a few accepted entries, laid out as the
+ * app stores them (igc/<entry id>/<uuid>). G5's declaration names another glider ID and
+ * competition ID than its entry — the seeded declaration mismatch; the others match.
+ */
+const IGC_PLAN: Record<string, { gliderId?: string, compId?: string, flightDate: string }> = {
+  A1: { flightDate: '2027-05-14' },
+  C4: { flightDate: '2027-06-02' },
+  G5: { gliderId: 'KM-ZZQ', compId: 'G6', flightDate: '2027-05-29' },
+}
+
+function demoIgc(input: { pilot: string, gliderType: string, gliderId: string, compId: string, className: string, flightDate: string, recorder: string, firmware: string }): string {
+  const [y, m, d] = input.flightDate.split('-')
+  const lines = [
+    'AXKMDEMOFLIGHT:1',
+    `HFDTEDATE:${d}${m}${y!.slice(2)},01`,
+    `HFPLTPILOTINCHARGE:${input.pilot}`,
+    'HFCM2CREW2:NIL',
+    `HFGTYGLIDERTYPE:${input.gliderType}`,
+    `HFGIDGLIDERID:${input.gliderId}`,
+    'HFDTM100GPSDATUM:WGS-1984',
+    `HFRFWFIRMWAREVERSION:${input.firmware}`,
+    `HFFTYFRTYPE:${input.recorder}`,
+    `HFCIDCOMPETITIONID:${input.compId}`,
+    `HFCCLCOMPETITIONCLASS:${input.className}`,
+    'B1201005130000N00745000EA0050000600',
+    'B1201105130020N00745030EA0050500605',
+    'B1201205130040N00745060EA0051000610',
+    // An invented security record: present, but no real signature (it cannot be validated here).
+    'G3F2A91C07B44D1E8A5F60C2B9137E4D',
+  ]
+  return `${lines.join('\r\n')}\r\n`
+}
+
+export async function seedDemoIgcFiles(trx: Knex, competitionId: string): Promise<void> {
+  const rows = await trx('entries as e')
+    .join('classes as c', 'c.id', 'e.class_id')
+    .where('e.competition_id', competitionId).whereIn('e.comp_id', Object.keys(IGC_PLAN))
+    .select('e.id', 'e.comp_id', 'e.pilot_name', 'e.glider_type', 'e.registration', 'e.entrant_user_id', 'c.name as class_name') as
+    { id: string, comp_id: string, pilot_name: string, glider_type: string, registration: string, entrant_user_id: string, class_name: string }[]
+  for (const entry of rows) {
+    const recorder = await trx('units').where({ entry_id: entry.id, kind: 'flight-recorder' }).orderBy('created_at').first('id', 'model', 'firmware_version')
+    if (!recorder) continue
+    const plan = IGC_PLAN[entry.comp_id]!
+    const header = {
+      pilot: entry.pilot_name,
+      gliderType: entry.glider_type,
+      gliderId: plan.gliderId ?? entry.registration,
+      compId: plan.compId ?? entry.comp_id,
+      className: entry.class_name,
+      flightDate: plan.flightDate,
+      recorder: recorder.model,
+      firmware: recorder.firmware_version ?? '1.0',
+    }
+    const data = Buffer.from(demoIgc(header), 'latin1')
+    const id = randomUUID()
+    const file = join(uploadsDir(), 'igc', entry.id, id)
+    mkdirSync(dirname(file), { recursive: true })
+    writeFileSync(file, data)
+    await trx('igc_files').insert({
+      entry_id: entry.id,
+      competition_id: competitionId,
+      unit_id: recorder.id,
+      original_filename: `${entry.comp_id.toLowerCase()}-${plan.flightDate}.igc`,
+      storage_key: `igc:${entry.id}:${id}`,
+      sha256: createHash('sha256').update(data).digest('hex'),
+      size_bytes: data.length,
+      flight_date: plan.flightDate,
+      pilot: header.pilot,
+      copilot: null,
+      glider_type: header.gliderType,
+      glider_id: header.gliderId,
+      declared_comp_id: header.compId,
+      declared_class: header.className,
+      recorder_type: header.recorder,
+      firmware_version: header.firmware,
+      has_g_record: true,
+      parse_errors: JSON.stringify([]),
+      uploaded_by: entry.entrant_user_id,
+    })
+  }
+}

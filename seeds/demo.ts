@@ -6,7 +6,8 @@ import { Scrypt } from '@adonisjs/hash/drivers/scrypt'
 import { faiClass } from '../shared/constants/classes'
 import { DEMO_COMPETITION, DEMO_PASSWORD, DEMO_PEOPLE } from './demo-data'
 import { DEMO_ENTRIES, DEMO_EXTRA_PILOTS, DEMO_FIRMWARE } from './demo-entries'
-import { seedDemoDocuments } from './demo-files'
+import { seedDemoPayments } from './demo-payments'
+import { seedDemoDocuments, seedDemoIgcFiles } from './demo-files'
 
 export { DEMO_SIGN_INS, DEMO_PASSWORD } from './demo-data'
 
@@ -141,6 +142,8 @@ export async function seedDemo(knex: Knex, opts: { reset?: boolean } = {}): Prom
     }
 
     await seedDemoDocuments(trx, competition.id)
+    await seedDemoIgcFiles(trx, competition.id)
+    await seedDemoPayments(trx, competition.id)
 
     await trx('audit_log').insert({
       actor_user_id: null,

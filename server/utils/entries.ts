@@ -131,18 +131,25 @@ export async function registrationWindow(competitionId: string, db: Knex = useDb
 }
 
 // ---------------------------------------------------------------------------------------
-// Documents, IGC files and payments belong to other areas' tables.
+// Documents, IGC files and payments (their own modules write them; the dossier reads them).
 
-/**
- * An entry's documents, IGC files and payments for the dossier and its progress.
- * MERGER: fill these from the documents, IGC files and payments tables of their areas.
- */
-export async function dossierExtras(_entryIds: string[], _db: Knex = useDb()): Promise<Map<string, {
+/** An entry's current documents, current IGC files and payments, for the dossier and its progress. */
+export async function dossierExtras(entryIds: string[], db: Knex = useDb()): Promise<Map<string, {
   documents: DossierDocument[]
   igcFiles: DossierIgcFile[]
   payments: DossierPayment[]
 }>> {
-  return new Map()
+  const extras = new Map(entryIds.map(id => [id, { documents: [] as DossierDocument[], igcFiles: [] as DossierIgcFile[], payments: [] as DossierPayment[] }]))
+  if (!entryIds.length) return extras
+  const [documents, igcFiles, payments] = await Promise.all([
+    db('documents').whereIn('entry_id', entryIds).where('superseded', false).orderBy('uploaded_at').select('id', 'entry_id', 'kind', 'status'),
+    db('igc_files').whereIn('entry_id', entryIds).where('superseded', false).orderBy('uploaded_at').select('id', 'entry_id', 'unit_id'),
+    db('payments').whereIn('entry_id', entryIds).orderBy('created_at').select('id', 'entry_id', 'status', 'amount_minor'),
+  ])
+  for (const d of documents) extras.get(d.entry_id)!.documents.push({ id: d.id, kind: d.kind, status: d.status })
+  for (const f of igcFiles) extras.get(f.entry_id)!.igcFiles.push({ id: f.id, unitId: f.unit_id })
+  for (const p of payments) extras.get(p.entry_id)!.payments.push({ id: p.id, status: p.status, amountMinor: p.amount_minor })
+  return extras
 }
 
 const NO_EXTRAS = { documents: [] as DossierDocument[], igcFiles: [] as DossierIgcFile[], payments: [] as DossierPayment[] }

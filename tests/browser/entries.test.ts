@@ -1,11 +1,13 @@
-// An entrant joins a competition, fills the entry, adds a collision-warning unit (taking the
-// firmware catalogue's suggestion) and a flight recorder, submits; the organiser accepts.
+// The whole registration: an entrant joins a competition, fills the entry, adds a
+// collision-warning unit (taking the firmware catalogue's suggestion) and a flight recorder,
+// uploads a document and an IGC file, pays by card, submits; the organiser accepts.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import type { Page } from 'playwright-core'
 import { GOOD_PASSWORD, signedUpClient } from '../support/api'
 import { completeEntry, entryBody } from '../support/entries'
 import { gotoApp, launchBrowser, openPage, screenshot, signInThroughForm, type Browser } from '../support/browser'
 import { closeTestDb, createClass, createCompetition, testDb } from '../support/db'
+import { igcFixture, tinyPdf } from '../support/files'
 
 const baseUrl = inject('baseUrl')
 
@@ -99,6 +101,31 @@ describe('entrant registration in the browser', () => {
       await page.getByTestId('units-flight-recorder').getByText('Example Logger 3').waitFor()
       await expectNoSidewaysScroll(page)
 
+      // A document: the insurance certificate, checked by content on the server.
+      const documents = page.getByTestId('document-panel')
+      await documents.getByLabel('Kind of document').selectOption({ label: 'Insurance' })
+      await documents.getByLabel('Valid until').fill('2027-12-31')
+      await documents.getByLabel('File').setInputFiles({ name: 'insurance.pdf', mimeType: 'application/pdf', buffer: tinyPdf('Insurance certificate') })
+      await documents.getByRole('button', { name: 'Upload document' }).click()
+      await documents.getByRole('link', { name: /View insurance/ }).waitFor()
+
+      // An IGC file from the flight recorder: its declaration is shown as parsed.
+      const igc = page.getByTestId('igc-panel')
+      await igc.getByLabel('IGC file').setInputFiles({ name: 'recent.igc', mimeType: 'text/plain', buffer: igcFixture('valid-declaration.igc') })
+      await igc.getByRole('button', { name: 'Upload IGC file' }).click()
+      await igc.getByText('D-KMOR').waitFor()
+      await screenshot(page, 'entry-dossier-files-phone')
+
+      // The entry fee, by card on the payment service's page, back to "payment received".
+      await page.getByRole('link', { name: /Pay the entry fee/ }).click()
+      await page.getByTestId('pay-by-card').click()
+      await page.waitForURL(url => url.pathname.startsWith('/pay/'))
+      await page.getByLabel('Card number').fill('4242 4242 4242 4242')
+      await page.getByRole('button', { name: /^Pay/ }).click()
+      await page.getByTestId('payment-received').waitFor()
+      await gotoApp(page, baseUrl, dossierPath)
+      await expect(page.getByTestId('payment-status').textContent()).resolves.toContain('Paid')
+
       await page.getByRole('button', { name: 'Submit the entry' }).click()
       await page.getByTestId('entry-status').getByText('Submitted').waitFor()
       await expect(page.getByTestId('next-step').textContent()).resolves.toContain('Wait for the organiser to accept the entry.')
@@ -108,6 +135,10 @@ describe('entrant registration in the browser', () => {
       expect(row).toMatchObject({ status: 'submitted', comp_id: 'MH', empty_mass_kg: '262.5', crew_names: ['Rita Retrieve'] })
       const units = await testDb()('units').where({ entry_id: row.id }).orderBy('kind')
       expect(units.map(u => [u.kind, u.radio_id])).toEqual([['collision-warning', '4A7C21'], ['flight-recorder', null]])
+      expect(row.payment_status).toBe('paid')
+      expect(await testDb()('documents').where({ entry_id: row.id, kind: 'insurance', status: 'pending' }).count('* as n').first()).toEqual({ n: '1' })
+      const igcRow = await testDb()('igc_files').where({ entry_id: row.id }).first()
+      expect(igcRow).toMatchObject({ unit_id: units[1]!.id, glider_id: 'D-KMOR', has_g_record: true })
 
       // My entries shows it with its next step.
       await gotoApp(page, baseUrl, '/entries')

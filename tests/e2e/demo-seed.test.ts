@@ -66,4 +66,45 @@ describe('demo seed', () => {
       .where('u.email', 'entrant10@gridmark.example').count('* as n').first()
     expect(Number(count!.n)).toBe(0)
   })
+
+  it('records a payment for every paid entry and a refund for the withdrawn one', async () => {
+    const rows = await testDb()('entries as e').join('competitions as c', 'c.id', 'e.competition_id')
+      .leftJoin('payments as p', 'p.entry_id', 'e.id')
+      .where('c.slug', DEMO_COMPETITION.slug).whereIn('e.payment_status', ['paid', 'refunded'])
+      .select('e.payment_status', 'e.paid_minor', 'p.status', 'p.amount_minor', 'p.refunded_minor')
+    expect(rows.length).toBeGreaterThan(20)
+    for (const r of rows) {
+      expect(r.status).toBe(r.payment_status)
+      expect(r.paid_minor).toBe(r.amount_minor - r.refunded_minor)
+    }
+  })
+
+  it('has C4’s insurance rejected with a reason, and G5’s IGC declaration naming another glider', async () => {
+    const c4 = await demoEntry('C4')
+    const insurance = await testDb()('documents').where({ entry_id: c4.entry.id, kind: 'insurance', superseded: false }).first()
+    expect(insurance.status).toBe('rejected')
+    expect(insurance.review_reason).toMatch(/before the last contest day/)
+    const g5 = await demoEntry('G5')
+    const igc = await testDb()('igc_files').where({ entry_id: g5.entry.id, superseded: false }).first()
+    expect(igc.glider_id).not.toBe(g5.entry.registration)
+    expect(igc.declared_comp_id).not.toBe(g5.entry.comp_id)
+    const a1 = await demoEntry('A1')
+    const matching = await testDb()('igc_files').where({ entry_id: a1.entry.id, superseded: false }).first()
+    expect(matching.glider_id).toBe(a1.entry.registration)
+  })
+
+  it('writes the demo IGC files as the parser reads them (IGC FR specification Appendix A H records)', async () => {
+    const { default: IGCParser } = await import('igc-parser')
+    const { readFileSync } = await import('node:fs')
+    const { join } = await import('node:path')
+    const g5 = await demoEntry('G5')
+    const igc = await testDb()('igc_files').where({ entry_id: g5.entry.id, superseded: false }).first()
+    const [, entryId, id] = igc.storage_key.split(':')
+    const text = readFileSync(join(process.env.NUXT_UPLOADS_DIR!, 'igc', entryId, id), 'latin1')
+    const parsed = IGCParser.parse(text, { lenient: true })
+    expect(parsed.date).toBe('2027-05-29')
+    expect(parsed.registration).toBe(igc.glider_id)
+    expect(parsed.callsign).toBe(igc.declared_comp_id)
+    expect(parsed.competitionClass).toBe(igc.declared_class)
+  })
 })
