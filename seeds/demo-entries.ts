@@ -76,6 +76,8 @@ export const SEEDED_PROBLEMS: Record<string, string> = {
   F9: 'submitted but unpaid',
   R4: 'no flight recorder declared',
   H8: 'firmware last updated more than a year before the contest',
+  C4: 'insurance rejected by a scrutineer (seeds/demo-files.ts)',
+  G5: 'the IGC file declares another glider ID and competition ID (seeds/demo-files.ts)',
 }
 
 const ENTRY_COUNT = 40

@@ -1,5 +1,5 @@
-// Demo documents: a few entries with their documents uploaded, one entry's insurance rejected
-// (a seeded problem) and some waiting in the scrutineers' queue. The files are tiny invented
+// Demo documents: every entry past its draft has its documents, C4's insurance is rejected
+// (a seeded problem) and a few wait in the scrutineers' queue. The files are tiny invented
 // PDFs written to the uploads folder (the default storage), laid out as the app's fs driver
 // keeps them: documents/<entry id>/<uuid>.
 import { createHash, randomUUID } from 'node:crypto'
@@ -35,13 +35,17 @@ function demoPdf(title: string): Buffer {
 
 type Review = { status: 'accepted' } | { status: 'rejected', reason: string } | { status: 'pending' }
 
-const PLAN: Record<string, Partial<Record<DocumentKind, Review & { expiresOn: string }>>> = {
-  A1: {
-    airworthiness: { status: 'accepted', expiresOn: '2028-03-31' },
-    insurance: { status: 'accepted', expiresOn: '2027-12-31' },
-    licence: { status: 'accepted', expiresOn: '2029-05-01' },
-    medical: { status: 'accepted', expiresOn: '2028-01-15' },
-  },
+type Plan = Partial<Record<DocumentKind, Review & { expiresOn: string }>>
+
+/** Every entry past its draft has its four documents accepted, unless PLAN says otherwise. */
+const IN_ORDER: Plan = {
+  airworthiness: { status: 'accepted', expiresOn: '2028-03-31' },
+  insurance: { status: 'accepted', expiresOn: '2027-12-31' },
+  licence: { status: 'accepted', expiresOn: '2029-05-01' },
+  medical: { status: 'accepted', expiresOn: '2028-01-15' },
+}
+
+const PLAN: Record<string, Plan> = {
   C4: {
     airworthiness: { status: 'accepted', expiresOn: '2028-02-28' },
     insurance: { status: 'rejected', reason: 'The certificate ends on 2027-06-30, before the last contest day.', expiresOn: '2027-06-30' },
@@ -55,11 +59,11 @@ const PLAN: Record<string, Partial<Record<DocumentKind, Review & { expiresOn: st
 
 export async function seedDemoDocuments(trx: Knex, competitionId: string): Promise<void> {
   const scrutineer = await trx('memberships').where({ competition_id: competitionId, role: 'scrutineer' }).orderBy('created_at').first('user_id')
-  const entries = await trx('entries').where({ competition_id: competitionId }).whereIn('comp_id', Object.keys(PLAN))
+  const entries = await trx('entries').where({ competition_id: competitionId }).whereNot('status', 'draft').orderBy('comp_id')
     .select('id', 'comp_id', 'entrant_user_id') as { id: string, comp_id: string, entrant_user_id: string }[]
   let minutes = 0
   for (const entry of entries) {
-    for (const [kind, plan] of Object.entries(PLAN[entry.comp_id] ?? {}) as [DocumentKind, Review & { expiresOn: string }][]) {
+    for (const [kind, plan] of Object.entries(PLAN[entry.comp_id] ?? IN_ORDER) as [DocumentKind, Review & { expiresOn: string }][]) {
       const data = demoPdf(`${DOCUMENT_KIND_LABELS[kind]} - ${entry.comp_id}`)
       const id = randomUUID()
       const file = join(uploadsDir(), 'documents', entry.id, id)
@@ -88,13 +92,11 @@ export async function seedDemoDocuments(trx: Knex, competitionId: string): Promi
 }
 
 /**
- * Demo IGC files, one per first flight recorder of a few accepted entries, laid out as the
- * app stores them (igc/<entry id>/<uuid>). G5's declaration names another glider ID and
- * competition ID than its entry — the seeded declaration mismatch; the others match.
+ * Demo IGC files, one from the first flight recorder of every entry past its draft, laid out
+ * as the app stores them (igc/<entry id>/<uuid>). G5's declaration names another glider ID
+ * and competition ID than its entry — the seeded declaration mismatch; the others match.
  */
-const IGC_PLAN: Record<string, { gliderId?: string, compId?: string, flightDate: string }> = {
-  A1: { flightDate: '2027-05-14' },
-  C4: { flightDate: '2027-06-02' },
+const IGC_PLAN: Record<string, { gliderId?: string, compId?: string, flightDate?: string }> = {
   G5: { gliderId: 'KM-ZZQ', compId: 'G6', flightDate: '2027-05-29' },
 }
 
@@ -124,20 +126,20 @@ function demoIgc(input: { pilot: string, gliderType: string, gliderId: string, c
 export async function seedDemoIgcFiles(trx: Knex, competitionId: string): Promise<void> {
   const rows = await trx('entries as e')
     .join('classes as c', 'c.id', 'e.class_id')
-    .where('e.competition_id', competitionId).whereIn('e.comp_id', Object.keys(IGC_PLAN))
+    .where('e.competition_id', competitionId).whereNot('e.status', 'draft').orderBy('e.comp_id')
     .select('e.id', 'e.comp_id', 'e.pilot_name', 'e.glider_type', 'e.registration', 'e.entrant_user_id', 'c.name as class_name') as
     { id: string, comp_id: string, pilot_name: string, glider_type: string, registration: string, entrant_user_id: string, class_name: string }[]
   for (const entry of rows) {
     const recorder = await trx('units').where({ entry_id: entry.id, kind: 'flight-recorder' }).orderBy('created_at').first('id', 'model', 'firmware_version')
     if (!recorder) continue
-    const plan = IGC_PLAN[entry.comp_id]!
+    const plan = IGC_PLAN[entry.comp_id] ?? {}
     const header = {
       pilot: entry.pilot_name,
       gliderType: entry.glider_type,
       gliderId: plan.gliderId ?? entry.registration,
       compId: plan.compId ?? entry.comp_id,
       className: entry.class_name,
-      flightDate: plan.flightDate,
+      flightDate: plan.flightDate ?? '2027-05-14',
       recorder: recorder.model,
       firmware: recorder.firmware_version ?? '1.0',
     }
@@ -150,11 +152,11 @@ export async function seedDemoIgcFiles(trx: Knex, competitionId: string): Promis
       entry_id: entry.id,
       competition_id: competitionId,
       unit_id: recorder.id,
-      original_filename: `${entry.comp_id.toLowerCase()}-${plan.flightDate}.igc`,
+      original_filename: `${entry.comp_id.toLowerCase()}-${header.flightDate}.igc`,
       storage_key: `igc:${entry.id}:${id}`,
       sha256: createHash('sha256').update(data).digest('hex'),
       size_bytes: data.length,
-      flight_date: plan.flightDate,
+      flight_date: header.flightDate,
       pilot: header.pilot,
       copilot: null,
       glider_type: header.gliderType,
