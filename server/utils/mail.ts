@@ -1,6 +1,7 @@
 // Queues an e-mail in the outbox, inside the caller's transaction: the message exists
 // exactly when the event it reports was committed. A worker sends it (with retries).
 import type { Knex } from 'knex'
+import type { EntryMailItem } from '#shared/types/api-mail'
 
 export interface OutgoingMail {
   to: string
@@ -24,4 +25,20 @@ export async function enqueueMail(db: Knex, mail: OutgoingMail): Promise<string>
     entry_id: mail.entryId ?? null,
   }).returning('id')
   return String(row.id)
+}
+
+/** Every e-mail queued about one entry, newest first: what was sent, and what still waits. */
+export async function entryMailLog(entryId: string, db: Knex = useDb()): Promise<EntryMailItem[]> {
+  const rows = await db('mail_outbox').where({ entry_id: entryId }).orderBy([{ column: 'created_at', order: 'desc' }, { column: 'id', order: 'desc' }])
+    .select('id', 'to_address', 'subject', 'template', 'created_at', 'sent_at', 'attempts', 'last_error')
+  return rows.map(r => ({
+    id: String(r.id),
+    to: r.to_address,
+    subject: r.subject,
+    template: r.template,
+    queuedAt: new Date(r.created_at).toISOString(),
+    sentAt: r.sent_at ? new Date(r.sent_at).toISOString() : null,
+    attempts: r.attempts,
+    lastError: r.last_error,
+  }))
 }

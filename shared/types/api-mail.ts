@@ -48,3 +48,19 @@ export interface MemberListEntry {
   roles: Role[]
   memberships: { id: string, role: Role }[]
 }
+
+/** One e-mail about an entry, as the organiser's mail log shows it. */
+export interface EntryMailItem {
+  id: string
+  to: string
+  subject: string
+  template: string
+  queuedAt: string
+  sentAt: string | null
+  attempts: number
+  lastError: string | null
+}
+
+export interface EntryMailResponse {
+  mail: EntryMailItem[]
+}

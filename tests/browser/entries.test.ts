@@ -169,6 +169,9 @@ describe('entrant registration in the browser', () => {
       await screenshot(page, 'entry-dossier-organiser-wall')
       await page.getByRole('button', { name: 'Accept the entry' }).click()
       await page.getByTestId('entry-status').getByText('Accepted').waitFor()
+      // The organiser sees the entry's e-mail: the submission notice at least, once sent.
+      await page.getByTestId('entry-mail-item').first().waitFor()
+      expect(await page.getByTestId('entry-mail').textContent()).toContain(`To ${entrant.email}`)
       await screenshot(page, 'entry-dossier-accepted-wall')
       const row = await testDb()('entries').where({ competition_id: competitionId }).first()
       expect(row.status).toBe('accepted')
