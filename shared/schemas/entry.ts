@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { entryParamsSchema } from './params'
 import { APPROVAL_LEVELS } from '../constants/entries'
 import { isoDate } from './competition'
 
@@ -120,10 +121,7 @@ export const entryRejectSchema = z.object({
     .max(1000, { error: 'Keep the reason under 1000 characters.' }),
 }, { error: 'Send the reason as a JSON object.' })
 
-export const entryParamsSchema = z.object({
-  competitionId: z.uuid(),
-  entryId: z.uuid(),
-})
+export { entryParamsSchema }
 
 export const unitParamsSchema = entryParamsSchema.extend({ unitId: z.uuid() })
 

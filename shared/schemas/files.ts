@@ -2,12 +2,12 @@
 import { z } from 'zod'
 import { DOCUMENT_KINDS } from '../constants/entries'
 import { isoDate } from './competition'
-import { uuid } from './params'
+import { entryParamsSchema, uuid } from './params'
 
-export const entryParamsSchema = z.object({ competitionId: uuid, entryId: uuid })
-export const entryDocumentParamsSchema = z.object({ competitionId: uuid, entryId: uuid, documentId: uuid })
+export { entryParamsSchema }
+export const entryDocumentParamsSchema = entryParamsSchema.extend({ documentId: uuid })
 export const competitionDocumentParamsSchema = z.object({ competitionId: uuid, documentId: uuid })
-export const entryIgcParamsSchema = z.object({ competitionId: uuid, entryId: uuid, igcFileId: uuid })
+export const entryIgcParamsSchema = entryParamsSchema.extend({ igcFileId: uuid })
 
 /** The text fields sent beside a document's file. */
 export const documentUploadSchema = z.object({

@@ -1,8 +1,5 @@
 import { z } from 'zod'
 import { PAYMENT_ROW_STATUSES } from '../constants/payments'
-import { uuid } from './params'
-
-export const entryPaymentParamsSchema = z.object({ competitionId: uuid, entryId: uuid })
 
 /** The checkout and refund actions take no fields; an empty JSON object (or no body) is fine. */
 export const emptyBodySchema = z.strictObject({}, {

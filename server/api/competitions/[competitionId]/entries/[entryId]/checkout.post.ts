@@ -1,9 +1,9 @@
 // POST /api/competitions/:competitionId/entries/:entryId/checkout — the entry's own entrant.
 // Opens a card payment for the fee due and answers the payment page's address { url, paymentId }.
-import { emptyBodySchema, entryPaymentParamsSchema } from '#shared/schemas/payment'
+import { emptyBodySchema, entryParamsSchema } from '#shared/schemas/payment'
 
 export default defineApiHandler(async (event) => {
-  const { competitionId, entryId } = await validParams(event, entryPaymentParamsSchema)
+  const { competitionId, entryId } = await validParams(event, entryParamsSchema)
   await validBody(event, emptyBodySchema.optional())
   const { user, entry, competition } = await requireEntryAccess(event, competitionId, entryId, 'owner')
   setResponseStatus(event, 201)
