@@ -1,6 +1,7 @@
 // POST /api/competitions/:competitionId/entries/:entryId/checkout — the entry's own entrant.
 // Opens a card payment for the fee due and answers the payment page's address { url, paymentId }.
-import { emptyBodySchema, entryParamsSchema } from '#shared/schemas/payment'
+import { entryParamsSchema } from '#shared/schemas/params'
+import { emptyBodySchema } from '#shared/schemas/payment'
 
 export default defineApiHandler(async (event) => {
   const { competitionId, entryId } = await validParams(event, entryParamsSchema)

@@ -1,6 +1,7 @@
 // POST /api/competitions/:competitionId/entries/:entryId/refund — organisers (and site administrators).
 // Refunds the card payment of a withdrawn entry in full; answers the payment as refunded.
-import { emptyBodySchema, entryParamsSchema } from '#shared/schemas/payment'
+import { entryParamsSchema } from '#shared/schemas/params'
+import { emptyBodySchema } from '#shared/schemas/payment'
 
 export default defineApiHandler(async (event) => {
   const { competitionId, entryId } = await validParams(event, entryParamsSchema)
