@@ -1,6 +1,7 @@
 // Findings on screen: the entrant reads a blocking finding with its fix hint and caution on the
-// dossier (phone), and it goes once the firmware is fixed; the demo organiser filters the
-// entries table to the entries with blocking findings (wall). Screenshots in artifacts/screenshots/.
+// dossier and counted on My entries (phone), and it goes once the firmware is fixed; the demo
+// organiser filters the entries table to entries with blocking findings (wall). Screenshots in
+// artifacts/screenshots/.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { GOOD_PASSWORD } from '../support/api'
 import { closeTestDb, testDb } from '../support/db'
@@ -60,6 +61,15 @@ describe('findings on screen', () => {
       await finding.scrollIntoViewIfNeeded()
       await screenshot(page, 'findings-dossier-phone')
       await section.screenshot({ path: join(artifactsDir(), 'screenshots', 'findings-section-phone.png') })
+
+      // My entries counts them.
+      await gotoApp(page, baseUrl, '/entries')
+      const card = page.getByTestId('my-entry').filter({ hasText: 'FB' })
+      const counts = card.getByTestId('finding-counts')
+      await counts.waitFor()
+      expect(Number(await counts.getAttribute('data-blocking'))).toBeGreaterThan(0)
+      expect(await counts.textContent()).toMatch(/\d+ blocking/)
+      await screenshot(page, 'findings-my-entries-phone')
 
       const fixed = await w.entrant.client.request('PATCH', `/api/competitions/${w.competitionId}/entries/${entryId}/units/${unitId}`, collisionWarningUnit({ radioId, firmwareExpiresOn: '2028-05-01' }))
       expect(fixed.status).toBe(200)
