@@ -6,6 +6,8 @@ export interface EntryTableParams {
   class: string
   status: string
   payment: string
+  /** '' (any), 'blocking', 'advisory' or 'none': which findings the entries have. */
+  findings: string
   q: string
   page: number
   pageSize: number

@@ -375,11 +375,12 @@ export async function createEntry(user: User, competitionId: string, body: Entry
 
 export async function loadDossier(access: EntryAccess, db: Knex = useDb()): Promise<EntryDossier> {
   const entry = await readEntry(db, access.entry.id)
-  const [units, classes, window, extras] = await Promise.all([
+  const [units, classes, window, extras, findings] = await Promise.all([
     listUnits([entry.id], db),
     listClasses(entry.competition_id, db),
     registrationWindow(entry.competition_id, db),
     dossierExtras([entry.id], db),
+    entryFindings(entry.competition_id, entry.id, db),
   ])
   const { documents, igcFiles, payments } = extras.get(entry.id) ?? NO_EXTRAS
   const rules = competitionRules(access.competition)
@@ -408,6 +409,7 @@ export async function loadDossier(access: EntryAccess, db: Knex = useDb()): Prom
     igcFiles,
     payments,
     progress: entryProgress({ entry: view, units: unitViews, rules, documents, igcFiles, paymentStatus: entry.payment_status }),
+    findings: findings.findings,
     can: permissions(access, entry, window),
     roles: access.roles as Role[],
     isOwner: access.isOwner,
@@ -646,7 +648,14 @@ export async function myEntries(userId: string, db: Knex = useDb()): Promise<MyE
       db.raw(`to_char(c.last_contest_day, 'YYYY-MM-DD') as c_last`),
     )
   const ids = rows.map(r => r.id as string)
-  const [units, extras] = await Promise.all([listUnits(ids, db), dossierExtras(ids, db)])
+  const byCompetition = new Map<string, string[]>()
+  for (const r of rows) byCompetition.set(r.competition_id, [...(byCompetition.get(r.competition_id) ?? []), r.id])
+  const [units, extras, ...findingMaps] = await Promise.all([
+    listUnits(ids, db),
+    dossierExtras(ids, db),
+    ...[...byCompetition].map(([competitionId, entryIds]) => findingsByEntry(competitionId, entryIds, db)),
+  ])
+  const findings = new Map(findingMaps.flatMap(m => [...m]))
   return rows.map((r) => {
     const view = toEntryView(r)
     const x = extras.get(r.id) ?? NO_EXTRAS
@@ -673,6 +682,7 @@ export async function myEntries(userId: string, db: Knex = useDb()): Promise<MyE
       paymentStatus: view.paymentStatus,
       missing: progress.missing.map(m => m.text),
       nextStep: progress.nextStep,
+      findings: countFindings(findings.get(r.id) ?? []),
     }
   })
 }

@@ -1,9 +1,12 @@
 // The staff entries table of a competition: sorting, filters, a case-insensitive search over
 // pilot name, registration and competition ID, offset paging; and the same list as CSV.
-// Indexes: migrations/20261203000500_entry_table_indexes.ts.
+// Indexes: migrations/20261203000500_entry_table_indexes.ts. The findings column and filter
+// come from evaluating the whole competition once per request (server/utils/findings.ts).
 import type { Knex } from 'knex'
 import { stringify } from 'csv-stringify/sync'
-import type { EntryTableFilter, EntryTableQuery, EntryTableSort } from '#shared/schemas/entry-table'
+import type { Finding } from '#shared/engine'
+import type { EntryTableFilter, EntryTableQuery, EntryTableSort, FindingsFilter } from '#shared/schemas/entry-table'
+import type { FindingCounts } from '#shared/types/api-findings'
 import type { EntryTableResponse, EntryTableRow } from '#shared/types/setup'
 import { csvSafe } from '#shared/utils/csv-safe'
 
@@ -26,10 +29,29 @@ function likePattern(q: string): string {
   return `%${q.toLowerCase().replace(/[\\%_]/g, m => `\\${m}`)}%`
 }
 
-function filteredEntries(db: Knex, competitionId: string, f: EntryTableFilter) {
+const NO_FINDINGS: FindingCounts = { blocking: 0, advisory: 0 }
+
+/** Whether an entry's counts pass the findings filter. */
+export function passesFindingsFilter(counts: FindingCounts, filter: FindingsFilter): boolean {
+  if (filter === 'blocking') return counts.blocking > 0
+  if (filter === 'advisory') return counts.advisory > 0
+  if (filter === 'none') return counts.blocking + counts.advisory === 0
+  return true
+}
+
+/** Every entry's finding counts, from one evaluation of the competition. */
+async function findingCounts(competitionId: string, db: Knex): Promise<Map<string, FindingCounts>> {
+  const byEntry: Map<string, Finding[]> = await findingsByEntry(competitionId, undefined, db)
+  return new Map([...byEntry].map(([id, findings]) => [id, countFindings(findings)]))
+}
+
+function filteredEntries(db: Knex, competitionId: string, f: EntryTableFilter, counts: Map<string, FindingCounts>) {
   const q = db('entries as e')
     .join('classes as c', 'c.id', 'e.class_id')
     .where('e.competition_id', competitionId)
+  if (f.findings !== 'any') {
+    q.whereIn('e.id', [...counts].filter(([, c]) => passesFindingsFilter(c, f.findings)).map(([id]) => id))
+  }
   if (f.class) q.where('e.class_id', f.class)
   if (f.status) q.where('e.status', f.status)
   if (f.payment) q.where('e.payment_status', f.payment)
@@ -72,7 +94,7 @@ interface RawRow {
   pilot_nationality: string | null
 }
 
-function toRow(r: RawRow): EntryTableRow {
+function toRow(r: RawRow, findings: FindingCounts): EntryTableRow {
   return {
     id: r.id,
     compId: r.comp_id,
@@ -85,19 +107,21 @@ function toRow(r: RawRow): EntryTableRow {
     paymentStatus: r.payment_status,
     paidMinor: r.paid_minor,
     submittedAt: r.submitted_at ? r.submitted_at.toISOString() : null,
+    findings,
   }
 }
 
 export async function entryTablePage(competitionId: string, query: EntryTableQuery, currency: string, db: Knex = useDb()): Promise<EntryTableResponse> {
+  const counts = await findingCounts(competitionId, db)
   const [rows, counted] = await Promise.all([
-    filteredEntries(db, competitionId, query)
+    filteredEntries(db, competitionId, query, counts)
       .select(ROW_COLUMNS)
       .orderByRaw(orderBy(query))
       .limit(query.pageSize)
       .offset((query.page - 1) * query.pageSize) as Promise<RawRow[]>,
-    filteredEntries(db, competitionId, query).count('* as total').first() as Promise<{ total: string } | undefined>,
+    filteredEntries(db, competitionId, query, counts).count('* as total').first() as Promise<{ total: string } | undefined>,
   ])
-  return { rows: rows.map(toRow), total: Number(counted?.total ?? 0), page: query.page, pageSize: query.pageSize, currency }
+  return { rows: rows.map(r => toRow(r, counts.get(r.id) ?? NO_FINDINGS)), total: Number(counted?.total ?? 0), page: query.page, pageSize: query.pageSize, currency }
 }
 
 function formatMinor(minor: number): string {
@@ -106,15 +130,22 @@ function formatMinor(minor: number): string {
 
 export const ENTRY_CSV_HEADER = [
   'Competition ID', 'Pilot', 'Co-pilot', 'Nationality', 'Class', 'Glider type', 'Registration',
-  'Status', 'Payment', 'Paid', 'Currency', 'Submitted at',
+  'Status', 'Payment', 'Paid', 'Currency', 'Submitted at', 'Blocking findings', 'Advisory findings', 'Findings',
 ]
 
 /** Every entry that matches the filters, in the table's order, as CSV text (header first). */
 export async function entryTableCsv(competitionId: string, filter: EntryTableFilter, currency: string, db: Knex = useDb()): Promise<string> {
-  const rows: RawRow[] = await filteredEntries(db, competitionId, filter).select(ROW_COLUMNS).orderByRaw(orderBy(filter))
-  const records = rows.map(r => [
-    r.comp_id, r.pilot_name, r.copilot_name ?? '', r.pilot_nationality ?? '', r.class_name, r.glider_type, r.registration,
-    r.status, r.payment_status, formatMinor(r.paid_minor), currency, r.submitted_at ? r.submitted_at.toISOString() : '',
-  ].map(v => csvSafe(String(v))))
+  const byEntry = await findingsByEntry(competitionId, undefined, db)
+  const counts = new Map([...byEntry].map(([id, findings]) => [id, countFindings(findings)]))
+  const rows: RawRow[] = await filteredEntries(db, competitionId, filter, counts).select(ROW_COLUMNS).orderByRaw(orderBy(filter))
+  const records = rows.map((r) => {
+    const findings = byEntry.get(r.id) ?? []
+    const c = counts.get(r.id) ?? NO_FINDINGS
+    return [
+      r.comp_id, r.pilot_name, r.copilot_name ?? '', r.pilot_nationality ?? '', r.class_name, r.glider_type, r.registration,
+      r.status, r.payment_status, formatMinor(r.paid_minor), currency, r.submitted_at ? r.submitted_at.toISOString() : '',
+      c.blocking, c.advisory, findings.map(f => `${f.severity}: ${f.checkId}`).join('; '),
+    ].map(v => csvSafe(String(v)))
+  })
   return stringify([ENTRY_CSV_HEADER, ...records])
 }

@@ -1,5 +1,6 @@
 // The pre-event reminder: N days (competition setting reminderDaysBefore, default 14) before
-// the first contest day, one e-mail per submitted or accepted entry listing what is still open.
+// the first contest day, one e-mail per submitted or accepted entry listing what is still open:
+// the check engine's findings (server/utils/findings.ts), with fix hints and cautions.
 // mail_reminders keeps it to exactly once per entry, however often the job runs.
 import type { ReminderRunResult } from '#shared/types/api-mail'
 import { reminderOpenItems } from '#shared/utils/reminder-items'
@@ -10,7 +11,7 @@ const KIND = 'pre-event'
 export async function runReminders(now: Date = new Date()): Promise<ReminderRunResult> {
   const db = useDb()
   // The competition's own calendar day decides, so "14 days before" means the same there.
-  const competitions: { id: string, name: string, first_contest_day: string, last_contest_day: string | null }[] = await db('competitions as c')
+  const competitions: { id: string, name: string, first_contest_day: string }[] = await db('competitions as c')
     .whereNotNull('c.first_contest_day')
     .whereRaw(`(?::timestamptz AT TIME ZONE c.time_zone)::date < c.first_contest_day`, [now.toISOString()])
     .whereRaw(`(?::timestamptz AT TIME ZONE c.time_zone)::date >= c.first_contest_day - (
@@ -19,7 +20,6 @@ export async function runReminders(now: Date = new Date()): Promise<ReminderRunR
     .select(
       'c.id', 'c.name',
       db.raw(`to_char(c.first_contest_day, 'YYYY-MM-DD') as first_contest_day`),
-      db.raw(`to_char(c.last_contest_day, 'YYYY-MM-DD') as last_contest_day`),
     )
 
   const base = publicBaseUrl()
@@ -31,24 +31,15 @@ export async function runReminders(now: Date = new Date()): Promise<ReminderRunR
         .where('e.competition_id', c.id)
         .whereIn('e.status', ['submitted', 'accepted'])
         .whereNotExists(trx('mail_reminders as r').whereRaw('r.entry_id = e.id').where('r.kind', KIND))
-        .select('e.id', 'e.status', 'e.payment_status', 'e.pilot_name', 'e.comp_id', 'u.email')
+        .select('e.id', 'e.status', 'e.pilot_name', 'e.comp_id', 'u.email')
       if (!entries.length) return
-      const units = await trx('units')
-        .whereIn('entry_id', entries.map(e => e.id))
-        .orderBy('created_at')
-        .select('entry_id', 'kind', 'model', 'serial', 'radio_id', 'approval_level', trx.raw(`to_char(firmware_expires_on, 'YYYY-MM-DD') as firmware_expires_on`))
+      const findings = await findingsByEntry(c.id, entries.map(e => e.id as string), trx)
 
       for (const e of entries) {
         // Claim first: a second job running at the same time skips the entry.
         const claimed = await trx('mail_reminders').insert({ entry_id: e.id, kind: KIND }).onConflict(['entry_id', 'kind']).ignore().returning('entry_id')
         if (!claimed.length) continue
-        const openItems = reminderOpenItems(
-          { status: e.status, paymentStatus: e.payment_status ?? null },
-          units.filter(u => u.entry_id === e.id).map(u => ({
-            kind: u.kind, model: u.model, serial: u.serial, radioId: u.radio_id, firmwareExpiresOn: u.firmware_expires_on, approvalLevel: u.approval_level,
-          })),
-          c.last_contest_day,
-        )
+        const openItems = reminderOpenItems({ status: e.status }, findings.get(e.id) ?? [])
         const mail = reminderMail({
           competitionName: c.name,
           firstContestDay: c.first_contest_day,

@@ -7,6 +7,10 @@ export type EntryTableSort = (typeof ENTRY_TABLE_SORTS)[number]
 
 export const ENTRY_TABLE_MAX_PAGE_SIZE = 100
 
+/** The findings filter: every entry, those with a blocking finding, with an advisory one, with none. */
+export const FINDINGS_FILTERS = ['any', 'blocking', 'advisory', 'none'] as const
+export type FindingsFilter = (typeof FINDINGS_FILTERS)[number]
+
 /** Query values arrive as text; an empty value means "not set". */
 const blankToUndefined = (v: unknown) => (v === '' || v === null ? undefined : v)
 
@@ -14,6 +18,7 @@ export const entryTableFilterSchema = z.object({
   class: z.preprocess(blankToUndefined, z.uuid({ error: 'Choose a class from the list.' }).optional()),
   status: z.preprocess(blankToUndefined, z.enum(ENTRY_STATUSES, { error: 'Choose a status from the list.' }).optional()),
   payment: z.preprocess(blankToUndefined, z.enum(PAYMENT_STATUSES, { error: 'Choose a payment state from the list.' }).optional()),
+  findings: z.preprocess(blankToUndefined, z.enum(FINDINGS_FILTERS, { error: 'Filter findings by any, blocking, advisory or none.' }).default('any')),
   q: z.preprocess(blankToUndefined, z.string().trim().max(100, { error: 'Keep the search under 100 characters.' }).optional()),
   sort: z.preprocess(blankToUndefined, z.enum(ENTRY_TABLE_SORTS, { error: 'Sort by one of the table’s columns.' }).default('compId')),
   direction: z.preprocess(blankToUndefined, z.enum(['asc', 'desc'], { error: 'Sort asc or desc.' }).default('asc')),

@@ -4,6 +4,8 @@ import type { Role } from '../constants/roles'
 import type { CompetitionRules } from '../schemas/competition'
 import type { CompetitionClassSummary } from './api'
 import type { EntryProgress } from '../utils/entry-progress'
+import type { Finding } from '../engine/types'
+import type { FindingCounts } from './api-findings'
 
 export interface EntryView {
   id: string
@@ -90,6 +92,8 @@ export interface EntryDossier {
   igcFiles: DossierIgcFile[]
   payments: DossierPayment[]
   progress: EntryProgress
+  /** The check engine's findings, blocking first (shared/engine; server/utils/findings.ts). */
+  findings: Finding[]
   can: EntryPermissions
   /** The caller's roles in the competition (site administrators count as organisers). */
   roles: Role[]
@@ -111,6 +115,8 @@ export interface MyEntrySummary {
   paymentStatus: PaymentStatus
   missing: string[]
   nextStep: string
+  /** How many blocking and advisory findings the check engine raises on the entry. */
+  findings: FindingCounts
 }
 
 export interface OpenCompetition {

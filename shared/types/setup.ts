@@ -1,6 +1,7 @@
 // API response shapes of competition set-up, the firmware catalogue and the staff entries table.
 import type { CompetitionRules } from '../schemas/competition'
 import type { EntryStatus, PaymentStatus } from '../constants/entries'
+import type { FindingCounts } from './api-findings'
 
 export interface SetupClass {
   id: string
@@ -73,6 +74,8 @@ export interface EntryTableRow {
   paymentStatus: PaymentStatus
   paidMinor: number
   submittedAt: string | null
+  /** The check engine's findings on the entry, counted by severity. */
+  findings: FindingCounts
 }
 
 export interface EntryTableResponse {

@@ -1,41 +1,27 @@
-// What a pre-event reminder lists as open on an entry.
+// What a pre-event reminder lists as open on an entry: the decision, then the engine's findings.
 import { describe, expect, it } from 'vitest'
-import { reminderOpenItems, type ReminderUnit } from '../../../shared/utils/reminder-items'
+import { HARDWARE_CAUTION, type Finding } from '../../../shared/engine'
+import { reminderOpenItems } from '../../../shared/utils/reminder-items'
 
-const warner: ReminderUnit = { kind: 'collision-warning', model: 'CW', serial: 'S1', radioId: 'ABC123', firmwareExpiresOn: '2031-12-01', approvalLevel: null }
-const recorder: ReminderUnit = { kind: 'flight-recorder', model: 'FR', serial: 'S2', radioId: null, firmwareExpiresOn: null, approvalLevel: 'all-flights' }
+const expired: Finding = { checkId: 'firmware.valid-through-contest', severity: 'blocking', reason: 'The firmware expires 2031-06-15.', fixHint: 'Update it.', caution: HARDWARE_CAUTION, unitId: 'u1' }
+const soon: Finding = { checkId: 'firmware.expires-soon', severity: 'advisory', reason: 'Another unit expires soon.', fixHint: 'Plan the update.', caution: HARDWARE_CAUTION, unitId: 'u2' }
+const unpaid: Finding = { checkId: 'entry.paid', severity: 'blocking', reason: 'The entry fee is not paid yet.', fixHint: 'Pay it.' }
 
 describe('reminderOpenItems', () => {
-  it('lists nothing for a complete, accepted, paid entry', () => {
-    expect(reminderOpenItems({ status: 'accepted', paymentStatus: 'paid' }, [warner, recorder], '2031-06-20')).toEqual([])
+  it('lists nothing for an accepted entry without findings', () => {
+    expect(reminderOpenItems({ status: 'accepted' }, [])).toEqual([])
   })
 
-  it('names missing units, unpaid fee and a pending decision', () => {
-    expect(reminderOpenItems({ status: 'submitted', paymentStatus: 'unpaid' }, [], '2031-06-20')).toEqual([
+  it('names a pending decision, then each finding with its fix hint', () => {
+    expect(reminderOpenItems({ status: 'submitted' }, [unpaid])).toEqual([
       'The organiser has not accepted your entry yet.',
-      'The entry fee is not paid yet.',
-      'No collision-warning unit is registered on your entry.',
-      'No flight recorder is registered on your entry.',
+      'Blocking: The entry fee is not paid yet. Pay it.',
     ])
   })
 
-  it('flags firmware that expires on or before the last contest day, with the hardware caution', () => {
-    // The expiry date is the first day the unit no longer works (DESIGN.md, common practice).
-    const onLastDay = reminderOpenItems({ status: 'accepted', paymentStatus: 'paid' }, [{ ...warner, firmwareExpiresOn: '2031-06-20' }, recorder], '2031-06-20')
-    expect(onLastDay).toHaveLength(1)
-    expect(onLastDay[0]).toContain('expires on 2031-06-20')
-    expect(onLastDay[0]).toContain('power the unit off before inserting or removing update media')
-    expect(reminderOpenItems({ status: 'accepted', paymentStatus: 'paid' }, [{ ...warner, firmwareExpiresOn: '2031-06-21' }, recorder], '2031-06-20')).toEqual([])
-  })
-
-  it('names missing radio ID, expiry date and approval level', () => {
-    const items = reminderOpenItems({ status: 'accepted', paymentStatus: null },
-      [{ ...warner, radioId: null, firmwareExpiresOn: null }, { ...recorder, approvalLevel: null }, { ...recorder, serial: 'S3', approvalLevel: 'not-approved' }], null)
-    expect(items).toEqual([
-      'CW (serial S1): the radio ID is missing.',
-      'CW (serial S1): the firmware expiry date is missing.',
-      'FR (serial S2): the IGC approval level is missing.',
-      'FR (serial S3): this flight recorder is not IGC-approved.',
-    ])
+  it('gives the hardware caution in full once, and points back to it after', () => {
+    const items = reminderOpenItems({ status: 'accepted' }, [expired, soon])
+    expect(items[0]).toBe(`Blocking: The firmware expires 2031-06-15. Update it. Caution: ${HARDWARE_CAUTION}`)
+    expect(items[1]).toBe('Advisory: Another unit expires soon. Plan the update. Caution: as above.')
   })
 })

@@ -75,13 +75,15 @@ describe('POST /api/admin/reminders/run', () => {
       expect(m.subject).toBe('Reminder: Reminder Cup starts on 10 June 2031')
     }
     const forSubmitted = messages.find(m => m.text.includes('RM1'))!
-    expect(forSubmitted.text).toContain('No collision-warning unit is registered on your entry.')
-    expect(forSubmitted.text).toContain('No flight recorder is registered on your entry.')
+    // The check engine's findings, each with its fix hint.
+    expect(forSubmitted.text).toContain('Blocking: No flight recorder is declared; the competition requires 1 recorder.')
     expect(forSubmitted.text).toContain('The organiser has not accepted your entry yet.')
     expect(forSubmitted.links).toContain(`${baseUrl}/competitions/${competitionId}/entries/${submitted}`)
     const forAccepted = messages.find(m => m.text.includes('RM2'))!
-    expect(forAccepted.text).toContain('CW-1 (serial CW100): the firmware expires on 2031-06-15, before the competition ends.')
-    expect(forAccepted.text).toContain('power the unit off before inserting or removing update media')
+    // firmware.valid-through-contest, with its fix hint and the hardware caution.
+    expect(forAccepted.text).toContain('expires 2031-06-15, the last contest day is 2031-06-20')
+    expect(forAccepted.text).toContain('Update the unit to a firmware release that expires after 2031-06-20')
+    expect(forAccepted.text).toContain('Caution: Power the unit off before inserting or removing update media')
     expect(forAccepted.text).not.toContain('No flight recorder')
 
     // Running again (even later in the window) sends nothing more.

@@ -76,8 +76,10 @@ describe('firmware CSV rows and the entries table query', () => {
     expect(r.error!.issues.map(i => i.message)).toEqual(['That date does not exist.'])
   })
   it('reads query text into sort, paging and filters, blank meaning unset', () => {
-    expect(entryTableQuerySchema.parse({ page: '3', pageSize: '50', status: '', q: ' kes ' })).toEqual({ page: 3, pageSize: 50, sort: 'compId', direction: 'asc', q: 'kes' })
+    expect(entryTableQuerySchema.parse({ page: '3', pageSize: '50', status: '', q: ' kes ' })).toEqual({ page: 3, pageSize: 50, sort: 'compId', direction: 'asc', findings: 'any', q: 'kes' })
     expect(entryTableQuerySchema.safeParse({ pageSize: '101' }).success).toBe(false)
+    expect(entryTableQuerySchema.parse({ findings: 'blocking' }).findings).toBe('blocking')
+    expect(entryTableQuerySchema.safeParse({ findings: 'some' }).success).toBe(false)
   })
 })
 

@@ -137,10 +137,13 @@ describe('GET /api/competitions/:id/entries/export', () => {
     expect(res.headers.get('content-type')).toMatch(/^text\/csv/)
     expect(res.headers.get('content-disposition')).toMatch(/^attachment; filename="setup-table-cup-[a-z0-9]+-entries\.csv"$/)
     const records = parse(res.text) as string[][]
-    expect(records[0]).toEqual(['Competition ID', 'Pilot', 'Co-pilot', 'Nationality', 'Class', 'Glider type', 'Registration', 'Status', 'Payment', 'Paid', 'Currency', 'Submitted at'])
+    expect(records[0]).toEqual(['Competition ID', 'Pilot', 'Co-pilot', 'Nationality', 'Class', 'Glider type', 'Registration', 'Status', 'Payment', 'Paid', 'Currency', 'Submitted at', 'Blocking findings', 'Advisory findings', 'Findings'])
     const expected = entries.filter(e => e.class_id === classIds[2]).sort(byCompId)
     expect(records.slice(1).map(r => r[0])).toEqual(expected.map(e => e.comp_id))
-    expect(records[1]).toEqual([expected[0]!.comp_id, expected[0]!.pilot_name, '', '', '18 Metre', 'Test Glider 15', expected[0]!.registration, expected[0]!.status, expected[0]!.payment_status, '0.00', 'EUR', expected[0]!.submitted_at?.toISOString() ?? ''])
+    expect(records[1]!.slice(0, 12)).toEqual([expected[0]!.comp_id, expected[0]!.pilot_name, '', '', '18 Metre', 'Test Glider 15', expected[0]!.registration, expected[0]!.status, expected[0]!.payment_status, '0.00', 'EUR', expected[0]!.submitted_at?.toISOString() ?? ''])
+    // An entry with no units, documents or payment: blocking findings, named in the last column.
+    expect(Number(records[1]![12])).toBeGreaterThan(0)
+    expect(records[1]![14]).toContain('blocking: recorder.present')
   })
 
   it('defuses cells a spreadsheet would run as formulas', async () => {
