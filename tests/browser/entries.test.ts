@@ -75,6 +75,8 @@ describe('entrant registration in the browser', () => {
       dossierPath = new URL(page.url()).pathname
       await expect(page.getByTestId('entry-status').textContent()).resolves.toContain('Draft')
       await expect(page.getByTestId('missing-list').textContent()).resolves.toContain('Add the collision-warning unit.')
+      // Each missing item leads to where it is put right.
+      expect(await page.getByTestId('missing-list').getByRole('link', { name: 'Add the collision-warning unit.' }).getAttribute('href')).toBe('#units-title')
 
       // Collision-warning unit, with the catalogue's expiry one click away.
       await page.getByRole('button', { name: 'Add a collision-warning unit' }).click()
@@ -117,7 +119,7 @@ describe('entrant registration in the browser', () => {
       await screenshot(page, 'entry-dossier-files-phone')
 
       // The entry fee, by card on the payment service's page, back to "payment received".
-      await page.getByRole('link', { name: /Pay the entry fee/ }).click()
+      await page.getByRole('link', { name: 'Pay the entry fee', exact: true }).click()
       await page.getByTestId('pay-by-card').click()
       await page.waitForURL(url => url.pathname.startsWith('/pay/'))
       await page.getByLabel('Card number').fill('4242 4242 4242 4242')
