@@ -42,6 +42,7 @@ export const ROLE_GUIDE: Record<Role, RoleGuide> = {
       { label: 'Payments', path: '/payments' },
       { label: 'Document review', path: '/documents' },
       { label: 'Firmware catalogue', path: '/firmware' },
+      { label: 'Glider tags', path: '/tags' },
     ],
   },
   director: {
@@ -55,6 +56,7 @@ export const ROLE_GUIDE: Record<Role, RoleGuide> = {
     ],
     links: [
       { label: 'Entries', path: '/entries' },
+      { label: 'Launch grid', path: '/grid' },
     ],
   },
   scrutineer: {
@@ -67,6 +69,7 @@ export const ROLE_GUIDE: Record<Role, RoleGuide> = {
       'Weigh when asked and record the outcome of each grid check.',
     ],
     links: [
+      { label: 'Launch grid', path: '/grid' },
       { label: 'Document review', path: '/documents' },
       { label: 'Entries', path: '/entries' },
       { label: 'Firmware catalogue', path: '/firmware' },

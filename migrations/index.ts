@@ -18,6 +18,8 @@ import * as m20261203000210 from './20261203000210_payments'
 import * as m20261203000300 from './20261203000300_documents'
 import * as m20261203000310 from './20261203000310_igc_files'
 import * as m20261203000500 from './20261203000500_entry_table_indexes'
+import * as m20261204000100 from './20261204000100_tags'
+import * as m20261204000200 from './20261204000200_grid_checks'
 
 type Migration = Knex.Migration
 
@@ -39,6 +41,8 @@ const migrations: Record<string, Migration> = {
   '20261203000300_documents': m20261203000300,
   '20261203000310_igc_files': m20261203000310,
   '20261203000500_entry_table_indexes': m20261203000500,
+  '20261204000100_tags': m20261204000100,
+  '20261204000200_grid_checks': m20261204000200,
 }
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -5,6 +5,8 @@ import { PAYMENTS_MESSAGES } from './messages-payments'
 import { FILES_MESSAGES } from './messages-files'
 import { ENTRIES_MESSAGES } from './messages-entries'
 import { SETUP_MESSAGES } from './messages-setup'
+import { TAGS_MESSAGES } from './messages-tags'
+import { GRID_MESSAGES } from './messages-grid'
 
 export const MESSAGES = {
   invalidInput: 'Some fields need attention.',
@@ -30,4 +32,6 @@ export const MESSAGES = {
   ...FILES_MESSAGES,
   ...ENTRIES_MESSAGES,
   ...SETUP_MESSAGES,
+  ...TAGS_MESSAGES,
+  ...GRID_MESSAGES,
 } as const

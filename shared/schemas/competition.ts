@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { APPROVAL_LEVELS, DOCUMENT_KINDS } from '../constants/entries'
+import { DEFAULT_CHECKLIST } from '../constants/grid'
 
 /** A calendar date as the competition's office writes it: YYYY-MM-DD. */
 export const isoDate = z
@@ -15,6 +16,18 @@ const days = (label: string, min: number, max: number) =>
     .min(min, { error: `The ${label} is at least ${min} day${min === 1 ? '' : 's'}.` })
     .max(max, { error: `The ${label} is at most ${max} days.` })
 
+/** One checklist item of the competition's grid checklist (organiser set-up); the grid checks answer it. */
+export const checklistItemSchema = z.object({
+  id: z.string({ error: 'Give the item an identifier.' }).regex(/^[a-z0-9][a-z0-9-]{0,39}$/, { error: 'An item identifier is lower-case letters, digits and dashes, up to 40.' }),
+  label: z.string({ error: 'Enter what the scrutineer checks.' }).trim().min(1, { error: 'Enter what the scrutineer checks.' }).max(120, { error: 'Keep the item under 120 characters.' }),
+  hint: z.string().trim().max(200, { error: 'Keep the hint under 200 characters.' }).optional(),
+}, { error: 'Each checklist item is an object with an id and a label.' })
+
+export const checklistSchema = z.array(checklistItemSchema)
+  .min(1, { error: 'The checklist needs at least one item.' })
+  .max(20, { error: 'Keep the checklist to 20 items or fewer.' })
+  .refine(items => new Set(items.map(i => i.id)).size === items.length, { error: 'Two checklist items share an identifier.' })
+
 /** Each rule setting without its default, so a change of one rule leaves the others alone. */
 const ruleFields = {
   /** Days the firmware must stay valid after the last contest day (common practice: 0). */
@@ -26,6 +39,8 @@ const ruleFields = {
   requiredDocumentKinds: z.array(z.enum(DOCUMENT_KINDS, { error: 'Choose document kinds from the list.' })),
   recordersRequired: z.union([z.literal(1), z.literal(2)], { error: 'Require one or two flight recorders.' }),
   acceptedApprovalLevels: z.array(z.enum(APPROVAL_LEVELS, { error: 'Choose approval levels from the list.' })).min(1, { error: 'Accept at least one recorder approval level.' }),
+  /** The day's checklist on the launch grid. */
+  gridChecklist: checklistSchema,
 }
 
 /** The rule settings a competition stores in competitions.settings. */
@@ -36,6 +51,7 @@ export const competitionRulesSchema = z.object({
   requiredDocumentKinds: ruleFields.requiredDocumentKinds.default(['airworthiness', 'insurance', 'licence', 'medical']),
   recordersRequired: ruleFields.recordersRequired.default(1),
   acceptedApprovalLevels: ruleFields.acceptedApprovalLevels.default(['all-flights', 'badges-up-to-diamonds']),
+  gridChecklist: ruleFields.gridChecklist.default(() => DEFAULT_CHECKLIST.map(i => ({ ...i }))),
 })
 /** A change to some rules (PATCH): what is left out keeps its stored value. */
 export const competitionRulesPatchSchema = z.object(ruleFields, { error: 'Send the rules as an object.' }).partial().strict()

@@ -1,0 +1,9 @@
+// API messages of grid checks; merged into MESSAGES by messages.ts.
+export const GRID_MESSAGES = {
+  gridEntryOtherCompetition: 'That entry belongs to another competition; scan the glider’s tag again from this competition’s grid page.',
+  gridEntryNotFound: 'No such entry. Scan the glider’s tag again.',
+  gridEntryNotAccepted: 'Only accepted entries are checked on the grid; this one is not accepted.',
+  gridReplayConflict: 'A different grid check was already recorded under this key. Nothing was changed; submit the check again as a new one.',
+  gridUnknownItem: (itemId: string) => `“${itemId}” is not on this competition’s checklist; reload the grid page to get the current checklist.`,
+  gridDayOutOfRange: 'A grid check is for today or a recent day (within 14 days), not for a day in the future.',
+} as const
