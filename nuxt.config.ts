@@ -58,6 +58,8 @@ export default defineNuxtConfig({
     siteUrl: '',
     /** Signs invitation links; empty means the session password. */
     invitationSecret: '',
+    /** Signs glider tags (NUXT_TAG_SECRET); empty means the session password. Changing it invalidates every printed tag. */
+    tagSecret: '',
     mailWorker: {
       intervalMs: 2000,
       batchSize: 10,
