@@ -314,9 +314,7 @@ export async function loadCompetitionDossiers(competitionId: string, scope: Doss
       .orderBy([{ column: 'w.weighed_on' }, { column: 'g.checked_at' }, { column: 'w.created_at' }, { column: 'w.id' }])
       .select('w.id', 'w.entry_id', 'w.units', 'w.readings', db.raw(`to_char(w.weighed_on, 'YYYY-MM-DD') as weighed_on`)) as Promise<FindingsWeighInRow[]>,
     scope.day
-      ? scoped(db('grid_checks').where({ competition_id: competitionId, day: scope.day }))
-          .distinctOn('entry_id')
-          .orderBy([{ column: 'entry_id' }, { column: 'checked_at', order: 'desc' }, { column: 'received_at', order: 'desc' }, { column: 'id', order: 'desc' }])
+      ? scoped(db('grid_checks').whereIn('id', latestGridCheckIds(db, competitionId, scope.day)))
           .select('entry_id', 'outcome', db.raw(`to_char(day, 'YYYY-MM-DD') as day`)) as Promise<FindingsGridCheckRow[]>
       : nothing as Promise<FindingsGridCheckRow[]>,
   ])

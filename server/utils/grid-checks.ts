@@ -190,16 +190,20 @@ export async function dayGridChecks(competitionId: string, day: IsoDate, db: Kne
   return { gridChecks: rows.map(toGridCheckRecord) }
 }
 
+/** A subquery: the id of each entry's latest check of the day (the one that sets its readiness). */
+export function latestGridCheckIds(db: Knex, competitionId: string, day: IsoDate) {
+  return db('grid_checks').where({ competition_id: competitionId, day })
+    .distinctOn('entry_id')
+    .orderBy([{ column: 'entry_id' }, { column: 'checked_at', order: 'desc' }, { column: 'received_at', order: 'desc' }, { column: 'id', order: 'desc' }])
+    .select('id')
+}
+
 /**
  * The latest check of each entry on a day (by checked_at, the phone's time of checking, so a
  * check queued offline and received later does not override a newer one): by entry id.
  */
 export async function latestGridChecks(competitionId: string, day: IsoDate, db: Knex = useDb()): Promise<Map<string, GridCheckRecord>> {
-  const latest = db('grid_checks').where({ competition_id: competitionId, day })
-    .distinctOn('entry_id')
-    .orderBy([{ column: 'entry_id' }, { column: 'checked_at', order: 'desc' }, { column: 'received_at', order: 'desc' }, { column: 'id', order: 'desc' }])
-    .select('id')
-  const rows = await gridCheckQuery(db).whereIn('g.id', latest) as GridCheckJoinedRow[]
+  const rows = await gridCheckQuery(db).whereIn('g.id', latestGridCheckIds(db, competitionId, day)) as GridCheckJoinedRow[]
   return new Map(rows.map(r => [r.entry_id, toGridCheckRecord(r)]))
 }
 
