@@ -1,10 +1,11 @@
 // Findings: the check engine (shared/engine) run over dossiers read from the database.
 // A few set-based queries per competition — entries with their class, units, current
 // documents, current IGC files, the competition with its classes and firmware catalogue —
-// then pure row → engine mappings, the field of every entry, and evaluateAll.
-// Weigh-ins and grid checks have no tables yet, so dossiers carry none.
+// weigh-ins and, for a day, that day's latest grid check — then pure row → engine mappings,
+// the field of every entry, and evaluate. `loadCompetitionDossiers` is the loader both the
+// findings routes and the grid pack read through.
 import type { Knex } from 'knex'
-import { blockingFirst, buildField, evaluate, type ClassLimit, type CompetitionForEngine, type Dossier, type EngineDocument, type EngineEntry, type EngineIgcFile, type EngineUnit, type Finding, type FirmwareRelease } from '#shared/engine'
+import { blockingFirst, buildField, evaluate, type ClassLimit, type CompetitionForEngine, type Dossier, type EngineDocument, type EngineEntry, type EngineIgcFile, type EngineUnit, type Field, type Finding, type FirmwareRelease, type GridCheck, type IsoDate, type ScaleReading, type WeighInRecord, type WeighUnits } from '#shared/engine'
 import type { CompetitionFindings, EntryFindings, FindingCounts } from '#shared/types/api-findings'
 import type { EntryStatus, PaymentStatus } from '#shared/constants/entries'
 import { rulesOf } from './competition-setup'
@@ -71,6 +72,21 @@ export interface FindingsCompetitionRow {
   first_contest_day: string | null
   last_contest_day: string | null
   settings: Record<string, unknown> | null
+}
+
+export interface FindingsWeighInRow {
+  id: string
+  entry_id: string
+  weighed_on: string
+  units: WeighUnits
+  readings: ScaleReading[]
+}
+
+/** The latest grid check of an entry on the evaluated day. */
+export interface FindingsGridCheckRow {
+  entry_id: string
+  day: string
+  outcome: 'pass' | 'fail'
 }
 
 export interface FindingsClassRow {
@@ -180,8 +196,22 @@ export function toEngineCompetition(c: FindingsCompetitionRow, classes: Findings
   }
 }
 
-/** One dossier per entry row, from the rows of its units, documents and IGC files. */
-export function toDossiers(entries: FindingsEntryRow[], units: FindingsUnitRow[], documents: FindingsDocumentRow[], igcFiles: FindingsIgcRow[]): Dossier[] {
+export function toWeighInRecord(r: FindingsWeighInRow): WeighInRecord {
+  return { id: r.id, weighedOn: r.weighed_on, units: r.units, readings: r.readings.map(x => ({ point: x.point, weight: Number(x.weight), arm: Number(x.arm) })) }
+}
+
+/**
+ * One dossier per entry row, from the rows of its units, documents, IGC files, weigh-ins (in
+ * the order the engine reads them: the last of a day counts) and the day's latest grid check.
+ */
+export function toDossiers(
+  entries: FindingsEntryRow[],
+  units: FindingsUnitRow[],
+  documents: FindingsDocumentRow[],
+  igcFiles: FindingsIgcRow[],
+  weighIns: FindingsWeighInRow[] = [],
+  gridChecks: FindingsGridCheckRow[] = [],
+): Dossier[] {
   const byEntry = new Map<string, Dossier>()
   const out: Dossier[] = []
   for (const r of entries) {
@@ -194,6 +224,11 @@ export function toDossiers(entries: FindingsEntryRow[], units: FindingsUnitRow[]
   for (const f of igcFiles) {
     const file = toEngineIgcFile(f)
     if (file) byEntry.get(f.entry_id)?.igcFiles.push(file)
+  }
+  for (const w of weighIns) byEntry.get(w.entry_id)?.weighIns.push(toWeighInRecord(w))
+  for (const g of gridChecks) {
+    const d = byEntry.get(g.entry_id)
+    if (d) d.gridCheck = { day: g.day, outcome: g.outcome } satisfies GridCheck
   }
   return out
 }
@@ -212,22 +247,46 @@ export interface EvaluatedEntry {
   findings: Finding[]
 }
 
+export interface DossierScope {
+  /** Only these entries' dossiers (the field still holds every entry). */
+  entryIds?: readonly string[]
+  /** Only accepted entries' dossiers (the grid). */
+  acceptedOnly?: boolean
+  /** The contest day: dossiers carry that day's latest grid check. */
+  day?: IsoDate
+}
+
+export interface CompetitionDossiers {
+  competitionRow: FindingsCompetitionRow & { name: string }
+  /** Null while the competition has no contest days (nothing to check dates against). */
+  competition: CompetitionForEngine | null
+  /** The dossiers in scope, in competition-ID order. */
+  dossiers: Dossier[]
+  /** Every entry of the competition, for the uniqueness checks. */
+  field: Field
+  /** The entry rows of the dossiers in scope, in the same order. */
+  rows: FindingsEntryRow[]
+}
+
 /**
- * Evaluates the entries of one competition: every entry, or only `entryIds` (the field
- * still holds every entry, so uniqueness checks see the whole competition). Documents and
- * IGC files are read only for the entries evaluated. Entries in the order of their
- * competition ID.
+ * Reads the dossiers of one competition in a few set-based queries. Documents, IGC files,
+ * weigh-ins and grid checks are read only for the entries in scope; entries and units for
+ * all, so the field sees the whole competition. Undefined when there is no such competition.
  */
-export async function evaluateCompetition(competitionId: string, entryIds?: readonly string[], db: Knex = useDb()): Promise<EvaluatedEntry[]> {
-  const only = entryIds ? [...entryIds] : null
-  if (only && !only.length) return []
-  const scoped = (q: Knex.QueryBuilder) => (only ? q.whereIn('entry_id', only) : q)
-  const [competition, classes, firmware, entries, units, documents, igcFiles] = await Promise.all([
+export async function loadCompetitionDossiers(competitionId: string, scope: DossierScope = {}, db: Knex = useDb()): Promise<CompetitionDossiers | undefined> {
+  const only = scope.entryIds ? [...scope.entryIds] : null
+  const scoped = (q: Knex.QueryBuilder, column = 'entry_id') => {
+    if (only) q.whereIn(column, only)
+    if (scope.acceptedOnly) q.whereIn(column, db('entries').where({ competition_id: competitionId, status: 'accepted' }).select('id'))
+    return q
+  }
+  const nothing = Promise.resolve([])
+  const [competition, classes, firmware, entries, units, documents, igcFiles, weighIns, gridChecks] = await Promise.all([
     db('competitions').where({ id: competitionId }).first(
-      'time_zone', 'settings',
+      'name', 'time_zone', 'settings',
       db.raw(`to_char(first_contest_day, 'YYYY-MM-DD') as first_contest_day`),
       db.raw(`to_char(last_contest_day, 'YYYY-MM-DD') as last_contest_day`),
-    ) as Promise<FindingsCompetitionRow | undefined>,
+    ) as Promise<(FindingsCompetitionRow & { name: string }) | undefined>,
     db('classes').where({ competition_id: competitionId }).select('id', 'code', 'max_mtom_kg') as Promise<FindingsClassRow[]>,
     db('firmware_releases').where({ competition_id: competitionId }).select('unit_family', 'version', db.raw(`to_char(expires_on, 'YYYY-MM-DD') as expires_on`)) as Promise<FindingsFirmwareRow[]>,
     db('entries as e').join('classes as k', 'k.id', 'e.class_id').where('e.competition_id', competitionId)
@@ -249,20 +308,42 @@ export async function evaluateCompetition(competitionId: string, entryIds?: read
       'id', 'entry_id', 'unit_id', 'pilot', 'copilot', 'glider_type', 'glider_id', 'declared_comp_id', 'declared_class', 'has_g_record', 'uploaded_at',
       db.raw(`to_char(flight_date, 'YYYY-MM-DD') as flight_date`),
     ) as Promise<FindingsIgcRow[]>,
+    // Within a day the engine takes the last weigh-in it is given: order by the time of the
+    // grid check it came with, so the later check's weighing counts.
+    scoped(db('weigh_ins as w').leftJoin('grid_checks as g', 'g.id', 'w.grid_check_id').where('w.competition_id', competitionId), 'w.entry_id')
+      .orderBy([{ column: 'w.weighed_on' }, { column: 'g.checked_at' }, { column: 'w.created_at' }, { column: 'w.id' }])
+      .select('w.id', 'w.entry_id', 'w.units', 'w.readings', db.raw(`to_char(w.weighed_on, 'YYYY-MM-DD') as weighed_on`)) as Promise<FindingsWeighInRow[]>,
+    scope.day
+      ? scoped(db('grid_checks').whereIn('id', latestGridCheckIds(db, competitionId, scope.day)))
+          .select('entry_id', 'outcome', db.raw(`to_char(day, 'YYYY-MM-DD') as day`)) as Promise<FindingsGridCheckRow[]>
+      : nothing as Promise<FindingsGridCheckRow[]>,
   ])
-  if (!competition) return []
-  const engineCompetition = toEngineCompetition(competition, classes, firmware)
-  const dossiers = toDossiers(entries, units, documents, igcFiles)
+  if (!competition) return undefined
+  const all = toDossiers(entries, units, documents, igcFiles, weighIns, gridChecks)
+  const field = buildField(all)
   const wanted = only ? new Set(only) : null
-  const rows = new Map(entries.map(r => [r.id, r]))
-  const field = buildField(dossiers)
-  const out: EvaluatedEntry[] = []
-  for (const d of dossiers) {
-    if (wanted && !wanted.has(d.entry.id)) continue
-    const findings = engineCompetition ? blockingFirst(evaluate(d, engineCompetition, field)) : []
-    out.push({ row: rows.get(d.entry.id)!, findings })
-  }
-  return out
+  const inScope = (r: FindingsEntryRow) => (!wanted || wanted.has(r.id)) && (!scope.acceptedOnly || r.status === 'accepted')
+  const dossiers: Dossier[] = []
+  const rows: FindingsEntryRow[] = []
+  entries.forEach((r, i) => {
+    if (!inScope(r)) return
+    rows.push(r)
+    dossiers.push(all[i]!)
+  })
+  return { competitionRow: competition, competition: toEngineCompetition(competition, classes, firmware), dossiers, field, rows }
+}
+
+/**
+ * Evaluates the entries of one competition: every entry, or only `entryIds` (the field
+ * still holds every entry, so uniqueness checks see the whole competition). Entries in the
+ * order of their competition ID.
+ */
+export async function evaluateCompetition(competitionId: string, entryIds?: readonly string[], db: Knex = useDb()): Promise<EvaluatedEntry[]> {
+  if (entryIds && !entryIds.length) return []
+  const loaded = await loadCompetitionDossiers(competitionId, { entryIds }, db)
+  if (!loaded) return []
+  const { competition, dossiers, field, rows } = loaded
+  return dossiers.map((d, i) => ({ row: rows[i]!, findings: competition ? blockingFirst(evaluate(d, competition, field)) : [] }))
 }
 
 /** The findings of one entry (blocking first). */

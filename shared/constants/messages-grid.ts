@@ -5,5 +5,6 @@ export const GRID_MESSAGES = {
   gridEntryNotAccepted: 'Only accepted entries are checked on the grid; this one is not accepted.',
   gridReplayConflict: 'A different grid check was already recorded under this key. Nothing was changed; submit the check again as a new one.',
   gridUnknownItem: (itemId: string) => `“${itemId}” is not on this competition’s checklist; reload the grid page to get the current checklist.`,
+  gridDuplicateItem: (itemId: string) => `“${itemId}” is answered twice; answer each checklist item once.`,
   gridDayOutOfRange: 'A grid check is for today or a recent day (within 14 days), not for a day in the future.',
 } as const

@@ -4,8 +4,8 @@ import { describe, expect, it } from 'vitest'
 import { DEFAULT_RULES } from '../../../shared/schemas/competition'
 import { buildField, evaluate } from '../../../shared/engine'
 import {
-  classKey, countFindings, toDossiers, toEngineCompetition, toEngineIgcFile, toEngineUnit,
-  type FindingsEntryRow, type FindingsIgcRow, type FindingsUnitRow,
+  classKey, countFindings, toDossiers, toEngineCompetition, toEngineIgcFile, toEngineUnit, toWeighInRecord,
+  type FindingsEntryRow, type FindingsIgcRow, type FindingsUnitRow, type FindingsWeighInRow,
 } from '../../../server/utils/findings'
 
 const entry = (over: Partial<FindingsEntryRow> = {}): FindingsEntryRow => ({
@@ -69,6 +69,25 @@ describe('row → engine mappings', () => {
     )
     expect(dossiers.map(d => [d.entry.id, d.units.length, d.documents.length, d.igcFiles.length])).toEqual([['e1', 2, 0, 1], ['e2', 1, 1, 0]])
   })
+
+  it('gives each entry its weigh-ins in the order read, readings as numbers, and the day’s grid check', () => {
+    const weighed = (over: Partial<FindingsWeighInRow>): FindingsWeighInRow => ({
+      id: 'w1', entry_id: 'e1', weighed_on: '2027-07-11', units: 'kg-m', readings: [{ point: 'main-wheel', weight: 500, arm: 0.1 }], ...over,
+    })
+    // jsonb keeps numbers, but a reading typed by hand elsewhere may arrive as text.
+    const fromText = weighed({ id: 'w2', weighed_on: '2027-07-12', readings: [{ point: 'tail-skid', weight: '30.5' as unknown as number, arm: '4.2' as unknown as number }] })
+    const dossiers = toDossiers(
+      [entry(), entry({ id: 'e2', comp_id: 'T3' })], [], [], [],
+      [weighed({}), fromText, weighed({ id: 'w3', entry_id: 'e2' })],
+      [{ entry_id: 'e2', day: '2027-07-12', outcome: 'fail' }],
+    )
+    expect(dossiers[0]!.weighIns.map(w => w.id)).toEqual(['w1', 'w2'])
+    expect(dossiers[0]!.weighIns[1]).toEqual({ id: 'w2', weighedOn: '2027-07-12', units: 'kg-m', readings: [{ point: 'tail-skid', weight: 30.5, arm: 4.2 }] })
+    expect(dossiers[0]!.gridCheck).toBeUndefined()
+    expect(dossiers[1]!.weighIns.map(w => w.id)).toEqual(['w3'])
+    expect(dossiers[1]!.gridCheck).toEqual({ day: '2027-07-12', outcome: 'fail' })
+    expect(toWeighInRecord(weighed({})).readings).toEqual([{ point: 'main-wheel', weight: 500, arm: 0.1 }])
+  })
 })
 
 describe('the engine over mapped rows', () => {
@@ -82,6 +101,17 @@ describe('the engine over mapped rows', () => {
     expect(found[0]!.caution).toContain('Power the unit off')
     const after = rows('2027-10-31')
     expect(evaluate(after[0]!, competition, buildField(after)).map(f => f.checkId)).not.toContain('firmware.valid-through-contest')
+  })
+
+  it('raises mass.class-limit from the weigh-in of the evaluated day or before, not a later one', () => {
+    // Standard class 525 kg (FAI Sporting Code Section 3 Annex A, from memory): 540 kg is over, 500 kg is not.
+    const heavy: FindingsWeighInRow = { id: 'w9', entry_id: 'e1', weighed_on: '2027-07-12', units: 'kg-m', readings: [{ point: 'main-wheel', weight: 505, arm: 0.1 }, { point: 'tail-wheel', weight: 35, arm: 4.4 }] }
+    const light: FindingsWeighInRow = { ...heavy, id: 'w8', weighed_on: '2027-07-11', readings: [{ point: 'main-wheel', weight: 500, arm: 0.1 }] }
+    const ds = toDossiers([entry()], [warner(), recorder], [], [igc()], [light, heavy])
+    const ids = (day?: string) => evaluate(ds[0]!, competition, buildField(ds), day).map(f => f.checkId)
+    expect(ids('2027-07-11')).not.toContain('mass.class-limit')
+    expect(ids('2027-07-12')).toContain('mass.class-limit')
+    expect(ids()).toContain('mass.class-limit')
   })
 
   it('counts findings by severity', () => {

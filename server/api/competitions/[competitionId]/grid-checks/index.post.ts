@@ -1,0 +1,14 @@
+// POST /api/competitions/:competitionId/grid-checks — scrutineer, director or organiser (a site
+// admin only where they hold one). Records a grid check: 201 {gridCheck, replayed:false}; the same key and body again → 200 replayed.
+import { competitionParamsSchema } from '#shared/schemas/params'
+import { gridCheckBodySchema } from '#shared/schemas/grid'
+import type { GridCheckResult } from '#shared/types/api-grid'
+
+export default defineApiHandler(async (event): Promise<GridCheckResult> => {
+  const { competitionId } = await validParams(event, competitionParamsSchema)
+  const body = await validBody(event, gridCheckBodySchema)
+  const { user, competition } = await requireGridRecorder(event, competitionId)
+  const result = await recordGridCheck(competition, user, body)
+  setResponseStatus(event, result.replayed ? 200 : 201)
+  return result
+})

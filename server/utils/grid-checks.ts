@@ -1,0 +1,332 @@
+// Grid checks: a scrutineer's record of one entry on one contest day, with the weigh-in taken
+// with it. Recording is idempotent — a phone that lost signal sends its queued check again
+// under the same key and gets the stored one back — and runs in one transaction: the check,
+// its weigh-in, the engine's findings including that weigh-in, the readiness, the audit row.
+// Two scrutineers on one entry both get a row; the later check (by checked_at) counts.
+import { createHash } from 'node:crypto'
+import type { Knex } from 'knex'
+import type { H3Event } from 'h3'
+import { addDays, blockingFirst, dateInZone, evaluate, readiness, weighIn, type DirectorAction, type Finding, type IsoDate, type Readiness } from '#shared/engine'
+import type { ChecklistItem } from '#shared/constants/grid'
+import { STAFF_ROLES } from '#shared/constants/roles'
+import { MESSAGES } from '#shared/constants/messages'
+import type { GridCheckBody } from '#shared/schemas/grid'
+import type { ChecklistAnswer, GridCheckList, GridCheckRecord, GridCheckResult, GridCheckSummary } from '#shared/types/api-grid'
+import type { GridCheckRow, WeighInRow } from '#shared/types/rows-grid'
+import type { CompetitionRow } from '#shared/types/rows'
+import type { User } from '#auth-utils'
+import { rulesOf } from './competition-setup'
+import type { CompetitionAccess } from './authz'
+
+/** A grid check is for today, tomorrow (a phone ahead of midnight), or up to 14 days back. */
+export const GRID_DAYS_BACK = 14
+export const GRID_DAYS_AHEAD = 1
+
+// ---------------------------------------------------------------------------------------
+// Pure parts
+
+/** Keys sorted at every level, undefined left out: the same value always gives the same text. */
+export function canonicalJson(value: unknown): string {
+  if (Array.isArray(value)) return `[${value.map(canonicalJson).join(',')}]`
+  if (value && typeof value === 'object') {
+    const entries = Object.entries(value as Record<string, unknown>)
+      .filter(([, v]) => v !== undefined)
+      .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))
+    return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${canonicalJson(v)}`).join(',')}}`
+  }
+  return JSON.stringify(value)
+}
+
+/**
+ * The fingerprint a replay is compared by: the parsed body with its optional parts filled in
+ * (a missing note and an empty one are the same check), the time of the check as an instant,
+ * the competition and the scrutineer who sent it.
+ */
+export function gridCheckBodySha256(body: GridCheckBody, competitionId: string, scrutineerId: string): string {
+  const normal = {
+    competitionId,
+    scrutineerId,
+    idempotencyKey: body.idempotencyKey.toLowerCase(),
+    entryId: body.entryId.toLowerCase(),
+    day: body.day,
+    checkedAt: new Date(body.checkedAt).toISOString(),
+    answers: body.answers.map(a => ({ itemId: a.itemId, result: a.result, note: a.note ?? '' })),
+    weighIn: body.weighIn ?? null,
+    notes: body.notes ?? '',
+    foundBy: body.foundBy ?? null,
+  }
+  return createHash('sha256').update(canonicalJson(normal)).digest('hex')
+}
+
+/** A check fails when any item of the checklist failed. */
+export function checkOutcome(answers: readonly { result: string }[]): 'pass' | 'fail' {
+  return answers.some(a => a.result === 'fail') ? 'fail' : 'pass'
+}
+
+export type AnswerProblem = { kind: 'unknown', itemId: string } | { kind: 'duplicate', itemId: string }
+
+/**
+ * The answers as stored: every item of the checklist in its order, with its label of today;
+ * an item not answered is 'not-checked'. A problem when an answer names no item of the
+ * checklist, or one item twice.
+ */
+export function storedAnswers(checklist: readonly ChecklistItem[], answers: GridCheckBody['answers']): { answers: ChecklistAnswer[] } | { problem: AnswerProblem } {
+  const known = new Set(checklist.map(i => i.id))
+  const given = new Map<string, GridCheckBody['answers'][number]>()
+  for (const a of answers) {
+    if (!known.has(a.itemId)) return { problem: { kind: 'unknown', itemId: a.itemId } }
+    if (given.has(a.itemId)) return { problem: { kind: 'duplicate', itemId: a.itemId } }
+    given.set(a.itemId, a)
+  }
+  return {
+    answers: checklist.map((item) => {
+      const a = given.get(item.id)
+      return { itemId: item.id, label: item.label, result: a?.result ?? 'not-checked', note: a?.note ?? '' }
+    }),
+  }
+}
+
+/** Whether a check may be recorded for this day, given today in the competition's time zone. */
+export function gridDayAllowed(day: IsoDate, today: IsoDate): boolean {
+  return day >= addDays(today, -GRID_DAYS_BACK) && day <= addDays(today, GRID_DAYS_AHEAD)
+}
+
+/** "Sam Scrutineer" → "SS"; one name gives one letter. */
+export function initialsOf(name: string): string {
+  const words = name.trim().split(/\s+/).filter(Boolean)
+  if (!words.length) return '?'
+  const first = words[0]![0]!
+  const last = words.length > 1 ? words[words.length - 1]![0]! : ''
+  return (first + last).toUpperCase()
+}
+
+/** The competition's calendar date now. */
+export function todayIn(timeZone: string, now: Date = new Date()): IsoDate {
+  return dateInZone(now, timeZone)
+}
+
+/** A grid check joined with its entry, scrutineer and weigh-in, as `gridCheckQuery` selects it. */
+export interface GridCheckJoinedRow extends Omit<GridCheckRow, 'checked_at' | 'received_at'> {
+  checked_at: Date | string
+  received_at: Date | string
+  comp_id: string
+  scrutineer_name: string
+  weigh_units: WeighInRow['units'] | null
+  weigh_readings: WeighInRow['readings'] | null
+  weigh_mass_kg: string | number | null
+  weigh_cg_arm_m: string | number | null
+}
+
+const iso = (v: Date | string) => (v instanceof Date ? v.toISOString() : new Date(v).toISOString())
+
+export function toGridCheckRecord(r: GridCheckJoinedRow): GridCheckRecord {
+  return {
+    id: r.id,
+    competitionId: r.competition_id,
+    entryId: r.entry_id,
+    compId: r.comp_id,
+    day: r.day,
+    checkedAt: iso(r.checked_at),
+    receivedAt: iso(r.received_at),
+    scrutineer: { id: r.scrutineer_id, name: r.scrutineer_name, initials: initialsOf(r.scrutineer_name) },
+    answers: r.answers,
+    weighIn: r.weigh_units && r.weigh_readings
+      ? {
+          units: r.weigh_units,
+          readings: r.weigh_readings,
+          massKg: Number(r.weigh_mass_kg),
+          cgArmM: r.weigh_cg_arm_m === null ? null : Number(r.weigh_cg_arm_m),
+        }
+      : null,
+    notes: r.notes,
+    outcome: r.outcome,
+    readiness: r.readiness,
+    findings: r.findings,
+    foundBy: r.found_by,
+    idempotencyKey: r.idempotency_key,
+  }
+}
+
+export function toGridCheckSummary(c: GridCheckRecord): GridCheckSummary {
+  return {
+    id: c.id,
+    checkedAt: c.checkedAt,
+    scrutineerName: c.scrutineer.name,
+    scrutineerInitials: c.scrutineer.initials,
+    outcome: c.outcome,
+    readiness: c.readiness,
+  }
+}
+
+// ---------------------------------------------------------------------------------------
+// Reading
+
+function gridCheckQuery(db: Knex) {
+  return db('grid_checks as g')
+    .join('entries as e', 'e.id', 'g.entry_id')
+    .join('users as u', 'u.id', 'g.scrutineer_id')
+    .leftJoin('weigh_ins as w', 'w.grid_check_id', 'g.id')
+    .select(
+      'g.id', 'g.competition_id', 'g.entry_id', 'g.idempotency_key', 'g.body_sha256', 'g.scrutineer_id', 'g.checked_at', 'g.received_at',
+      'g.answers', 'g.notes', 'g.outcome', 'g.readiness', 'g.findings', 'g.found_by',
+      db.raw(`to_char(g.day, 'YYYY-MM-DD') as day`),
+      'e.comp_id', 'u.name as scrutineer_name',
+      'w.units as weigh_units', 'w.readings as weigh_readings', 'w.mass_kg as weigh_mass_kg', 'w.cg_arm_m as weigh_cg_arm_m',
+    )
+}
+
+const newestFirst = [{ column: 'g.checked_at', order: 'desc' }, { column: 'g.received_at', order: 'desc' }, { column: 'g.id', order: 'desc' }] as const
+
+/** An entry's checks, newest day and newest check first. */
+export async function entryGridChecks(competitionId: string, entryId: string, db: Knex = useDb()): Promise<GridCheckList> {
+  const rows = await gridCheckQuery(db).where({ 'g.competition_id': competitionId, 'g.entry_id': entryId })
+    .orderBy([{ column: 'g.day', order: 'desc' }, ...newestFirst]) as GridCheckJoinedRow[]
+  return { gridChecks: rows.map(toGridCheckRecord) }
+}
+
+/** Every check of one day in a competition, newest first. */
+export async function dayGridChecks(competitionId: string, day: IsoDate, db: Knex = useDb()): Promise<GridCheckList> {
+  const rows = await gridCheckQuery(db).where({ 'g.competition_id': competitionId, 'g.day': day }).orderBy([...newestFirst]) as GridCheckJoinedRow[]
+  return { gridChecks: rows.map(toGridCheckRecord) }
+}
+
+/** A subquery: the id of each entry's latest check of the day (the one that sets its readiness). */
+export function latestGridCheckIds(db: Knex, competitionId: string, day: IsoDate) {
+  return db('grid_checks').where({ competition_id: competitionId, day })
+    .distinctOn('entry_id')
+    .orderBy([{ column: 'entry_id' }, { column: 'checked_at', order: 'desc' }, { column: 'received_at', order: 'desc' }, { column: 'id', order: 'desc' }])
+    .select('id')
+}
+
+/**
+ * The latest check of each entry on a day (by checked_at, the phone's time of checking, so a
+ * check queued offline and received later does not override a newer one): by entry id.
+ */
+export async function latestGridChecks(competitionId: string, day: IsoDate, db: Knex = useDb()): Promise<Map<string, GridCheckRecord>> {
+  const rows = await gridCheckQuery(db).whereIn('g.id', latestGridCheckIds(db, competitionId, day)) as GridCheckJoinedRow[]
+  return new Map(rows.map(r => [r.entry_id, toGridCheckRecord(r)]))
+}
+
+async function gridCheckById(db: Knex, id: string): Promise<GridCheckRecord> {
+  const row = await gridCheckQuery(db).where('g.id', id).first() as GridCheckJoinedRow
+  return toGridCheckRecord(row)
+}
+
+// ---------------------------------------------------------------------------------------
+// Recording
+
+/**
+ * Who may record a grid check: a scrutineer, director or organiser of the competition. A site
+ * administrator records only where they hold one of those roles themselves.
+ */
+export async function requireGridRecorder(event: H3Event, competitionId: string): Promise<CompetitionAccess> {
+  const access = await requireRole(event, competitionId, STAFF_ROLES)
+  if (access.user.isAdmin) {
+    const held = await rolesInCompetition(access.user.id, competitionId)
+    if (!held.some(r => STAFF_ROLES.includes(r))) throw httpError(403, MESSAGES.roleRequired('scrutineer, contest director or organiser'))
+  }
+  return access
+}
+
+/** A 400 with one field's message, shaped like a zod failure so the phone shows it beside the field. */
+function fieldError(field: string, message: string) {
+  return httpError(400, `${MESSAGES.invalidInput} ${message}`, { fieldErrors: { [field]: [message] }, formErrors: [] })
+}
+
+/**
+ * The director's holds, releases and waivers of the day for an entry. Seam for the board:
+ * until its table exists there are none, so readiness comes from findings and the check.
+ */
+async function directorActionsOf(_trx: Knex, _competitionId: string, _entryId: string, _day: IsoDate): Promise<DirectorAction[]> {
+  return []
+}
+
+export async function recordGridCheck(
+  competition: CompetitionRow,
+  user: User,
+  body: GridCheckBody,
+  now: Date = new Date(),
+): Promise<GridCheckResult> {
+  const sha = gridCheckBodySha256(body, competition.id, user.id)
+  return useDb().transaction(async (trx) => {
+    // One sender at a time per key: a second copy of the check waits here, then finds the first.
+    await trx.raw('select pg_advisory_xact_lock(hashtext(?))', [`gridmark:grid-check:${body.idempotencyKey.toLowerCase()}`])
+    const earlier = await trx('grid_checks').where({ idempotency_key: body.idempotencyKey }).first('id', 'body_sha256')
+    if (earlier) {
+      if (earlier.body_sha256 !== sha) throw httpError(409, MESSAGES.gridReplayConflict)
+      return { gridCheck: await gridCheckById(trx, earlier.id), replayed: true }
+    }
+
+    const entry = await trx('entries').where({ id: body.entryId }).first('id', 'competition_id', 'status')
+    if (!entry) throw httpError(404, MESSAGES.gridEntryNotFound)
+    if (entry.competition_id !== competition.id) throw httpError(403, MESSAGES.gridEntryOtherCompetition)
+    if (entry.status !== 'accepted') throw httpError(409, MESSAGES.gridEntryNotAccepted)
+    if (!gridDayAllowed(body.day, todayIn(competition.time_zone, now))) throw fieldError('day', MESSAGES.gridDayOutOfRange)
+
+    const stored = storedAnswers(rulesOf(competition.settings).gridChecklist, body.answers)
+    if ('problem' in stored) {
+      const { kind, itemId } = stored.problem
+      throw fieldError('answers', kind === 'unknown' ? MESSAGES.gridUnknownItem(itemId) : MESSAGES.gridDuplicateItem(itemId))
+    }
+    const outcome = checkOutcome(stored.answers)
+    const weighed = body.weighIn ? weighIn(body.weighIn.readings, body.weighIn.units) : null
+
+    // The engine over the dossier as it stands, with this check's weigh-in as the day's last.
+    const loaded = await loadCompetitionDossiers(competition.id, { entryIds: [entry.id], day: body.day }, trx)
+    const dossier = loaded?.dossiers[0]
+    let findings: Finding[] = []
+    if (loaded?.competition && dossier) {
+      if (body.weighIn) dossier.weighIns.push({ weighedOn: body.day, units: body.weighIn.units, readings: body.weighIn.readings })
+      findings = blockingFirst(evaluate(dossier, loaded.competition, loaded.field, body.day))
+    }
+    const actions = await directorActionsOf(trx, competition.id, entry.id, body.day)
+    const ready: Readiness = readiness(findings, { day: body.day, outcome }, actions, body.day)
+
+    const [row] = await trx('grid_checks').insert({
+      competition_id: competition.id,
+      entry_id: entry.id,
+      day: body.day,
+      idempotency_key: body.idempotencyKey,
+      body_sha256: sha,
+      scrutineer_id: user.id,
+      checked_at: body.checkedAt,
+      answers: JSON.stringify(stored.answers),
+      notes: body.notes ?? '',
+      outcome,
+      readiness: ready,
+      findings: JSON.stringify(findings),
+      found_by: body.foundBy ?? null,
+    }).returning('id')
+    const gridCheckId = row.id as string
+    if (body.weighIn && weighed) {
+      await trx('weigh_ins').insert({
+        competition_id: competition.id,
+        entry_id: entry.id,
+        grid_check_id: gridCheckId,
+        weighed_on: body.day,
+        units: body.weighIn.units,
+        readings: JSON.stringify(body.weighIn.readings),
+        mass_kg: Math.round(weighed.massKg * 100) / 100,
+        cg_arm_m: weighed.cgArmM === null ? null : Math.round(weighed.cgArmM * 10_000) / 10_000,
+        weighed_by: user.id,
+      })
+    }
+    await audit(trx, {
+      actorUserId: user.id,
+      competitionId: competition.id,
+      action: 'grid-check.recorded',
+      subjectType: 'grid_check',
+      subjectId: gridCheckId,
+      details: {
+        entryId: entry.id,
+        day: body.day,
+        outcome,
+        readiness: ready,
+        blocking: findings.filter(f => f.severity === 'blocking').map(f => f.checkId),
+        massKg: weighed ? Math.round(weighed.massKg * 100) / 100 : null,
+        idempotencyKey: body.idempotencyKey,
+      },
+    })
+    return { gridCheck: await gridCheckById(trx, gridCheckId), replayed: false }
+  })
+}
