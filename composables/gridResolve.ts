@@ -48,7 +48,7 @@ function fromPack(pack: GridPack | null, find: (p: GridPack) => Promise<{ dossie
 }
 
 /** A decoded QR text: a /t/<token> URL on any origin, or a bare token. */
-export async function resolveScannedText(competitionId: string, text: string, pack: GridPack | null, online: boolean): Promise<GridResolution> {
+export async function resolveGridScan(competitionId: string, text: string, pack: GridPack | null, online: boolean): Promise<GridResolution> {
   const token = tagTokenOf(text)
   if (!token) return { ok: false, kind: 'not-a-tag', message: GRID_UI_MESSAGES.notATag }
   const offline = fromPack(pack, p => packEntryByToken(p, token), GRID_UI_MESSAGES.unknownOffline)
@@ -57,7 +57,7 @@ export async function resolveScannedText(competitionId: string, text: string, pa
 }
 
 /** A typed short code (case, spaces and dashes do not matter). */
-export async function resolveShortCode(competitionId: string, input: string, pack: GridPack | null, online: boolean): Promise<GridResolution> {
+export async function resolveGridCode(competitionId: string, input: string, pack: GridPack | null, online: boolean): Promise<GridResolution> {
   const parsed = shortCodeSchema.safeParse(input)
   if (!parsed.success) return { ok: false, kind: 'not-a-tag', message: parsed.error.issues[0]?.message ?? GRID_UI_MESSAGES.notATag }
   const code = parsed.data

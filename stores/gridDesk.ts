@@ -92,7 +92,9 @@ export const useGridDeskStore = defineStore('gridDesk', () => {
 
   /** Writes the check to IndexedDB first, then tries to send it. */
   async function submit(input: { competitionId: string, compId: string, gliderType: string, body: GridCheckBody, readiness: LocalScan['readiness'], outcome: LocalScan['outcome'] }): Promise<'recorded' | 'waiting' | 'attention'> {
-    const item: QueuedCheck = { idempotencyKey: input.body.idempotencyKey, competitionId: input.competitionId, compId: input.compId, body: input.body, queuedAt: new Date().toISOString(), attempts: 0 }
+    // Plain data only: IndexedDB cannot clone Vue's reactive proxies (a weigh-in typed in a form).
+    const body = JSON.parse(JSON.stringify(input.body)) as GridCheckBody
+    const item: QueuedCheck = { idempotencyKey: body.idempotencyKey, competitionId: input.competitionId, compId: input.compId, body, queuedAt: new Date().toISOString(), attempts: 0 }
     await enqueueCheck(item)
     await saveScan({
       idempotencyKey: item.idempotencyKey, competitionId: input.competitionId, day: input.body.day, entryId: input.body.entryId,
