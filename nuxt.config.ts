@@ -6,7 +6,7 @@ export default defineNuxtConfig({
   devtools: { enabled: false },
   telemetry: false,
 
-  modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint'],
+  modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint', '@vite-pwa/nuxt'],
 
   css: [
     '@fontsource/barlow/400.css',
@@ -84,6 +84,45 @@ export default defineNuxtConfig({
     storage: {
       uploads: { driver: 'fs', base: './.data/uploads' },
     },
+  },
+
+  // The scrutineer's phone works on the grid without signal (../shared/STACK.md, "Offline with
+  // @vite-pwa/nuxt in an SSR app"): the worker precaches the built assets and keeps the grid and
+  // /t/ pages NetworkFirst, so a reload offline renders from the last copy. There is no SPA
+  // index.html to fall back to (navigateFallback: null); every other page stays network-only.
+  // plugins/grid-page-cache.client.ts puts pages opened before the worker took control, and
+  // in-app navigations, into the same cache.
+  pwa: {
+    registerType: 'autoUpdate',
+    manifest: {
+      name: 'Gridmark',
+      short_name: 'Gridmark',
+      description: 'Scrutineering desk for gliding competitions',
+      theme_color: '#0e1f3b',
+      background_color: '#f5f3ec',
+      display: 'standalone',
+      start_url: '/',
+      icons: [{ src: '/favicon.svg', sizes: 'any', type: 'image/svg+xml', purpose: 'any' }],
+    },
+    workbox: {
+      navigateFallback: null,
+      globPatterns: ['**/*.{js,css,woff2,svg,webmanifest}'],
+      cleanupOutdatedCaches: true,
+      runtimeCaching: [{
+        // Serialised into the worker: keep it self-contained (no imports, no outer names).
+        urlPattern: ({ request, url }) => request.mode === 'navigate'
+          && (/^\/competitions\/[^/]+\/grid(?:\/|$)/.test(url.pathname) || url.pathname.startsWith('/t/')),
+        handler: 'NetworkFirst',
+        options: {
+          cacheName: 'gridmark-grid-pages',
+          networkTimeoutSeconds: 5,
+          expiration: { maxEntries: 300, maxAgeSeconds: 60 * 60 * 24 * 30 },
+          cacheableResponse: { statuses: [200] },
+        },
+      }],
+    },
+    client: { installPrompt: true, periodicSyncForUpdates: 0 },
+    devOptions: { enabled: false },
   },
 
   typescript: {

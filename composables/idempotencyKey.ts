@@ -1,0 +1,12 @@
+/**
+ * A random UUID v4 for a grid check's idempotency key. crypto.randomUUID exists only in secure
+ * contexts; a plain-http airfield network still has getRandomValues.
+ */
+export function newIdempotencyKey(): string {
+  if (typeof crypto.randomUUID === 'function') return crypto.randomUUID()
+  const b = crypto.getRandomValues(new Uint8Array(16))
+  b[6] = (b[6]! & 0x0F) | 0x40
+  b[8] = (b[8]! & 0x3F) | 0x80
+  const h = [...b].map(x => x.toString(16).padStart(2, '0')).join('')
+  return `${h.slice(0, 8)}-${h.slice(8, 12)}-${h.slice(12, 16)}-${h.slice(16, 20)}-${h.slice(20)}`
+}

@@ -1,0 +1,160 @@
+import { dateInZone } from '#shared/engine'
+import type { GridCheckBody } from '#shared/schemas/grid'
+import type { GridCheckResult, GridPack, GridPackEntry } from '#shared/types/api-grid'
+import {
+  attentionItems, dismissAttention, enqueueCheck, idbQueueStorage, loadPack, queuedChecks, saveScan, savePack, scansOf,
+  type LocalScan,
+} from '~/composables/gridDeskDb'
+import { drainQueue, type AttentionItem, type QueuedCheck } from '~/composables/gridQueue'
+
+// The scrutineer's desk on the phone: the day's pack (kept in IndexedDB, so the grid works
+// without signal), the outbox of grid checks and its sync state. Client state shared by the
+// scanner and the grid check screen; the server stays the record.
+
+export const SYNC_INTERVAL_MS = 20_000
+
+export const useGridDeskStore = defineStore('gridDesk', () => {
+  const competitionId = ref<string | null>(null)
+  const pack = ref<GridPack | null>(null)
+  const packStoredAt = ref<string | null>(null)
+  const packError = ref<string | null>(null)
+  const packLoading = ref(false)
+  const waiting = ref<QueuedCheck[]>([])
+  const attention = ref<AttentionItem[]>([])
+  const scans = ref<LocalScan[]>([])
+  const lastSyncedAt = ref<string | null>(null)
+  const lastSyncProblem = ref<string | null>(null)
+  const syncing = ref(false)
+  const online = ref(true)
+  let started = false
+  let syncRun: Promise<void> | null = null
+
+  /** Today in the competition's time zone (the pack's), else the phone's. */
+  const today = computed(() => dateInZone(new Date(), pack.value?.timeZone ?? Intl.DateTimeFormat().resolvedOptions().timeZone))
+  const packIsToday = computed(() => pack.value !== null && pack.value.day === today.value)
+
+  function entry(entryId: string): GridPackEntry | undefined {
+    return pack.value?.entries.find(e => e.dossier.entry.id === entryId)
+  }
+
+  async function refreshLists() {
+    waiting.value = (await queuedChecks()).sort((a, b) => a.queuedAt.localeCompare(b.queuedAt))
+    attention.value = (await attentionItems()).sort((a, b) => a.movedAt.localeCompare(b.movedAt))
+    if (competitionId.value && pack.value) scans.value = await scansOf(competitionId.value, pack.value.day)
+  }
+
+  /** Fetches today's pack and keeps it; on failure the kept one stays in use. */
+  async function fetchPack(): Promise<void> {
+    const cid = competitionId.value
+    if (!cid) return
+    packLoading.value = true
+    try {
+      const fresh = await $fetch<GridPack>(`/api/competitions/${encodeURIComponent(cid)}/grid/pack`)
+      await savePack(fresh)
+      if (competitionId.value === cid) {
+        pack.value = fresh
+        packStoredAt.value = new Date().toISOString()
+        packError.value = null
+      }
+    }
+    catch (error) {
+      const status = apiStatus(error)
+      packError.value = status
+        ? (apiErrorBody(error).message ?? `The day’s pack could not be loaded (${status}).`)
+        : 'Offline: using the pack kept on this phone.'
+    }
+    finally {
+      packLoading.value = false
+    }
+  }
+
+  /** Opens the desk of a competition: the kept pack at once, then a fresh one when online. */
+  async function open(cid: string): Promise<void> {
+    start()
+    if (competitionId.value !== cid) {
+      competitionId.value = cid
+      pack.value = null
+      packStoredAt.value = null
+      packError.value = null
+    }
+    if (!pack.value) {
+      const kept = await loadPack(cid, dateInZone(new Date(), Intl.DateTimeFormat().resolvedOptions().timeZone))
+      if (kept && competitionId.value === cid) {
+        pack.value = kept.pack
+        packStoredAt.value = kept.storedAt
+      }
+    }
+    await refreshLists()
+    if (online.value) await fetchPack()
+    await refreshLists()
+    void sync()
+  }
+
+  /** Writes the check to IndexedDB first, then tries to send it. */
+  async function submit(input: { competitionId: string, compId: string, gliderType: string, body: GridCheckBody, readiness: LocalScan['readiness'], outcome: LocalScan['outcome'] }): Promise<'recorded' | 'waiting' | 'attention'> {
+    // Plain data only: IndexedDB cannot clone Vue's reactive proxies (a weigh-in typed in a form).
+    const body = JSON.parse(JSON.stringify(input.body)) as GridCheckBody
+    const item: QueuedCheck = { idempotencyKey: body.idempotencyKey, competitionId: input.competitionId, compId: input.compId, body, queuedAt: new Date().toISOString(), attempts: 0 }
+    await enqueueCheck(item)
+    await saveScan({
+      idempotencyKey: item.idempotencyKey, competitionId: input.competitionId, day: input.body.day, entryId: input.body.entryId,
+      compId: input.compId, gliderType: input.gliderType, readiness: input.readiness, outcome: input.outcome, checkedAt: input.body.checkedAt,
+    })
+    await sync()
+    if (waiting.value.some(w => w.idempotencyKey === item.idempotencyKey)) return 'waiting'
+    if (attention.value.some(a => a.idempotencyKey === item.idempotencyKey)) return 'attention'
+    return 'recorded'
+  }
+
+  async function runSync(): Promise<void> {
+    syncing.value = true
+    try {
+      const result = await drainQueue(
+        idbQueueStorage,
+        item => $fetch<GridCheckResult>(`/api/competitions/${encodeURIComponent(item.competitionId)}/grid-checks`, { method: 'POST', body: item.body }),
+        error => ({ status: apiStatus(error), message: apiErrorBody(error).message }),
+      )
+      lastSyncProblem.value = result.stoppedBy?.message ?? null
+      if (!result.stoppedBy) lastSyncedAt.value = new Date().toISOString()
+      if (result.stoppedBy && result.stoppedBy.status === undefined) online.value = false
+    }
+    finally {
+      syncing.value = false
+      await refreshLists()
+    }
+  }
+
+  /** Sends the outbox (one run at a time; a call during a run waits for it). */
+  function sync(): Promise<void> {
+    if (import.meta.server) return Promise.resolve()
+    syncRun ??= runSync().finally(() => { syncRun = null })
+    return syncRun
+  }
+
+  async function dismiss(idempotencyKey: string) {
+    await dismissAttention(idempotencyKey)
+    await refreshLists()
+  }
+
+  /** Listens for the connection coming back and syncs on a timer (once per app). */
+  function start() {
+    if (started || import.meta.server) return
+    started = true
+    online.value = navigator.onLine
+    window.addEventListener('online', () => {
+      online.value = true
+      void sync()
+      if (!packIsToday.value) void fetchPack()
+    })
+    window.addEventListener('offline', () => { online.value = false })
+    setInterval(() => {
+      if (navigator.onLine) online.value = true
+      if (online.value) void sync()
+    }, SYNC_INTERVAL_MS)
+  }
+
+  return {
+    competitionId, pack, packStoredAt, packError, packLoading, waiting, attention, scans, lastSyncedAt, lastSyncProblem, syncing, online,
+    today, packIsToday, entry, open, fetchPack, submit, sync, dismiss, refreshLists,
+  }
+})

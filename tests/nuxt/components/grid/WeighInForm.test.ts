@@ -1,0 +1,75 @@
+// The weigh-in on the grid: what is typed gives the mass and CG the engine gives, lb and inches
+// convert, and a mass over the class limit shows its finding before the check is submitted.
+// Mass × arm method: total mass ΣW, CG arm Σ(W·arm)/ΣW from the datum (FAA-H-8083-1, Aircraft
+// Weight and Balance Handbook, ch. 2; the same method as shared/engine/weigh-in.ts).
+import { describe, expect, it } from 'vitest'
+import { mountSuspended } from '@nuxt/test-utils/runtime'
+import WeighInForm from '~/components/grid/WeighInForm.vue'
+import { competition, dossier, fieldOf } from '../../../unit/shared/engine/builders'
+
+const DAY = '2027-07-13'
+
+async function mountForm(entry: Parameters<typeof dossier>[1] = {}) {
+  const d = dossier({}, entry)
+  const updates: unknown[] = []
+  const form = await mountSuspended(WeighInForm, {
+    props: { 'dossier': d, 'competition': competition(), 'field': fieldOf(d), 'day': DAY, 'onUpdate:modelValue': (v: unknown) => updates.push(v) },
+  })
+  return { form, updates }
+}
+
+async function type(form: Awaited<ReturnType<typeof mountForm>>['form'], readings: [string, string][]) {
+  for (const [i, [w, a]] of readings.entries()) {
+    await form.get(`[data-testid="weigh-weight-${i}"]`).setValue(w)
+    await form.get(`[data-testid="weigh-arm-${i}"]`).setValue(a)
+  }
+}
+
+describe('WeighInForm', () => {
+  it('gives the mass as ΣW and the CG as Σ(W·arm)/ΣW from kg and metre readings', async () => {
+    const { form, updates } = await mountForm()
+    // Worked example in the handbook's manner: main wheel 310 kg at 0.12 m, tail wheel 25 kg at 4.50 m.
+    // ΣW = 335 kg; Σ(W·arm) = 37.2 + 112.5 = 149.7 kg·m; CG = 149.7 / 335 = 0.44687 m.
+    await type(form, [['310', '0.12'], ['25', '4,50']])
+    expect(form.get('[data-testid="weigh-mass"]').text()).toBe('335.0 kg')
+    expect(form.get('[data-testid="weigh-cg"]').text()).toBe('0.447 m')
+    expect(updates.at(-1)).toEqual({ units: 'kg-m', readings: [{ point: 'main-wheel', weight: 310, arm: 0.12 }, { point: 'tail-wheel', weight: 25, arm: 4.5 }] })
+    expect(form.find('[data-testid="weigh-no-findings"]').exists()).toBe(true)
+    expect(form.get('[data-testid="weigh-caution"]').text()).toContain('Local procedures and the competition’s rules prevail')
+    form.unmount()
+  })
+
+  it('converts lb and inch readings (1 lb = 0.45359237 kg, 1 in = 0.0254 m, exact by definition)', async () => {
+    const { form, updates } = await mountForm()
+    await form.get('[data-testid="weigh-units-lb-in"]').trigger('click')
+    // 100 lb at 10 in and 50 lb at 100 in: ΣW = 150 lb = 68.0 kg; CG = 6000 / 150 = 40 in = 1.016 m.
+    await type(form, [['100', '10'], ['50', '100']])
+    expect(form.get('[data-testid="weigh-mass"]').text()).toBe('68.0 kg')
+    expect(form.get('[data-testid="weigh-cg"]').text()).toBe('1.016 m')
+    expect(form.get('[data-testid="weigh-result"]').text()).toContain('40.00 in')
+    expect((updates.at(-1) as { units: string }).units).toBe('lb-in')
+    form.unmount()
+  })
+
+  it('shows the class-limit finding for a mass over the class’s maximum take-off mass', async () => {
+    // Standard class limited to 525 kg here (FAI Sporting Code Section 3 Annex A, from memory); the flight manual allows 600.
+    const { form } = await mountForm({ mtomKg: 600 })
+    await type(form, [['500', '0.10'], ['40', '4.40']])
+    expect(form.get('[data-testid="weigh-mass"]').text()).toBe('540.0 kg')
+    const ids = form.findAll('[data-testid="weigh-finding"]').map(f => f.attributes('data-check-id'))
+    expect(ids).toEqual(['mass.class-limit'])
+    expect(form.get('[data-testid="weigh-findings"]').text()).toContain('allows at most 525.0 kg')
+    form.unmount()
+  })
+
+  it('shows the CG finding when the computed CG is behind the aft limit, and emits nothing for a half-typed reading', async () => {
+    const { form, updates } = await mountForm({ cgForwardLimitM: 0.2, cgAftLimitM: 0.4 })
+    await type(form, [['310', '0.12'], ['25', '']])
+    expect(form.find('[data-testid="weigh-result"]').exists()).toBe(false)
+    expect(form.get('[data-testid="weigh-problem"]').text()).toContain('lever arm')
+    expect(updates.at(-1)).toBeNull()
+    await form.get('[data-testid="weigh-arm-1"]').setValue('4.50')
+    expect(form.findAll('[data-testid="weigh-finding"]').map(f => f.attributes('data-check-id'))).toEqual(['cg.within-limits'])
+    form.unmount()
+  })
+})
