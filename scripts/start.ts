@@ -62,7 +62,7 @@ runMain(async () => {
 
   const applied = await migrate(databaseUrl)
   step(applied.length > 0 ? `Applied ${applied.length} migration(s): ${applied.join(', ')}` : 'The schema is up to date')
-  const { seeded } = await seed(databaseUrl, false)
+  const { seeded } = await seed(databaseUrl, false, password)
   step(seeded ? 'Seeded the demo data' : 'Demo data already present (npm run seed:reset starts it over)')
 
   await ensureBuild()

@@ -46,6 +46,9 @@ let currentChild: ChildProcess | undefined
 let interrupted: NodeJS.Signals | undefined
 let fakes: StartedServices | undefined
 let server: RunningServer | undefined
+// Fresh per run: nothing signed in by an earlier run stays valid. Known before seeding, since
+// it also signs the demo's glider tags.
+const sessionSecret = randomSessionPassword()
 
 // ---------------------------------------------------------------------------------------
 // Signals: finish the current step quickly, skip the rest, still clean up and report.
@@ -99,7 +102,7 @@ async function setUp(): Promise<string> {
   const url = clusterUrl(testCluster, TEST_DATABASE)
   await timed(`database ${TEST_DATABASE} on port ${testCluster.port}`, () => createDatabase(testCluster, TEST_DATABASE))
   await timed('migrations', () => migrate(url))
-  await timed('demo data', () => seed(url, false))
+  await timed('demo data', () => seed(url, false, sessionSecret))
   await timed('Chromium', ensureBrowser)
   await timed('build', ensureBuild)
   return url
@@ -143,8 +146,7 @@ async function runVitest(url: string, extraArgs: string[]): Promise<StepResult> 
   const env: NodeJS.ProcessEnv = {
     ...process.env, // passes CI and the like through
     DATABASE_URL: url,
-    // Fresh per run: nothing signed in by an earlier run stays valid.
-    NUXT_SESSION_PASSWORD: randomSessionPassword(),
+    NUXT_SESSION_PASSWORD: sessionSecret,
     ...clusterEnv(cluster!),
     GRIDMARK_ARTIFACTS: artifactsDir,
   }

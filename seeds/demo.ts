@@ -8,6 +8,7 @@ import { DEMO_COMPETITION, DEMO_PASSWORD, DEMO_PEOPLE } from './demo-data'
 import { DEMO_ENTRIES, DEMO_EXTRA_PILOTS, DEMO_FIRMWARE } from './demo-entries'
 import { seedDemoPayments } from './demo-payments'
 import { seedDemoDocuments, seedDemoIgcFiles } from './demo-files'
+import { seedDemoTags } from './demo-tags'
 
 export { DEMO_SIGN_INS, DEMO_PASSWORD } from './demo-data'
 
@@ -17,14 +18,24 @@ const hasher = new Hash(new Scrypt({}))
 // Every table of the schema; TRUNCATE … CASCADE also reaches tables added later that refer to these.
 const WIPE_ORDER = ['audit_log', 'mail_outbox', 'rate_limits', 'memberships', 'classes', 'competitions', 'user_sessions', 'users']
 
-export async function seedDemo(knex: Knex, opts: { reset?: boolean } = {}): Promise<{ seeded: boolean }> {
+/**
+ * `tagSecret` must be the key the server signs tags with (NUXT_TAG_SECRET, else the session
+ * password), so that the demo's tags resolve.
+ */
+export async function seedDemo(knex: Knex, opts: { reset?: boolean, tagSecret?: string } = {}): Promise<{ seeded: boolean }> {
+  const tagSecret = opts.tagSecret || process.env.NUXT_TAG_SECRET || process.env.NUXT_SESSION_PASSWORD
+  if (!tagSecret) throw new Error('The demo seed signs glider tags: give it the tag secret (NUXT_TAG_SECRET or NUXT_SESSION_PASSWORD).')
   return knex.transaction(async (trx) => {
     if (opts.reset) {
       await trx.raw(`TRUNCATE ${WIPE_ORDER.join(', ')} RESTART IDENTITY CASCADE`)
     }
     else {
       const existing = await trx('competitions').where({ slug: DEMO_COMPETITION.slug }).first('id')
-      if (existing) return { seeded: false }
+      if (existing) {
+        // A demo seeded before tags existed gets them once.
+        await seedDemoTags(trx, existing.id, tagSecret)
+        return { seeded: false }
+      }
     }
 
     const passwordHash = await hasher.make(DEMO_PASSWORD)
@@ -144,6 +155,7 @@ export async function seedDemo(knex: Knex, opts: { reset?: boolean } = {}): Prom
     await seedDemoDocuments(trx, competition.id)
     await seedDemoIgcFiles(trx, competition.id)
     await seedDemoPayments(trx, competition.id)
+    await seedDemoTags(trx, competition.id, tagSecret)
 
     await trx('audit_log').insert({
       actor_user_id: null,
