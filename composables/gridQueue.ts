@@ -13,6 +13,8 @@ export interface QueuedCheck {
   competitionId: string
   /** Competition ID of the entry, for the lists on screen. */
   compId: string
+  /** The scrutineer who made it: only their session sends it (the server records the sender). */
+  userId?: string
   body: GridCheckBody
   queuedAt: string
   attempts: number

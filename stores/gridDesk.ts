@@ -94,7 +94,7 @@ export const useGridDeskStore = defineStore('gridDesk', () => {
   async function submit(input: { competitionId: string, compId: string, gliderType: string, body: GridCheckBody, readiness: LocalScan['readiness'], outcome: LocalScan['outcome'] }): Promise<'recorded' | 'waiting' | 'attention'> {
     // Plain data only: IndexedDB cannot clone Vue's reactive proxies (a weigh-in typed in a form).
     const body = JSON.parse(JSON.stringify(input.body)) as GridCheckBody
-    const item: QueuedCheck = { idempotencyKey: body.idempotencyKey, competitionId: input.competitionId, compId: input.compId, body, queuedAt: new Date().toISOString(), attempts: 0 }
+    const item: QueuedCheck = { idempotencyKey: body.idempotencyKey, competitionId: input.competitionId, compId: input.compId, userId: useSessionStore().user?.id, body, queuedAt: new Date().toISOString(), attempts: 0 }
     await enqueueCheck(item)
     await saveScan({
       idempotencyKey: item.idempotencyKey, competitionId: input.competitionId, day: input.body.day, entryId: input.body.entryId,
@@ -109,8 +109,12 @@ export const useGridDeskStore = defineStore('gridDesk', () => {
   async function runSync(): Promise<void> {
     syncing.value = true
     try {
+      // A check made by another scrutineer on this phone waits for their session: the server
+      // records whoever sends it as the scrutineer.
+      const me = useSessionStore().user?.id
+      const mine = { ...idbQueueStorage, queued: async () => (await idbQueueStorage.queued()).filter(i => !i.userId || i.userId === me) }
       const result = await drainQueue(
-        idbQueueStorage,
+        mine,
         item => $fetch<GridCheckResult>(`/api/competitions/${encodeURIComponent(item.competitionId)}/grid-checks`, { method: 'POST', body: item.body }),
         error => ({ status: apiStatus(error), message: apiErrorBody(error).message }),
       )

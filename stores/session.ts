@@ -64,6 +64,10 @@ export const useSessionStore = defineStore('session', () => {
       // Forget the user (and every page's cached data) even if the server could not be reached.
       apply(null)
       clearNuxtData()
+      // Grid pages kept for offline use were rendered for this user; the next one must not see
+      // them. Grid checks still waiting to be sent stay on the phone (IndexedDB) and are sent
+      // when a scrutineer signs in again.
+      if (import.meta.client && 'caches' in window) await caches.delete('gridmark-grid-pages').catch(() => false)
     }
   }
 

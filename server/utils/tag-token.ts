@@ -34,6 +34,9 @@ export function verifyTagToken(token: string, secret: string, competitionId: str
   if (!TOKEN_RE.test(token)) return false
   const raw = Buffer.from(token, 'base64url')
   if (raw.length !== NONCE_BYTES + SIGNATURE_BYTES) return false
+  // 43 characters carry 258 bits for 256: the last one has two spare bits. Only the canonical
+  // spelling counts, so one changed character is always a different token.
+  if (raw.toString('base64url') !== token) return false
   const expected = signature(secret, competitionId, raw.subarray(0, NONCE_BYTES))
   return timingSafeEqual(expected, raw.subarray(NONCE_BYTES))
 }
