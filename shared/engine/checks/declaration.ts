@@ -19,7 +19,6 @@ export function latestIgcFiles(ctx: CheckContext): Array<{ unitId: string, label
   return out
 }
 
-const show = (v: string | null | undefined) => (v ? `“${v}”` : 'nothing')
 
 export const declarationMatchesEntry: Check = {
   id: 'declaration.matches-entry',
@@ -34,12 +33,16 @@ export const declarationMatchesEntry: Check = {
       const subject = file.id ? `igc:${file.id}` : undefined
       const block = (what: string, declared: string | null, expected: string, fixHint: string) => out.push({
         checkId: this.id, severity: 'blocking', unitId, subject,
-        reason: `The IGC file from ${label} declares ${what} ${show(declared)}, the entry says “${expected}”.`,
+        reason: declared
+          ? `The IGC file from ${label} declares ${what} “${declared}”, the entry says “${expected}”.`
+          : `The IGC file from ${label} declares no ${what.replace(/^the /, '')}; the entry says “${expected}”.`,
         fixHint,
       })
       const advise = (what: string, declared: string | null | undefined, expected: string) => out.push({
         checkId: this.id, severity: 'advisory', unitId, subject,
-        reason: `The IGC file from ${label} names the ${what} ${show(declared)}, the entry says “${expected}”.`,
+        reason: declared
+          ? `The IGC file from ${label} names the ${what} “${declared}”, the entry says “${expected}”.`
+          : `The IGC file from ${label} names no ${what}; the entry says “${expected}”.`,
         fixHint: `Set the ${what} in the recorder’s declaration (or correct the entry), then upload a new IGC file.`,
       })
       const redeclare = 'Correct the declaration in the recorder (or the entry, if the entry is wrong), then upload a new IGC file from it.'
