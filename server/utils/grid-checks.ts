@@ -6,7 +6,7 @@
 import { createHash } from 'node:crypto'
 import type { Knex } from 'knex'
 import type { H3Event } from 'h3'
-import { addDays, blockingFirst, dateInZone, evaluate, readiness, weighIn, type DirectorAction, type Finding, type IsoDate, type Readiness } from '#shared/engine'
+import { addDays, blockingFirst, checkOutcome, dateInZone, evaluate, readiness, weighIn, withWeighIn, type DirectorAction, type Finding, type IsoDate, type Readiness } from '#shared/engine'
 import type { ChecklistItem } from '#shared/constants/grid'
 import { STAFF_ROLES } from '#shared/constants/roles'
 import { MESSAGES } from '#shared/constants/messages'
@@ -59,9 +59,8 @@ export function gridCheckBodySha256(body: GridCheckBody, competitionId: string, 
 }
 
 /** A check fails when any item of the checklist failed. */
-export function checkOutcome(answers: readonly { result: string }[]): 'pass' | 'fail' {
-  return answers.some(a => a.result === 'fail') ? 'fail' : 'pass'
-}
+/** The outcome rule lives in the engine, so the phone shows what the server stores. */
+export { checkOutcome }
 
 export type AnswerProblem = { kind: 'unknown', itemId: string } | { kind: 'duplicate', itemId: string }
 
@@ -276,8 +275,7 @@ export async function recordGridCheck(
     const dossier = loaded?.dossiers[0]
     let findings: Finding[] = []
     if (loaded?.competition && dossier) {
-      if (body.weighIn) dossier.weighIns.push({ weighedOn: body.day, units: body.weighIn.units, readings: body.weighIn.readings })
-      findings = blockingFirst(evaluate(dossier, loaded.competition, loaded.field, body.day))
+      findings = blockingFirst(evaluate(withWeighIn(dossier, body.day, body.weighIn), loaded.competition, loaded.field, body.day))
     }
     const actions = await directorActionsOf(trx, competition.id, entry.id, body.day)
     const ready: Readiness = readiness(findings, { day: body.day, outcome }, actions, body.day)
