@@ -20,6 +20,9 @@ import * as m20261203000310 from './20261203000310_igc_files'
 import * as m20261203000500 from './20261203000500_entry_table_indexes'
 import * as m20261204000100 from './20261204000100_tags'
 import * as m20261204000200 from './20261204000200_grid_checks'
+import * as m20261205000100 from './20261205000100_board'
+import * as m20261205000200 from './20261205000200_director_actions'
+import * as m20261205000300 from './20261205000300_socket_attachments'
 
 type Migration = Knex.Migration
 
@@ -43,6 +46,9 @@ const migrations: Record<string, Migration> = {
   '20261203000500_entry_table_indexes': m20261203000500,
   '20261204000100_tags': m20261204000100,
   '20261204000200_grid_checks': m20261204000200,
+  '20261205000100_board': m20261205000100,
+  '20261205000200_director_actions': m20261205000200,
+  '20261205000300_socket_attachments': m20261205000300,
 }
 
 export const migrationSource: Knex.MigrationSource<string> = {

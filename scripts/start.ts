@@ -8,6 +8,7 @@ import { ensureBuild } from './lib/build'
 import { repoRoot, runMain, ScriptError, step } from './lib/common'
 import { migrate, seed } from './lib/db'
 import { prepareDemoDatabase } from './lib/demo-db'
+import { playDemoDay } from './lib/demo-day'
 import { isPortFree, sleep } from './lib/net'
 import { sessionPassword } from './lib/secrets'
 import { startServices } from './lib/services'
@@ -118,6 +119,14 @@ runMain(async () => {
   }
 
   if (!stopping && app.exitCode === null && app.signalCode === null) {
+    try {
+      const { played } = await playDemoDay(url, databaseUrl)
+      if (played) step('Opened today as a practice day on the readiness board, with some gliders already checked')
+    }
+    catch (error) {
+      // The app itself is fine; only the demo's first day is missing.
+      console.warn(`Could not play the demo's first day: ${(error as Error).message}`)
+    }
     console.log(`\nGridmark is running at ${url}${host === '0.0.0.0' ? ' (listening on all interfaces)' : ''}\n`)
     printSignIns()
     for (const note of extra.notes) console.log(note)

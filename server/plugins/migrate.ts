@@ -1,7 +1,7 @@
 // Brings the schema up to date when the server starts. The start and test scripts migrate
 // first anyway; this covers a server deployed on its own. If PostgreSQL is down, the server
 // still starts (health answers 503) and keeps retrying until the database returns.
-import { closeDb } from '../utils/db'
+import { closeDb, markSchemaReady } from '../utils/db'
 
 const RETRY_MS = 5000
 
@@ -13,6 +13,7 @@ export default defineNitroPlugin((nitroApp) => {
     try {
       const [, applied] = await useDb().migrate.latest()
       if (applied.length) console.info(`[gridmark] applied migrations: ${applied.join(', ')}`)
+      markSchemaReady()
     }
     catch (err) {
       console.warn(`[gridmark] migrations not run (${(err as Error).message}); retrying in ${RETRY_MS / 1000} s`)

@@ -31,3 +31,18 @@ export async function closeDb(): Promise<void> {
   await instance?.destroy()
   instance = undefined
 }
+
+let schemaReady!: () => void
+const schemaReadyPromise = new Promise<void>((resolve) => {
+  schemaReady = resolve
+})
+
+/** Called by the migration plugin once the schema is up to date. */
+export function markSchemaReady(): void {
+  schemaReady()
+}
+
+/** Resolves once this server has brought the schema up to date (work that reads new tables waits for it). */
+export function whenSchemaReady(): Promise<void> {
+  return schemaReadyPromise
+}

@@ -1,7 +1,8 @@
 // Grid checks: a scrutineer's record of one entry on one contest day, with the weigh-in taken
 // with it. Recording is idempotent — a phone that lost signal sends its queued check again
 // under the same key and gets the stored one back — and runs in one transaction: the check,
-// its weigh-in, the engine's findings including that weigh-in, the readiness, the audit row.
+// its weigh-in, the engine's findings including that weigh-in, the readiness, the audit row,
+// and on an open day the entry's board tile (pushed to the boards once committed).
 // Two scrutineers on one entry both get a row; the later check (by checked_at) counts.
 import { createHash } from 'node:crypto'
 import type { Knex } from 'knex'
@@ -16,6 +17,7 @@ import type { GridCheckRow, WeighInRow } from '#shared/types/rows-grid'
 import type { CompetitionRow } from '#shared/types/rows'
 import type { User } from '#auth-utils'
 import { rulesOf } from './competition-setup'
+import { actionsQuery, boardTransaction, lockBoard, refreshTiles, toTileAction } from './board'
 import type { CompetitionAccess } from './authz'
 
 /** A grid check is for today, tomorrow (a phone ahead of midnight), or up to 14 days back. */
@@ -232,12 +234,9 @@ function fieldError(field: string, message: string) {
   return httpError(400, `${MESSAGES.invalidInput} ${message}`, { fieldErrors: { [field]: [message] }, formErrors: [] })
 }
 
-/**
- * The director's holds, releases and waivers of the day for an entry. Seam for the board:
- * until its table exists there are none, so readiness comes from findings and the check.
- */
-async function directorActionsOf(_trx: Knex, _competitionId: string, _entryId: string, _day: IsoDate): Promise<DirectorAction[]> {
-  return []
+/** The director's holds, releases and waivers that count for an entry on a day, in the order taken. */
+async function directorActionsOf(trx: Knex, competitionId: string, entryId: string, day: IsoDate): Promise<DirectorAction[]> {
+  return (await actionsQuery(trx, competitionId, day, [entryId])).map(toTileAction)
 }
 
 export async function recordGridCheck(
@@ -247,7 +246,7 @@ export async function recordGridCheck(
   now: Date = new Date(),
 ): Promise<GridCheckResult> {
   const sha = gridCheckBodySha256(body, competition.id, user.id)
-  return useDb().transaction(async (trx) => {
+  return boardTransaction(async (trx, changes) => {
     // One sender at a time per key: a second copy of the check waits here, then finds the first.
     await trx.raw('select pg_advisory_xact_lock(hashtext(?))', [`gridmark:grid-check:${body.idempotencyKey.toLowerCase()}`])
     const earlier = await trx('grid_checks').where({ idempotency_key: body.idempotencyKey }).first('id', 'body_sha256')
@@ -255,6 +254,8 @@ export async function recordGridCheck(
       if (earlier.body_sha256 !== sha) throw httpError(409, MESSAGES.gridReplayConflict)
       return { gridCheck: await gridCheckById(trx, earlier.id), replayed: true }
     }
+    // A new check changes the board: one writer per competition's board at a time (board.ts).
+    await lockBoard(trx, competition.id)
 
     const entry = await trx('entries').where({ id: body.entryId }).first('id', 'competition_id', 'status')
     if (!entry) throw httpError(404, MESSAGES.gridEntryNotFound)
@@ -325,6 +326,9 @@ export async function recordGridCheck(
         idempotencyKey: body.idempotencyKey,
       },
     })
+    // On an open day the entry's tile follows at once, pushed to the boards after commit.
+    const open = await trx('board_days').where({ competition_id: competition.id, day: body.day }).whereNull('closed_at').first('day')
+    if (open) await refreshTiles(trx, competition.id, body.day, changes, { cause: 'grid-check', actorId: user.id, entryIds: [entry.id] })
     return { gridCheck: await gridCheckById(trx, gridCheckId), replayed: false }
   })
 }

@@ -316,7 +316,7 @@ export interface WebhookOutcome {
 
 /** Applies one verified event, exactly once. Unknown types and unknown payments are acknowledged and ignored. */
 export async function processPaymentEvent(evt: Stripe.Event): Promise<WebhookOutcome> {
-  return useDb().transaction(async (trx) => {
+  return useDb().transaction(async (trx): Promise<WebhookOutcome> => {
     const inserted = await trx('payment_events').insert({ event_id: evt.id, type: evt.type }).onConflict('event_id').ignore().returning('event_id')
     if (inserted.length === 0) return { received: true, duplicate: true, handled: false }
 
@@ -353,6 +353,13 @@ export async function processPaymentEvent(evt: Stripe.Event): Promise<WebhookOut
     }
     if (paymentId) await trx('payment_events').where({ event_id: evt.id }).update({ payment_id: paymentId })
     return { received: true, duplicate: false, handled: paymentId !== null }
+  }).then(async (outcome) => {
+    // A payment can clear `entry.paid`: bring the competition's open day up to date.
+    if (outcome.handled) {
+      const payment = await useDb()('payment_events as v').join('payments as p', 'p.id', 'v.payment_id').where('v.event_id', evt.id).first('p.competition_id')
+      if (payment) scheduleBoardRefresh(payment.competition_id, null)
+    }
+    return outcome
   })
 }
 

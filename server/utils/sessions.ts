@@ -22,12 +22,37 @@ export async function startSession(event: H3Event, user: UserRow): Promise<void>
 
 export async function endSession(event: H3Event): Promise<void> {
   const session = await getUserSession(event)
-  if (session.sessionId) await revokeSession(session.sessionId)
+  if (session.sessionId) {
+    await revokeSession(session.sessionId)
+    // Live screens opened with this session close too, on every instance.
+    disconnectSessionSockets(session.sessionId)
+  }
   await clearUserSession(event)
 }
 
 export async function revokeSession(sessionId: string): Promise<void> {
   await useDb()('user_sessions').where({ id: sessionId }).whereNull('revoked_at').update({ revoked_at: useDb().fn.now() })
+}
+
+/**
+ * The user of a sealed session, fresh from the database: null when the session names none, or
+ * its row was revoked (signed out) or belongs to someone else. The socket handshake reads
+ * sessions through this too.
+ */
+export async function userOfSession(session: { user?: { id: string }, sessionId?: string }): Promise<User | null> {
+  if (!session.user || !session.sessionId) return null
+  const db = useDb()
+  const row = await db('user_sessions as s')
+    .join('users as u', 'u.id', 's.user_id')
+    .where('s.id', session.sessionId)
+    .first<UserRow & { revoked_at: Date | null, last_seen_at: Date, session_id: string }>(
+      'u.*', 's.revoked_at', 's.last_seen_at', 's.id as session_id',
+    )
+  if (!row || row.revoked_at || row.id !== session.user.id) return null
+  if (Date.now() - new Date(row.last_seen_at).getTime() > TOUCH_AFTER_MS) {
+    await db('user_sessions').where({ id: row.session_id }).update({ last_seen_at: db.fn.now() })
+  }
+  return toPublicUser(row)
 }
 
 /** The signed-in user, fresh from the database; 401 when there is none or it was revoked. */
@@ -38,21 +63,11 @@ export async function requireUser(event: H3Event): Promise<User> {
   if (!session.user || !session.sessionId) {
     throw httpError(401, MESSAGES.notSignedIn)
   }
-  const db = useDb()
-  const row = await db('user_sessions as s')
-    .join('users as u', 'u.id', 's.user_id')
-    .where('s.id', session.sessionId)
-    .first<UserRow & { revoked_at: Date | null, last_seen_at: Date, session_id: string }>(
-      'u.*', 's.revoked_at', 's.last_seen_at', 's.id as session_id',
-    )
-  if (!row || row.revoked_at || row.id !== session.user.id) {
+  const user = await userOfSession(session)
+  if (!user) {
     await clearUserSession(event)
     throw httpError(401, MESSAGES.sessionEnded)
   }
-  if (Date.now() - new Date(row.last_seen_at).getTime() > TOUCH_AFTER_MS) {
-    await db('user_sessions').where({ id: row.session_id }).update({ last_seen_at: db.fn.now() })
-  }
-  const user = toPublicUser(row)
   event.context.gridmarkUser = user
   return user
 }

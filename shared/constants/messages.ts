@@ -7,6 +7,7 @@ import { ENTRIES_MESSAGES } from './messages-entries'
 import { SETUP_MESSAGES } from './messages-setup'
 import { TAGS_MESSAGES } from './messages-tags'
 import { GRID_MESSAGES } from './messages-grid'
+import { BOARD_MESSAGES } from './messages-board'
 
 export const MESSAGES = {
   invalidInput: 'Some fields need attention.',
@@ -34,4 +35,5 @@ export const MESSAGES = {
   ...SETUP_MESSAGES,
   ...TAGS_MESSAGES,
   ...GRID_MESSAGES,
+  ...BOARD_MESSAGES,
 } as const

@@ -1,6 +1,8 @@
 // An entry's readiness on a contest day (DESIGN.md, vocabulary "readiness"):
-//   held      — a director's hold for the day, a failed grid check, or a blocking finding not waived;
-//   unchecked — otherwise, when there is no grid check for the day yet;
+//   held      — a director's hold for the day; or, once grid-checked, a failed check or a
+//               blocking finding that is not waived;
+//   unchecked — no grid check for the day yet (and no hold): every entry starts the day so,
+//               while its standing findings carry over and show beside it on the board;
 //   caution   — grid-checked today, advisory findings remain;
 //   ready     — grid-checked today, nothing remains.
 // A director's hold wins over everything. A release ends an earlier hold of the same day; a
@@ -53,10 +55,9 @@ export function isHeld(actions: readonly DirectorAction[], day: IsoDate): boolea
 
 export function readiness(findings: readonly Finding[], gridCheck: GridCheck | null | undefined, directorActions: readonly DirectorAction[], day: IsoDate): Readiness {
   if (isHeld(directorActions, day)) return 'held'
+  if (gridCheck == null || gridCheck.day !== day) return 'unchecked'
+  if (gridCheck.outcome === 'fail') return 'held'
   const open = applyWaivers(findings, directorActions, day)
-  const checkedToday = gridCheck != null && gridCheck.day === day
-  if (checkedToday && gridCheck.outcome === 'fail') return 'held'
   if (open.some(f => f.severity === 'blocking')) return 'held'
-  if (!checkedToday) return 'unchecked'
   return open.length > 0 ? 'caution' : 'ready'
 }

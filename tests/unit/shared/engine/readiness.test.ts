@@ -19,9 +19,16 @@ describe('readiness (DESIGN.md, vocabulary)', () => {
     expect(readiness([advisory], null, [], DAY)).toBe('unchecked')
   })
 
-  it('is held for a blocking finding, grid check or not', () => {
+  it('is held for a blocking finding once grid-checked; before the check the day starts unchecked', () => {
+    // DESIGN.md, main flow 3: the director opens the day and every entry shows unchecked;
+    // the standing finding carries over and is shown beside it.
     expect(readiness([blocking], checked, [], DAY)).toBe('held')
-    expect(readiness([blocking], null, [], DAY)).toBe('held')
+    expect(readiness([blocking], null, [], DAY)).toBe('unchecked')
+    expect(readiness([blocking], { day: '2027-07-12', outcome: 'pass' }, [], DAY)).toBe('unchecked')
+  })
+
+  it('is held before any check when the director holds the glider', () => {
+    expect(readiness([], null, [{ kind: 'hold', day: DAY, reason: 'tow hook' }], DAY)).toBe('held')
   })
 
   it('is held after a failed grid check', () => {

@@ -8,6 +8,7 @@ export default defineApiHandler(async (event): Promise<GridCheckResult> => {
   const { competitionId } = await validParams(event, competitionParamsSchema)
   const body = await validBody(event, gridCheckBodySchema)
   const { user, competition } = await requireGridRecorder(event, competitionId)
+  event.context.boardHandled = true
   const result = await recordGridCheck(competition, user, body)
   setResponseStatus(event, result.replayed ? 200 : 201)
   return result

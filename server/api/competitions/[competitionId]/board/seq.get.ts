@@ -1,0 +1,13 @@
+// GET /api/competitions/:competitionId/board/seq — staff. The board's sequence number and open
+// day: a screen compares it with its own now and then, so a missed push never goes unnoticed.
+import { STAFF_ROLES } from '#shared/constants/roles'
+import { competitionParamsSchema } from '#shared/schemas/params'
+import type { BoardSeq } from '#shared/types/api-board'
+
+export default defineApiHandler(async (event): Promise<BoardSeq> => {
+  const { competitionId } = await validParams(event, competitionParamsSchema)
+  await requireRole(event, competitionId, STAFF_ROLES)
+  setResponseHeader(event, 'cache-control', 'no-store')
+  const [seq, open] = await Promise.all([currentSeq(competitionId), openDayOf(competitionId)])
+  return { seq, openDay: open?.day ?? null }
+})

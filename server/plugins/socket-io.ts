@@ -1,0 +1,132 @@
+// The live board's socket.io server, attached to Nitro's own HTTP server (nuxt dev and the
+// built server alike), as socket.io's guide for Nuxt shows; crossws ≥ 0.3 hands the upgrade
+// over as `peer._internal.nodeReq` and `peer.websocket` (../shared/STACK.md).
+//
+// The handshake is authenticated with the session cookie (the same sealed session and row
+// check as every API request); a socket then asks to join a competition's board and is let in
+// only where its user holds a role: staff to the whole board, an entrant to their own entries.
+// Instances share events through PostgreSQL (@socket.io/postgres-adapter, LISTEN/NOTIFY).
+import { ServerResponse, type IncomingMessage } from 'node:http'
+import { Server as Engine } from 'engine.io'
+import { Server, type Socket } from 'socket.io'
+import { createAdapter } from '@socket.io/postgres-adapter'
+import pg from 'pg'
+import { createEvent, defineEventHandler } from 'h3'
+import type { User } from '#auth-utils'
+import { boardJoinSchema } from '#shared/schemas/board'
+import { STAFF_ROLES } from '#shared/constants/roles'
+import { MESSAGES } from '#shared/constants/messages'
+import { effectiveRoles } from '#shared/utils/access'
+import type { BoardJoinAck } from '#shared/types/api-board'
+
+interface SocketData {
+  user: User
+  sessionId: string
+}
+
+/** The user of the session cookie a handshake carries, or null. */
+async function handshakeUser(req: IncomingMessage): Promise<{ user: User, sessionId: string } | null> {
+  if (!req.headers.cookie) return null
+  // nuxt-auth-utils reads the session from an h3 event; the handshake has no response of its own.
+  const event = createEvent(req, new ServerResponse(req))
+  const session = await getUserSession(event)
+  const user = await userOfSession(session)
+  return user && session.sessionId ? { user, sessionId: session.sessionId } : null
+}
+
+/** Logs at most one line per message a minute: a database outage must not flood the log. */
+function throttledLog(prefix: string) {
+  const seen = new Map<string, number>()
+  return (error: unknown) => {
+    const message = (error as Error)?.message ?? String(error)
+    const last = seen.get(message) ?? 0
+    if (Date.now() - last < 60_000) return
+    seen.set(message, Date.now())
+    console.warn(`${prefix}: ${message}`)
+  }
+}
+
+export default defineNitroPlugin((nitroApp) => {
+  const engine = new Engine({ pingInterval: 10_000, pingTimeout: 8_000 })
+  const io = new Server<Record<string, never>, Record<string, never>, Record<string, never>, SocketData>({ serveClient: false })
+
+  // Its own small pool: the adapter keeps one connection LISTENing for the other instances.
+  const logAdapter = throttledLog('[gridmark] board events between instances')
+  const pool = new pg.Pool({ connectionString: databaseUrl(), max: 3, connectionTimeoutMillis: 3000, application_name: 'gridmark-sockets' })
+  // A dropped connection (PostgreSQL restarting) emits 'error' on its client; unhandled, that
+  // would end the process. The adapter reconnects by itself on the client's 'end'.
+  pool.on('error', logAdapter)
+  pool.on('connect', client => client.on('error', logAdapter))
+  io.adapter(createAdapter(pool, { errorHandler: logAdapter, heartbeatInterval: 5_000, heartbeatTimeout: 15_000 }))
+  io.bind(engine)
+
+  io.use(async (socket, next) => {
+    try {
+      const who = await handshakeUser(socket.request)
+      if (!who) return next(new Error(MESSAGES.socketSignIn))
+      socket.data.user = who.user
+      socket.data.sessionId = who.sessionId
+      await socket.join(sessionRoom(who.sessionId))
+      next()
+    }
+    catch (error) {
+      logAdapter(error)
+      next(new Error(MESSAGES.databaseDown))
+    }
+  })
+
+  io.on('connection', (socket: Socket) => {
+    const user = socket.data.user as User
+
+    socket.on('board:join', async (raw: unknown, ack?: (answer: BoardJoinAck) => void) => {
+      const reply = typeof ack === 'function' ? ack : () => {}
+      const parsed = boardJoinSchema.safeParse(raw)
+      if (!parsed.success) return reply({ ok: false, message: MESSAGES.boardJoinRefused })
+      const { competitionId } = parsed.data
+      try {
+        const roles = effectiveRoles(await rolesInCompetition(user.id, competitionId), user.isAdmin)
+        const staff = roles.some(r => STAFF_ROLES.includes(r))
+        if (!staff && !roles.includes('entrant')) {
+          console.warn(`[gridmark] socket ${socket.id} of user ${user.id} asked to join the board of competition ${competitionId}, where the user holds no role: ignored`)
+          return reply({ ok: false, message: MESSAGES.boardJoinRefused })
+        }
+        if (staff) await socket.join(boardRoom(competitionId))
+        if (roles.includes('entrant')) await socket.join(entrantRoom(competitionId, user.id))
+        reply({ ok: true, scope: staff ? 'staff' : 'own' })
+      }
+      catch (error) {
+        logAdapter(error)
+        reply({ ok: false, message: MESSAGES.databaseDown })
+      }
+    })
+
+    socket.on('board:leave', async (raw: unknown) => {
+      const parsed = boardJoinSchema.safeParse(raw)
+      if (!parsed.success) return
+      await socket.leave(boardRoom(parsed.data.competitionId))
+      await socket.leave(entrantRoom(parsed.data.competitionId, user.id))
+    })
+  })
+
+  nitroApp.router.use('/socket.io/', defineEventHandler({
+    handler(event) {
+      engine.handleRequest(event.node.req, event.node.res)
+      event._handled = true
+    },
+    websocket: {
+      open(peer) {
+        // @ts-expect-error private method and property (crossws ≥ 0.3)
+        engine.prepare(peer._internal.nodeReq)
+        // @ts-expect-error private method and property (crossws ≥ 0.3)
+        engine.onWebSocket(peer._internal.nodeReq, peer._internal.nodeReq.socket, peer.websocket)
+      },
+    },
+  }))
+
+  setRealtime(io as unknown as Server)
+  nitroApp.hooks.hook('close', async () => {
+    setRealtime(null)
+    io.close()
+    await pool.end().catch(() => {})
+  })
+})

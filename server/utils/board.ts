@@ -1,0 +1,405 @@
+// The live board's state: one tile per accepted entry for each opened day, kept in
+// `board_tiles` and changed only inside the transaction of what changed it — a grid check, a
+// director's action, a dossier edit, a day being opened. Every change of a competition's
+// board takes the next number of its sequence (`board_sequences`) and is pushed to the
+// screens once its transaction has committed (see `boardTransaction`), so a screen that
+// missed one sees the gap in the numbers and fetches the board again.
+//
+// Writers of one competition's board take its lock first (`lockBoard`), then read the
+// dossiers: two writers can never compute a tile from data the other is about to change.
+import type { Knex } from 'knex'
+import { blockingFirst, evaluate, type Finding, type IsoDate } from '#shared/engine'
+import type { BoardCause, BoardDay, BoardSnapshot, BoardTile, BoardTileEvent, BoardDayEvent, EntryReadinessEvent } from '#shared/types/api-board'
+import type { BoardDayRow, BoardTileRow } from '#shared/types/rows-board'
+import { buildTile, diffFindings, sameTile, type TileAction, type TileBody, type TileCheck } from '#shared/utils/board-tile'
+import type { GridCheckAnswerJson } from '#shared/types/rows-grid'
+import { READINESS_LABELS } from '#shared/constants/readiness'
+
+// ---------------------------------------------------------------------------------------
+// Changes to push once the transaction commits
+
+interface EntrantNotice {
+  userId: string
+  event: EntryReadinessEvent
+}
+
+/** What one transaction changed on the boards; pushed by `boardTransaction` after commit. */
+export class BoardChanges {
+  readonly tiles: BoardTileEvent[] = []
+  readonly days: BoardDayEvent[] = []
+  readonly entrants: EntrantNotice[] = []
+  get empty() {
+    return !this.tiles.length && !this.days.length && !this.entrants.length
+  }
+}
+
+/**
+ * Runs `work` in one transaction and pushes the board changes it collected once (and only
+ * if) it committed: a screen never shows what the database does not hold.
+ */
+export async function boardTransaction<T>(work: (trx: Knex.Transaction, changes: BoardChanges) => Promise<T>, db: Knex = useDb()): Promise<T> {
+  const changes = new BoardChanges()
+  const result = await db.transaction(trx => work(trx, changes))
+  if (!changes.empty) publishBoardChanges(changes)
+  return result
+}
+
+// ---------------------------------------------------------------------------------------
+// Locks and sequence numbers
+
+/** Serialises the writers of one competition's board until the transaction ends. */
+export async function lockBoard(trx: Knex.Transaction, competitionId: string): Promise<void> {
+  await trx.raw('select pg_advisory_xact_lock(hashtext(?))', [`gridmark:board:${competitionId}`])
+}
+
+/** Takes `count` numbers of the competition's sequence; returns the first. */
+export async function takeSeq(trx: Knex.Transaction, competitionId: string, count = 1): Promise<number> {
+  const { rows } = await trx.raw(
+    `insert into board_sequences (competition_id, seq) values (?, ?)
+     on conflict (competition_id) do update set seq = board_sequences.seq + excluded.seq
+     returning seq`,
+    [competitionId, count],
+  )
+  return Number(rows[0].seq) - count + 1
+}
+
+export async function currentSeq(competitionId: string, db: Knex = useDb()): Promise<number> {
+  const row = await db('board_sequences').where({ competition_id: competitionId }).first('seq')
+  return row ? Number(row.seq) : 0
+}
+
+// ---------------------------------------------------------------------------------------
+// Days
+
+const dayColumns = (db: Knex) => [
+  'd.competition_id', 'd.kind', 'd.opened_at', 'd.closed_at', 'd.opened_by', 'd.closed_by',
+  db.raw(`to_char(d.day, 'YYYY-MM-DD') as day`),
+  'o.name as opened_by_name', 'c.name as closed_by_name',
+]
+
+export type BoardDayJoinedRow = BoardDayRow & { opened_by_name: string, closed_by_name: string | null }
+
+export function dayQuery(db: Knex, competitionId: string) {
+  return db('board_days as d')
+    .join('users as o', 'o.id', 'd.opened_by')
+    .leftJoin('users as c', 'c.id', 'd.closed_by')
+    .where('d.competition_id', competitionId)
+    .select(dayColumns(db))
+}
+
+export function toBoardDay(r: BoardDayJoinedRow): BoardDay {
+  return {
+    day: r.day,
+    kind: r.kind,
+    status: r.closed_at ? 'closed' : 'open',
+    openedAt: new Date(r.opened_at).toISOString(),
+    openedBy: r.opened_by_name,
+    closedAt: r.closed_at ? new Date(r.closed_at).toISOString() : null,
+    closedBy: r.closed_by_name,
+  }
+}
+
+/** The competition's open day, if one is open. */
+export async function openDayOf(competitionId: string, db: Knex = useDb()): Promise<BoardDay | null> {
+  const row = await dayQuery(db, competitionId).whereNull('d.closed_at').first() as BoardDayJoinedRow | undefined
+  return row ? toBoardDay(row) : null
+}
+
+/** The day the board shows: the one asked for, else the open day, else the latest opened. */
+export async function boardDayOf(competitionId: string, day: IsoDate | undefined, db: Knex = useDb()): Promise<BoardDay | null> {
+  const q = dayQuery(db, competitionId)
+  if (day) q.where('d.day', day)
+  else q.orderByRaw('d.closed_at is null desc, d.day desc')
+  const row = await q.first() as BoardDayJoinedRow | undefined
+  return row ? toBoardDay(row) : null
+}
+
+// ---------------------------------------------------------------------------------------
+// Tiles
+
+interface CheckRow {
+  entry_id: string
+  day: string
+  checked_at: Date
+  outcome: 'pass' | 'fail'
+  answers: GridCheckAnswerJson[]
+  scrutineer_name: string
+}
+
+interface ActionRow {
+  entry_id: string
+  kind: 'hold' | 'release' | 'waiver'
+  day: string | null
+  check_id: string | null
+  unit_id: string | null
+  subject: string | null
+  reason: string
+  actor_name: string
+  created_at: Date
+}
+
+interface EntrantRow {
+  id: string
+  comp_id: string
+  entrant_user_id: string
+  entrant_email: string
+  entrant_name: string
+}
+
+export function toTileCheck(r: CheckRow): TileCheck {
+  return {
+    day: r.day,
+    at: new Date(r.checked_at).toISOString(),
+    initials: initialsOf(r.scrutineer_name),
+    name: r.scrutineer_name,
+    outcome: r.outcome,
+    failedItems: r.answers.filter(a => a.result === 'fail').map(a => a.label),
+  }
+}
+
+export function toTileAction(r: ActionRow): TileAction {
+  const common = { by: r.actor_name, at: new Date(r.created_at).toISOString(), reason: r.reason }
+  if (r.kind === 'waiver') {
+    return {
+      kind: 'waiver',
+      day: r.day,
+      checkId: r.check_id!,
+      ...(r.unit_id !== null ? { unitId: r.unit_id } : {}),
+      ...(r.subject !== null ? { subject: r.subject } : {}),
+      ...common,
+    }
+  }
+  return { kind: r.kind, day: r.day!, ...common }
+}
+
+/** The director's actions that count on `day` (that day's, and waivers for the whole competition), in the order taken. */
+export function actionsQuery(db: Knex, competitionId: string, day: IsoDate, entryIds?: readonly string[]) {
+  const q = db('director_actions as a').join('users as u', 'u.id', 'a.actor_id')
+    .where('a.competition_id', competitionId)
+    .where(w => w.where('a.day', day).orWhereNull('a.day'))
+    .orderBy([{ column: 'a.created_at' }, { column: 'a.id' }])
+    .select('a.entry_id', 'a.kind', 'a.check_id', 'a.unit_id', 'a.subject', 'a.reason', 'a.created_at', 'u.name as actor_name',
+      db.raw(`to_char(a.day, 'YYYY-MM-DD') as day`))
+  if (entryIds) q.whereIn('a.entry_id', [...entryIds])
+  return q
+}
+
+function latestChecksQuery(db: Knex, competitionId: string, day: IsoDate, entryIds?: readonly string[]) {
+  const q = db('grid_checks as g').join('users as u', 'u.id', 'g.scrutineer_id')
+    .whereIn('g.id', latestGridCheckIds(db, competitionId, day))
+    .select('g.entry_id', 'g.checked_at', 'g.outcome', 'g.answers', 'u.name as scrutineer_name', db.raw(`to_char(g.day, 'YYYY-MM-DD') as day`))
+  if (entryIds) q.whereIn('g.entry_id', [...entryIds])
+  return q
+}
+
+function groupBy<T extends { entry_id: string }>(rows: T[]): Map<string, T[]> {
+  const out = new Map<string, T[]>()
+  for (const r of rows) {
+    const list = out.get(r.entry_id)
+    if (list) list.push(r)
+    else out.set(r.entry_id, [r])
+  }
+  return out
+}
+
+export interface RefreshOptions {
+  cause: BoardCause
+  /** Who caused the change (null for the system). */
+  actorId: string | null
+  /** Only these entries (default: every entry of the competition). */
+  entryIds?: readonly string[]
+  /** Do not e-mail the entrant about a new hold: the caller sends its own message. */
+  quietHold?: boolean
+  /** Push no tile changes (a day being opened pushes one day change instead). */
+  silent?: boolean
+}
+
+/**
+ * Brings the tiles of one open day up to date with the dossiers, grid checks and director's
+ * actions, in the caller's transaction (which holds the board's lock). Each tile that changed
+ * takes a sequence number and goes into `changes`; a tile whose findings changed leaves a
+ * `findings.changed` row in the audit log; an entry newly held has its entrant e-mailed.
+ * Entries no longer accepted leave the board. Returns the tiles as they now stand.
+ */
+export async function refreshTiles(
+  trx: Knex.Transaction,
+  competitionId: string,
+  day: IsoDate,
+  changes: BoardChanges,
+  opts: RefreshOptions,
+): Promise<Map<string, BoardTile>> {
+  const ids = opts.entryIds
+  const [loaded, checks, actions, existing, entrants] = await Promise.all([
+    loadCompetitionDossiers(competitionId, { entryIds: ids, acceptedOnly: true, day }, trx),
+    latestChecksQuery(trx, competitionId, day, ids) as Promise<CheckRow[]>,
+    actionsQuery(trx, competitionId, day, ids) as Promise<ActionRow[]>,
+    (() => {
+      const q = trx('board_tiles').where({ competition_id: competitionId, day }).select('entry_id', 'seq', 'readiness', 'tile', 'findings', 'updated_at')
+      if (ids) q.whereIn('entry_id', [...ids])
+      return q
+    })() as Promise<Pick<BoardTileRow, 'entry_id' | 'seq' | 'readiness' | 'tile' | 'findings' | 'updated_at'>[]>,
+    (() => {
+      const q = trx('entries as e').join('users as u', 'u.id', 'e.entrant_user_id').where('e.competition_id', competitionId)
+        .select('e.id', 'e.comp_id', 'e.entrant_user_id', 'u.email as entrant_email', 'u.name as entrant_name')
+      if (ids) q.whereIn('e.id', [...ids])
+      return q
+    })() as Promise<EntrantRow[]>,
+  ])
+  const result = new Map<string, BoardTile>()
+  if (!loaded) return result
+
+  const checkBy = new Map(checks.map(c => [c.entry_id, toTileCheck(c)]))
+  const actionsBy = groupBy(actions)
+  const before = new Map(existing.map(r => [r.entry_id, r]))
+  const entrantBy = new Map(entrants.map(e => [e.id, e]))
+  const firstOpening = existing.length === 0 && !ids
+
+  interface Pending { entryId: string, body: TileBody, findings: Finding[], previous?: (typeof existing)[number] }
+  const pending: Pending[] = []
+  loaded.dossiers.forEach((dossier, i) => {
+    const row = loaded.rows[i]!
+    const findings = loaded.competition ? blockingFirst(evaluate(dossier, loaded.competition, loaded.field, day)) : []
+    const body = buildTile({
+      entry: { id: row.id, compId: row.comp_id, classId: row.class_id, className: row.class_name, pilotName: row.pilot_name, registration: row.registration, gliderType: row.glider_type },
+      findings,
+      check: checkBy.get(row.id) ?? null,
+      actions: (actionsBy.get(row.id) ?? []).map(toTileAction),
+      day,
+    })
+    const previous = before.get(row.id)
+    if (previous && sameTile(previous.tile, body) && JSON.stringify(previous.findings) === JSON.stringify(findings)) {
+      result.set(row.id, toBoardTile(previous))
+      return
+    }
+    pending.push({ entryId: row.id, body, findings, previous })
+  })
+  const leaving = existing.filter(r => !loaded.rows.some(x => x.id === r.entry_id))
+
+  const count = pending.length + leaving.length
+  if (!count) return result
+  let seq = await takeSeq(trx, competitionId, count)
+  const now = new Date()
+
+  for (const p of pending) {
+    const tile: BoardTile = { ...p.body, seq, updatedAt: now.toISOString() }
+    seq++
+    await trx('board_tiles')
+      .insert({ competition_id: competitionId, day, entry_id: p.entryId, seq: tile.seq, readiness: tile.readiness, tile: JSON.stringify(p.body), findings: JSON.stringify(p.findings), updated_at: now })
+      .onConflict(['competition_id', 'day', 'entry_id'])
+      .merge(['seq', 'readiness', 'tile', 'findings', 'updated_at'])
+    result.set(p.entryId, tile)
+    if (!opts.silent) changes.tiles.push({ competitionId, day, seq: tile.seq, cause: opts.cause, entryId: p.entryId, tile })
+
+    const entrant = entrantBy.get(p.entryId)
+    if (entrant && !opts.silent) {
+      changes.entrants.push({
+        userId: entrant.entrant_user_id,
+        event: { competitionId, entryId: p.entryId, day, readiness: tile.readiness, headline: tile.headline, hold: tile.hold },
+      })
+    }
+    if (p.previous) {
+      const diff = diffFindings(p.previous.findings, p.findings)
+      if (diff.added.length || diff.removed.length) {
+        await audit(trx, {
+          actorUserId: opts.actorId,
+          competitionId,
+          action: 'findings.changed',
+          subjectType: 'entry',
+          subjectId: p.entryId,
+          details: { entryId: p.entryId, day, cause: opts.cause, added: diff.added, removed: diff.removed, readiness: { from: p.previous.readiness, to: tile.readiness } },
+        })
+      }
+    }
+    const newlyHeld = tile.readiness === 'held' && p.previous?.readiness !== 'held'
+    if (newlyHeld && !firstOpening && !opts.quietHold && entrant) {
+      await enqueueHeldMail(trx, competitionId, entrant, day, tile)
+    }
+  }
+  for (const r of leaving) {
+    await trx('board_tiles').where({ competition_id: competitionId, day, entry_id: r.entry_id }).delete()
+    if (!opts.silent) changes.tiles.push({ competitionId, day, seq, cause: opts.cause, entryId: r.entry_id, tile: null })
+    seq++
+  }
+  return result
+}
+
+/** Brings the open day's tiles up to date (no open day: nothing to do). Takes the board's lock. */
+export async function refreshOpenDay(competitionId: string, opts: RefreshOptions): Promise<void> {
+  await boardTransaction(async (trx, changes) => {
+    await lockBoard(trx, competitionId)
+    const open = await trx('board_days').where({ competition_id: competitionId }).whereNull('closed_at').first(trx.raw(`to_char(day, 'YYYY-MM-DD') as day`))
+    if (!open) return
+    await refreshTiles(trx, competitionId, open.day, changes, opts)
+  })
+}
+
+// ---------------------------------------------------------------------------------------
+// Reading the board
+
+export function toBoardTile(r: Pick<BoardTileRow, 'seq' | 'tile' | 'updated_at'>): BoardTile {
+  return { ...r.tile, seq: Number(r.seq), updatedAt: new Date(r.updated_at).toISOString() }
+}
+
+/**
+ * The board of one day at one sequence number. Read in one repeatable-read snapshot, so the
+ * number and the tiles agree: a pushed change numbered above it is news to the screen.
+ */
+export async function boardSnapshot(competition: { id: string, name: string, time_zone: string }, day?: IsoDate, db: Knex = useDb()): Promise<BoardSnapshot> {
+  return db.transaction(async (trx) => {
+    const shown = await boardDayOf(competition.id, day, trx)
+    const [seq, classes, tiles] = await Promise.all([
+      currentSeq(competition.id, trx),
+      trx('classes').where({ competition_id: competition.id }).orderBy([{ column: 'sort_order' }, { column: 'name' }]).select('id', 'name'),
+      shown
+        ? trx('board_tiles as t').join('entries as e', 'e.id', 't.entry_id').join('classes as k', 'k.id', 'e.class_id')
+            .where({ 't.competition_id': competition.id, 't.day': shown.day })
+            .orderBy([{ column: 'k.sort_order' }, { column: 'e.comp_id' }])
+            .select('t.seq', 't.tile', 't.updated_at')
+        : Promise.resolve([]),
+    ])
+    return {
+      competition: { id: competition.id, name: competition.name, timeZone: competition.time_zone },
+      day: shown,
+      seq,
+      classes: classes.map((c: { id: string, name: string }) => ({ id: c.id, name: c.name })),
+      tiles: (tiles as Pick<BoardTileRow, 'seq' | 'tile' | 'updated_at'>[]).map(toBoardTile),
+      generatedAt: new Date().toISOString(),
+    }
+  }, { isolationLevel: 'repeatable read', readOnly: true })
+}
+
+/** One entry's tile on a day, if it has one. */
+export async function boardTileOf(competitionId: string, day: IsoDate, entryId: string, db: Knex = useDb()): Promise<BoardTile | null> {
+  const row = await db('board_tiles').where({ competition_id: competitionId, day, entry_id: entryId }).first('seq', 'tile', 'updated_at')
+  return row ? toBoardTile(row) : null
+}
+
+// ---------------------------------------------------------------------------------------
+// E-mail to the entrant
+
+async function competitionName(trx: Knex, competitionId: string): Promise<string> {
+  const c = await trx('competitions').where({ id: competitionId }).first('name')
+  return c?.name ?? 'the competition'
+}
+
+async function enqueueHeldMail(trx: Knex.Transaction, competitionId: string, entrant: EntrantRow, day: IsoDate, tile: BoardTile): Promise<void> {
+  const name = await competitionName(trx, competitionId)
+  const mail = renderMail({
+    greeting: `Hello ${entrant.entrant_name},`,
+    paragraphs: [
+      `your glider ${entrant.comp_id} is ${READINESS_LABELS.held.toLowerCase()} on ${day} at ${name}: it may not launch until this is put right.`,
+      tile.headline ? `Why: ${tile.headline.text}` : 'Why: a blocking finding on the grid.',
+      'Talk to the scrutineers on the grid or the contest director. Where the fix touches hardware (firmware, antennas, ballast), follow the manufacturer’s instructions and the competition’s rules.',
+    ],
+    action: { label: 'Open your entry', url: `${publicBaseUrl()}/competitions/${competitionId}/entries/${entrant.id}` },
+  })
+  await enqueueMail(trx, {
+    to: entrant.entrant_email,
+    subject: `${entrant.comp_id} is held on ${day} — ${name}`,
+    text: mail.text,
+    html: mail.html,
+    template: 'board-held',
+    competitionId,
+    entryId: entrant.id,
+  })
+}

@@ -1,0 +1,38 @@
+// The socket.io server of this instance (created once by server/plugins/socket-io.ts) and the
+// rooms the board pushes to. Several instances share their events through PostgreSQL (the
+// adapter), so an emit here reaches screens connected to any instance.
+//   board:<competitionId>               staff of the competition: every tile, every day change
+//   entrant:<competitionId>:<userId>    an entrant: their own entries' readiness only
+//   session:<sessionId>                 every socket of one sign-in, closed at sign-out
+import type { Server } from 'socket.io'
+import type { BoardChanges } from './board'
+
+let io: Server | null = null
+
+export function setRealtime(server: Server | null): void {
+  io = server
+}
+
+export function useRealtime(): Server | null {
+  return io
+}
+
+export const boardRoom = (competitionId: string) => `board:${competitionId}`
+export const entrantRoom = (competitionId: string, userId: string) => `entrant:${competitionId}:${userId}`
+export const sessionRoom = (sessionId: string) => `session:${sessionId}`
+
+/** Pushes what a committed transaction changed: board changes in sequence order, then entrants' news. */
+export function publishBoardChanges(changes: BoardChanges): void {
+  if (!io) return
+  const board = [
+    ...changes.days.map(e => ({ seq: e.seq, room: boardRoom(e.competitionId), name: 'board:day', payload: e as object })),
+    ...changes.tiles.map(e => ({ seq: e.seq, room: boardRoom(e.competitionId), name: 'board:tile', payload: e as object })),
+  ].sort((a, b) => a.seq - b.seq)
+  for (const e of board) io.to(e.room).emit(e.name, e.payload)
+  for (const n of changes.entrants) io.to(entrantRoom(n.event.competitionId, n.userId)).emit('entry:readiness', n.event)
+}
+
+/** Closes the live connections of one sign-in (on every instance). */
+export function disconnectSessionSockets(sessionId: string): void {
+  io?.in(sessionRoom(sessionId)).disconnectSockets(true)
+}

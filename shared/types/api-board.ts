@@ -1,0 +1,179 @@
+// What the board routes answer and what the board's socket pushes.
+import type { DayKind, WaiverScope } from '../schemas/board'
+import type { Finding, IsoDate } from '../engine/types'
+import type { Readiness } from '../engine/readiness'
+
+/** What a tile shows under its readiness word: why it is held, what failed, or the first finding. */
+export interface BoardHeadline {
+  kind: 'hold' | 'checklist' | 'finding'
+  text: string
+  severity?: Finding['severity']
+  checkId?: string
+}
+
+export interface BoardTile {
+  entryId: string
+  compId: string
+  classId: string
+  className: string
+  pilotName: string
+  registration: string
+  gliderType: string
+  readiness: Readiness
+  headline: BoardHeadline | null
+  /** Open findings (waivers applied), and how many were waived. */
+  counts: { blocking: number, advisory: number, waived: number }
+  lastCheck: { at: string, initials: string, name: string, outcome: 'pass' | 'fail' } | null
+  hold: { reason: string, by: string, at: string } | null
+  /** The board sequence number of the tile's last change. */
+  seq: number
+  updatedAt: string
+}
+
+export interface BoardDay {
+  day: IsoDate
+  kind: DayKind
+  status: 'open' | 'closed'
+  openedAt: string
+  openedBy: string
+  closedAt: string | null
+  closedBy: string | null
+}
+
+export interface BoardClass {
+  id: string
+  name: string
+}
+
+/** GET …/board: the whole board of one day, at sequence number `seq`. */
+export interface BoardSnapshot {
+  competition: { id: string, name: string, timeZone: string }
+  /** The day shown: the open day, else the latest; null before the first day is opened. */
+  day: BoardDay | null
+  seq: number
+  classes: BoardClass[]
+  tiles: BoardTile[]
+  generatedAt: string
+}
+
+/** GET …/board/seq: enough to tell a screen whether it missed something. */
+export interface BoardSeq {
+  seq: number
+  openDay: IsoDate | null
+}
+
+/** GET …/days: the competition's scheduled days and the days opened so far. */
+export interface DayList {
+  today: IsoDate
+  timeZone: string
+  scheduled: { day: IsoDate, kind: DayKind }[]
+  days: BoardDay[]
+  openDay: IsoDate | null
+}
+
+export type BoardCause = 'grid-check' | 'hold' | 'release' | 'waiver' | 'dossier' | 'day'
+
+/** Pushed to a board room: one tile changed (null: the entry left the board). */
+export interface BoardTileEvent {
+  competitionId: string
+  day: IsoDate
+  seq: number
+  cause: BoardCause
+  entryId: string
+  tile: BoardTile | null
+}
+
+/** Pushed to a board room when a day is opened or closed: fetch the board again. */
+export interface BoardDayEvent {
+  competitionId: string
+  seq: number
+  day: BoardDay
+}
+
+/** Pushed to an entrant: their own entry's readiness changed. */
+export interface EntryReadinessEvent {
+  competitionId: string
+  entryId: string
+  day: IsoDate
+  readiness: Readiness
+  headline: BoardHeadline | null
+  hold: BoardTile['hold']
+}
+
+/** The answer to a socket's `board:join`. */
+export type BoardJoinAck = { ok: true, scope: 'staff' | 'own' } | { ok: false, message: string }
+
+export interface DirectorActionRecord {
+  id: string
+  kind: 'hold' | 'release' | 'waiver'
+  /** Null for a waiver of the whole competition. */
+  day: IsoDate | null
+  scope: WaiverScope | null
+  checkId: string | null
+  unitId: string | null
+  subject: string | null
+  reason: string
+  finding: { severity: Finding['severity'], reason: string } | null
+  actor: { id: string, name: string }
+  at: string
+}
+
+export interface BoardFinding extends Finding {
+  /** The waiver that lifts it on this day, if any. */
+  waiver: { id: string, scope: WaiverScope, reason: string, by: string, at: string } | null
+}
+
+/** GET …/board/entries/:entryId: one tile with everything the director decides on. */
+export interface BoardEntryDetail {
+  day: BoardDay | null
+  tile: BoardTile | null
+  findings: BoardFinding[]
+  actions: DirectorActionRecord[]
+  /** The director may act (the caller is a director and the day is open). */
+  canDirect: boolean
+}
+
+/** POST hold / release / waiver. */
+export interface DirectorActionResult {
+  action: DirectorActionRecord
+  tile: BoardTile | null
+}
+
+export type TimelineKind = 'grid-check' | 'findings' | 'hold' | 'release' | 'waiver' | 'day'
+
+export interface TimelineItem {
+  id: string
+  kind: TimelineKind
+  at: string
+  day: IsoDate | null
+  actor: { id: string, name: string } | null
+  /** One line in words, e.g. "Grid check: pass — ready" or "Held: canopy crack". */
+  summary: string
+  details: Record<string, unknown>
+}
+
+export interface EntryTimeline {
+  entryId: string
+  compId: string
+  items: TimelineItem[]
+}
+
+export interface AuditLogItem {
+  id: number
+  at: string
+  action: string
+  actor: { id: string, name: string } | null
+  subjectType: string
+  subjectId: string | null
+  entry: { id: string, compId: string } | null
+  details: Record<string, unknown>
+}
+
+export interface AuditPage {
+  rows: AuditLogItem[]
+  /** Pass as `before` for the next (older) page; null at the end. */
+  nextBefore: number | null
+  /** For the filters: who and what appear in this competition's log. */
+  actors: { id: string, name: string }[]
+  actions: string[]
+}

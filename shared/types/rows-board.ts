@@ -1,0 +1,44 @@
+// Row types of the board tables (migrations/20261205000100_board.ts, …200_director_actions.ts).
+import type { DayKind } from '../schemas/board'
+import type { Finding } from '../engine/types'
+import type { Readiness } from '../engine/readiness'
+import type { BoardTile } from './api-board'
+
+export interface BoardDayRow {
+  competition_id: string
+  /** YYYY-MM-DD (read with to_char) */
+  day: string
+  kind: DayKind
+  opened_at: Date
+  opened_by: string
+  closed_at: Date | null
+  closed_by: string | null
+}
+
+export interface BoardTileRow {
+  competition_id: string
+  day: string
+  entry_id: string
+  /** bigint arrives from pg as a string */
+  seq: string
+  readiness: Readiness
+  tile: Omit<BoardTile, 'seq' | 'updatedAt'>
+  findings: Finding[]
+  updated_at: Date
+}
+
+export interface DirectorActionRow {
+  id: string
+  competition_id: string
+  entry_id: string
+  kind: 'hold' | 'release' | 'waiver'
+  /** YYYY-MM-DD, or null for a waiver of the whole competition */
+  day: string | null
+  check_id: string | null
+  unit_id: string | null
+  subject: string | null
+  reason: string
+  finding: { severity: Finding['severity'], reason: string } | null
+  actor_id: string
+  created_at: Date
+}
