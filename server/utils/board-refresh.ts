@@ -2,11 +2,13 @@
 // IGC files, payments, set-up, the firmware catalogue): after a successful write under
 // /api/competitions/:id/ (server/plugins/board-refresh.ts), or a payment notification, the
 // competition's open day is brought up to date — once per burst of writes, a moment later,
-// outside the request. Writes that change the board themselves (grid checks, the director's
+// outside the request (a steady stream of writes: at least once a second). Writes that change the board themselves (grid checks, the director's
 // actions, opening and closing days) set `event.context.boardHandled` and are skipped.
 const DEBOUNCE_MS = 250
+/** A steady stream of writes still brings the board up to date this often. */
+const MAX_WAIT_MS = 1000
 
-const timers = new Map<string, ReturnType<typeof setTimeout>>()
+const timers = new Map<string, { timer: ReturnType<typeof setTimeout>, since: number }>()
 const running = new Map<string, Promise<void>>()
 
 function logFailure(competitionId: string, error: unknown) {
@@ -16,8 +18,10 @@ function logFailure(competitionId: string, error: unknown) {
 /** Brings the competition's open day up to date soon (several calls in a burst: once). */
 export function scheduleBoardRefresh(competitionId: string, actorId: string | null): void {
   const pending = timers.get(competitionId)
-  if (pending) clearTimeout(pending)
-  timers.set(competitionId, setTimeout(() => {
+  if (pending) clearTimeout(pending.timer)
+  const since = pending?.since ?? Date.now()
+  const delay = Math.max(0, Math.min(DEBOUNCE_MS, since + MAX_WAIT_MS - Date.now()))
+  timers.set(competitionId, { since, timer: setTimeout(() => {
     timers.delete(competitionId)
     const previous = running.get(competitionId) ?? Promise.resolve()
     const next = previous
@@ -27,7 +31,7 @@ export function scheduleBoardRefresh(competitionId: string, actorId: string | nu
         if (running.get(competitionId) === next) running.delete(competitionId)
       })
     running.set(competitionId, next)
-  }, DEBOUNCE_MS))
+  }, delay) })
 }
 
 /** Every open day of every competition, rebuilt from the dossiers (at start: tiles are derived data). */

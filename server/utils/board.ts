@@ -11,7 +11,7 @@ import type { Knex } from 'knex'
 import { blockingFirst, evaluate, type Finding, type IsoDate } from '#shared/engine'
 import type { BoardCause, BoardDay, BoardSnapshot, BoardTile, BoardTileEvent, BoardDayEvent, EntryReadinessEvent } from '#shared/types/api-board'
 import type { BoardDayRow, BoardTileRow } from '#shared/types/rows-board'
-import { buildTile, diffFindings, sameTile, type TileAction, type TileBody, type TileCheck } from '#shared/utils/board-tile'
+import { buildTile, diffFindings, sameTile, sortedJson, type TileAction, type TileBody, type TileCheck } from '#shared/utils/board-tile'
 import type { GridCheckAnswerJson } from '#shared/types/rows-grid'
 import { READINESS_LABELS } from '#shared/constants/readiness'
 
@@ -126,7 +126,7 @@ interface CheckRow {
   scrutineer_name: string
 }
 
-interface ActionRow {
+export interface BoardActionRow {
   entry_id: string
   kind: 'hold' | 'release' | 'waiver'
   day: string | null
@@ -157,7 +157,7 @@ export function toTileCheck(r: CheckRow): TileCheck {
   }
 }
 
-export function toTileAction(r: ActionRow): TileAction {
+export function toTileAction(r: BoardActionRow): TileAction {
   const common = { by: r.actor_name, at: new Date(r.created_at).toISOString(), reason: r.reason }
   if (r.kind === 'waiver') {
     return {
@@ -232,7 +232,7 @@ export async function refreshTiles(
   const [loaded, checks, actions, existing, entrants] = await Promise.all([
     loadCompetitionDossiers(competitionId, { entryIds: ids, acceptedOnly: true, day }, trx),
     latestChecksQuery(trx, competitionId, day, ids) as Promise<CheckRow[]>,
-    actionsQuery(trx, competitionId, day, ids) as Promise<ActionRow[]>,
+    actionsQuery(trx, competitionId, day, ids) as Promise<BoardActionRow[]>,
     (() => {
       const q = trx('board_tiles').where({ competition_id: competitionId, day }).select('entry_id', 'seq', 'readiness', 'tile', 'findings', 'updated_at')
       if (ids) q.whereIn('entry_id', [...ids])
@@ -267,7 +267,7 @@ export async function refreshTiles(
       day,
     })
     const previous = before.get(row.id)
-    if (previous && sameTile(previous.tile, body) && JSON.stringify(previous.findings) === JSON.stringify(findings)) {
+    if (previous && sameTile(previous.tile, body) && sortedJson(previous.findings) === sortedJson(findings)) {
       result.set(row.id, toBoardTile(previous))
       return
     }

@@ -10,7 +10,7 @@ import { MESSAGES } from '#shared/constants/messages'
 import type { HoldBody, WaiverBody } from '#shared/schemas/board'
 import type { BoardEntryDetail, BoardFinding, DirectorActionRecord, DirectorActionResult } from '#shared/types/api-board'
 import type { DirectorActionRow } from '#shared/types/rows-board'
-import { activeHold, findingKey } from '#shared/utils/board-tile'
+import { activeHold } from '#shared/utils/board-tile'
 import type { CompetitionAccess } from './authz'
 import { actionsQuery, boardDayOf, boardTileOf, toTileAction } from './board'
 
@@ -128,8 +128,10 @@ export async function waiveFinding(access: CompetitionAccess, entryId: string, b
     const loaded = await loadCompetitionDossiers(competition.id, { entryIds: [entryId], day: evalDay }, trx)
     const dossier = loaded?.dossiers[0]
     const findings = loaded?.competition && dossier ? evaluate(dossier, loaded.competition, loaded.field, evalDay) : []
-    const wanted = findingKey({ checkId: body.checkId, unitId: body.unitId, subject: body.subject })
-    const finding = findings.find(f => findingKey(f) === wanted)
+    // Unit and subject narrow the choice when given; the waiver stores those of the finding found.
+    const finding = findings.find(f => f.checkId === body.checkId
+      && (body.unitId === undefined || f.unitId === body.unitId)
+      && (body.subject === undefined || f.subject === body.subject))
     if (!finding) throw httpError(409, MESSAGES.findingNotFound)
 
     const [row] = await trx('director_actions').insert({

@@ -16,6 +16,7 @@ import type { ChecklistAnswer, GridCheckList, GridCheckRecord, GridCheckResult, 
 import type { GridCheckRow, WeighInRow } from '#shared/types/rows-grid'
 import type { CompetitionRow } from '#shared/types/rows'
 import type { User } from '#auth-utils'
+import { sortedJson } from '#shared/utils/board-tile'
 import { rulesOf } from './competition-setup'
 import { actionsQuery, boardTransaction, lockBoard, refreshTiles, toTileAction } from './board'
 import type { CompetitionAccess } from './authz'
@@ -28,16 +29,7 @@ export const GRID_DAYS_AHEAD = 1
 // Pure parts
 
 /** Keys sorted at every level, undefined left out: the same value always gives the same text. */
-export function canonicalJson(value: unknown): string {
-  if (Array.isArray(value)) return `[${value.map(canonicalJson).join(',')}]`
-  if (value && typeof value === 'object') {
-    const entries = Object.entries(value as Record<string, unknown>)
-      .filter(([, v]) => v !== undefined)
-      .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))
-    return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${canonicalJson(v)}`).join(',')}}`
-  }
-  return JSON.stringify(value)
-}
+export const canonicalJson = sortedJson
 
 /**
  * The fingerprint a replay is compared by: the parsed body with its optional parts filled in

@@ -2,11 +2,13 @@
 // without signal — their engine dossiers (with weigh-ins and the day's latest check), the
 // field for the uniqueness checks, the competition as the engine reads it, the checklist,
 // each entry's current tag (short code and token hash, read from the tags table) and the
-// day's last check. One read of the competition's dossiers, a few queries in all.
+// day's last check, and the director's actions of the day (so the phone's readiness counts
+// holds and waivers as the board does). One read of the competition's dossiers, a few queries in all.
 import type { Knex } from 'knex'
-import type { IsoDate } from '#shared/engine'
+import type { DirectorAction, IsoDate } from '#shared/engine'
 import type { GridPack, GridPackEntry } from '#shared/types/api-grid'
 import { rulesOf } from './competition-setup'
+import { actionsQuery, toTileAction, type BoardActionRow } from './board'
 
 /** Current (not revoked) tags of a competition's entries, by entry id. */
 async function currentTags(competitionId: string, db: Knex): Promise<Map<string, { shortCode: string, tokenHash: string }>> {
@@ -20,12 +22,18 @@ export async function gridPack(competitionId: string, day: IsoDate | undefined, 
   const zone = await db('competitions').where({ id: competitionId }).first('time_zone')
   if (!zone) return undefined
   const theDay = day ?? todayIn(zone.time_zone, now)
-  const [loaded, tags, latest] = await Promise.all([
+  const [loaded, tags, latest, actions] = await Promise.all([
     loadCompetitionDossiers(competitionId, { acceptedOnly: true, day: theDay }, db),
     currentTags(competitionId, db),
     latestGridChecks(competitionId, theDay, db),
+    actionsQuery(db, competitionId, theDay) as Promise<BoardActionRow[]>,
   ])
   if (!loaded) return undefined
+  const actionsBy = new Map<string, DirectorAction[]>()
+  for (const a of actions) {
+    const { by: _by, at: _at, ...action } = toTileAction(a)
+    actionsBy.set(a.entry_id, [...(actionsBy.get(a.entry_id) ?? []), action])
+  }
   const entries: GridPackEntry[] = loaded.dossiers.map((dossier, i) => {
     const id = dossier.entry.id
     const last = latest.get(id)
@@ -34,6 +42,7 @@ export async function gridPack(competitionId: string, day: IsoDate | undefined, 
       classId: loaded.rows[i]!.class_id,
       tag: tags.get(id) ?? null,
       lastCheck: last ? toGridCheckSummary(last) : null,
+      directorActions: actionsBy.get(id) ?? [],
     }
   })
   return {

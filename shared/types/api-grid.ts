@@ -1,7 +1,7 @@
 // What the grid-check routes answer, and the day's pack a scrutineer's phone keeps offline.
 import type { CheckResult, ChecklistItem, FoundBy } from '../constants/grid'
 import type { CompetitionForEngine, Dossier, Field, Finding, IsoDate, WeighUnits, ScaleReading } from '../engine/types'
-import type { Readiness } from '../engine/readiness'
+import type { DirectorAction, Readiness } from '../engine/readiness'
 
 export interface ChecklistAnswer {
   itemId: string
@@ -66,6 +66,8 @@ export interface GridPackEntry {
   /** The entry's current tag: its short code, and the SHA-256 (hex) of the QR token. */
   tag: { shortCode: string, tokenHash: string } | null
   lastCheck: GridCheckSummary | null
+  /** The director's holds, releases and waivers that count on the day, in the order taken (absent in packs kept from before). */
+  directorActions?: DirectorAction[]
 }
 
 /** Everything the phone needs to check the day's gliders without signal. */

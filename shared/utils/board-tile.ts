@@ -109,9 +109,19 @@ export function diffFindings(before: readonly Finding[], after: readonly Finding
   }
 }
 
-/** Whether two tiles show the same thing (the sequence number and time aside). */
+/** JSON with keys sorted at every level: a value read back from jsonb (which reorders keys) compares equal. */
+export function sortedJson(value: unknown): string {
+  if (Array.isArray(value)) return `[${value.map(sortedJson).join(',')}]`
+  if (value && typeof value === 'object') {
+    const entries = Object.entries(value as Record<string, unknown>).filter(([, v]) => v !== undefined).sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))
+    return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${sortedJson(v)}`).join(',')}}`
+  }
+  return JSON.stringify(value)
+}
+
+/** Whether two tiles show the same thing (the sequence number and time aside), whatever their key order. */
 export function sameTile(a: TileBody, b: TileBody): boolean {
-  return JSON.stringify(a) === JSON.stringify(b)
+  return sortedJson(a) === sortedJson(b)
 }
 
 export type ReadinessCounts = Record<Readiness, number> & { total: number }
