@@ -99,10 +99,10 @@ export function toBoardDay(r: BoardDayJoinedRow): BoardDay {
   }
 }
 
-/** The competition's open day, if one is open. */
-export async function openDayOf(competitionId: string, db: Knex = useDb()): Promise<BoardDay | null> {
-  const row = await dayQuery(db, competitionId).whereNull('d.closed_at').first() as BoardDayJoinedRow | undefined
-  return row ? toBoardDay(row) : null
+/** The date of the competition's open day, or null (one light query, for writers). */
+export async function openDate(db: Knex, competitionId: string): Promise<IsoDate | null> {
+  const row = await db('board_days').where({ competition_id: competitionId }).whereNull('closed_at').first(db.raw(`to_char(day, 'YYYY-MM-DD') as day`))
+  return row?.day ?? null
 }
 
 /** The day the board shows: the one asked for, else the open day, else the latest opened. */
@@ -327,9 +327,8 @@ export async function refreshTiles(
 export async function refreshOpenDay(competitionId: string, opts: RefreshOptions): Promise<void> {
   await boardTransaction(async (trx, changes) => {
     await lockBoard(trx, competitionId)
-    const open = await trx('board_days').where({ competition_id: competitionId }).whereNull('closed_at').first(trx.raw(`to_char(day, 'YYYY-MM-DD') as day`))
-    if (!open) return
-    await refreshTiles(trx, competitionId, open.day, changes, opts)
+    const day = await openDate(trx, competitionId)
+    if (day) await refreshTiles(trx, competitionId, day, changes, opts)
   })
 }
 

@@ -9,7 +9,7 @@ import type { BoardDay, DayList } from '#shared/types/api-board'
 import type { CompetitionRow } from '#shared/types/rows'
 import { MESSAGES } from '#shared/constants/messages'
 import type { CompetitionAccess } from './authz'
-import { dayQuery, toBoardDay, type BoardDayJoinedRow } from './board'
+import { dayQuery, openDate, toBoardDay, type BoardDayJoinedRow } from './board'
 
 function fieldError(field: string, message: string) {
   return httpError(400, `${MESSAGES.invalidInput} ${message}`, { fieldErrors: { [field]: [message] }, formErrors: [] })
@@ -32,9 +32,9 @@ export async function openDay(access: CompetitionAccess, body: DayOpenBody, now:
 
   return boardTransaction(async (trx, changes) => {
     await lockBoard(trx, competition.id)
-    const open = await trx('board_days').where({ competition_id: competition.id }).whereNull('closed_at').first(trx.raw(`to_char(day, 'YYYY-MM-DD') as day`))
-    if (open?.day === day) return { day: (await dayRow(trx, competition.id, day))!, created: false }
-    if (open) throw httpError(409, MESSAGES.dayAlreadyOpen(open.day))
+    const open = await openDate(trx, competition.id)
+    if (open === day) return { day: (await dayRow(trx, competition.id, day))!, created: false }
+    if (open) throw httpError(409, MESSAGES.dayAlreadyOpen(open))
 
     const scheduled = await trx('competition_days').where({ competition_id: competition.id, day }).first('kind')
     const kind = scheduled?.kind ?? body.kind

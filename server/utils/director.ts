@@ -12,7 +12,7 @@ import type { BoardEntryDetail, BoardFinding, DirectorActionRecord, DirectorActi
 import type { DirectorActionRow } from '#shared/types/rows-board'
 import { activeHold } from '#shared/utils/board-tile'
 import type { CompetitionAccess } from './authz'
-import { actionsQuery, boardDayOf, boardTileOf, toTileAction } from './board'
+import { actionsQuery, boardDayOf, boardTileOf, openDate, toTileAction } from './board'
 
 type ActionRowWithActor = DirectorActionRow & { actor_name: string, day: string | null }
 
@@ -40,10 +40,10 @@ export function toDirectorActionRecord(r: ActionRowWithActor): DirectorActionRec
 
 /** The open day the action is for: the named one must be the open day; none named takes it. */
 async function actionDay(trx: Knex, competitionId: string, day: IsoDate | undefined): Promise<IsoDate> {
-  const open = await trx('board_days').where({ competition_id: competitionId }).whereNull('closed_at').first(trx.raw(`to_char(day, 'YYYY-MM-DD') as day`))
+  const open = await openDate(trx, competitionId)
   if (!open) throw httpError(409, MESSAGES.noOpenDay)
-  if (day && day !== open.day) throw httpError(409, MESSAGES.dayNotOpen(day))
-  return open.day
+  if (day && day !== open) throw httpError(409, MESSAGES.dayNotOpen(day))
+  return open
 }
 
 async function boardEntry(trx: Knex, competitionId: string, entryId: string) {
@@ -119,12 +119,12 @@ export async function waiveFinding(access: CompetitionAccess, entryId: string, b
   const { competition, user } = access
   return boardTransaction(async (trx, changes) => {
     await lockBoard(trx, competition.id)
-    const open = await trx('board_days').where({ competition_id: competition.id }).whereNull('closed_at').first(trx.raw(`to_char(day, 'YYYY-MM-DD') as day`))
+    const open = await openDate(trx, competition.id)
     const day = body.scope === 'day' ? await actionDay(trx, competition.id, body.day) : null
     await boardEntry(trx, competition.id, entryId)
 
     // The finding must stand now (on the open day, if any): a waiver names what it lifts.
-    const evalDay: IsoDate | undefined = day ?? open?.day ?? undefined
+    const evalDay: IsoDate | undefined = day ?? open ?? undefined
     const loaded = await loadCompetitionDossiers(competition.id, { entryIds: [entryId], day: evalDay }, trx)
     const dossier = loaded?.dossiers[0]
     const findings = loaded?.competition && dossier ? evaluate(dossier, loaded.competition, loaded.field, evalDay) : []
@@ -156,7 +156,7 @@ export async function waiveFinding(access: CompetitionAccess, entryId: string, b
     })
     let tile = null
     if (open) {
-      const tiles = await refreshTiles(trx, competition.id, open.day, changes, { cause: 'waiver', actorId: user.id, entryIds: [entryId] })
+      const tiles = await refreshTiles(trx, competition.id, open, changes, { cause: 'waiver', actorId: user.id, entryIds: [entryId] })
       tile = tiles.get(entryId) ?? null
     }
     const record = await actionQuery(trx).where('a.id', row.id).first() as ActionRowWithActor

@@ -18,7 +18,7 @@ import type { CompetitionRow } from '#shared/types/rows'
 import type { User } from '#auth-utils'
 import { sortedJson } from '#shared/utils/board-tile'
 import { rulesOf } from './competition-setup'
-import { actionsQuery, boardTransaction, lockBoard, refreshTiles, toTileAction } from './board'
+import { actionsQuery, boardTransaction, lockBoard, openDate, refreshTiles, toTileAction } from './board'
 import type { CompetitionAccess } from './authz'
 
 /** A grid check is for today, tomorrow (a phone ahead of midnight), or up to 14 days back. */
@@ -319,8 +319,7 @@ export async function recordGridCheck(
       },
     })
     // On an open day the entry's tile follows at once, pushed to the boards after commit.
-    const open = await trx('board_days').where({ competition_id: competition.id, day: body.day }).whereNull('closed_at').first('day')
-    if (open) await refreshTiles(trx, competition.id, body.day, changes, { cause: 'grid-check', actorId: user.id, entryIds: [entry.id] })
+    if (await openDate(trx, competition.id) === body.day) await refreshTiles(trx, competition.id, body.day, changes, { cause: 'grid-check', actorId: user.id, entryIds: [entry.id] })
     return { gridCheck: await gridCheckById(trx, gridCheckId), replayed: false }
   })
 }

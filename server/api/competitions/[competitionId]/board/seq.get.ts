@@ -8,6 +8,6 @@ export default defineApiHandler(async (event): Promise<BoardSeq> => {
   const { competitionId } = await validParams(event, competitionParamsSchema)
   await requireRole(event, competitionId, STAFF_ROLES)
   setResponseHeader(event, 'cache-control', 'no-store')
-  const [seq, open] = await Promise.all([currentSeq(competitionId), openDayOf(competitionId)])
-  return { seq, openDay: open?.day ?? null }
+  const [seq, openDay] = await Promise.all([currentSeq(competitionId), openDate(useDb(), competitionId)])
+  return { seq, openDay }
 })
