@@ -99,7 +99,6 @@ describe('the readiness board', () => {
       const tile = document.querySelector('[data-testid="board-tile"]')!.getBoundingClientRect().width
       return { row, tile, perRow: Math.floor(row / tile) }
     })
-    await screenshot(page, 'board-wall-before')
     expect(across.perRow, JSON.stringify(across)).toBeGreaterThanOrEqual(10)
     expect(across.perRow, JSON.stringify(across)).toBeLessThanOrEqual(12)
 
@@ -119,6 +118,20 @@ describe('the readiness board', () => {
     // The highlight is brief.
     await page.locator(`[data-testid="board-tile"][data-entry-id="${target}"][data-changed="false"]`).waitFor({ timeout: 8000 })
     expect(await noSideScroll(page)).toBe(true)
+
+    // The chime is remembered on this device; sunlight mode keeps every state readable.
+    const chime = page.getByTestId('board-chime')
+    expect(await chime.getAttribute('aria-pressed')).toBe('false')
+    await chime.click()
+    await expect.poll(() => chime.getAttribute('aria-pressed')).toBe('true')
+    await page.getByTestId('sunlight-toggle').click()
+    await expect.poll(() => page.evaluate(() => document.documentElement.classList.contains('sunlight'))).toBe(true)
+    await page.reload({ waitUntil: 'load' })
+    await page.locator('[data-testid="board"][data-connection="live"][data-loaded="true"]').waitFor()
+    expect(await page.getByTestId('board-chime').getAttribute('aria-pressed')).toBe('true')
+    expect(await noSideScroll(page)).toBe(true)
+    await screenshot(page, 'board-wall-sunlight')
+    await page.getByTestId('sunlight-toggle').click()
   })
 
   it('keeps its filters in the address and fits a laptop and a phone', async () => {
@@ -163,6 +176,33 @@ describe('the readiness board', () => {
     expect(await page.getByTestId('board-no-day').textContent()).toContain('The contest director opens the day on Contest days.')
     expect(await page.getByTestId('board-no-day').getByRole('link', { name: 'Contest days' }).getAttribute('href')).toBe(`/competitions/${other.competitionId}/days`)
     await screenshot(page, 'board-no-day')
+  })
+
+  it('shows a day closed while it is open on the screen, and says the board shows how it ended', async () => {
+    const other = await gridWorld(baseUrl, 'Browser Board Closing Cup')
+    const first = await gridEntry(other, { compId: 'C1' })
+    await gridEntry(other, { compId: 'C2' })
+    const opened = await other.director.client.post(`${other.base}/days`, { kind: 'practice' })
+    expect(opened.status).toBe(201)
+    const checked = await other.scrutineer.client.post(`${other.base}/grid-checks`, checkBody(first))
+    expect(checked.status).toBe(201)
+
+    const browser = await launchBrowser()
+    browsers.push(browser)
+    const page = await openPage(browser.context, baseUrl, '/sign-in', 'desk')
+    await signInThroughForm(page, baseUrl, other.director.email, GOOD_PASSWORD, `/competitions/${other.competitionId}/board`)
+    await page.locator('[data-testid="board"][data-connection="live"][data-loaded="true"]').waitFor({ timeout: 20_000 })
+    expect(await page.getByTestId('board-closed').count()).toBe(0)
+
+    const closed = await other.director.client.post(`${other.base}/days/${opened.body.day.day}/close`)
+    expect(closed.status).toBe(200)
+    // Pushed as a day change: the board is fetched again, no reload.
+    await page.locator('[data-testid="board-day"][data-status="closed"]').waitFor({ timeout: 5000 })
+    expect(await page.getByTestId('board-closed').textContent()).toContain('shows how it ended')
+    expect(await page.getByTestId('board-tile').count()).toBe(2)
+    // One class has gliders on this board: no chips to choose between classes.
+    expect(await page.getByTestId('board-filter-class').count()).toBe(0)
+    await screenshot(page, 'board-closed')
   })
 
   it('says it is reconnecting while the server is away, then is live again with what changed meanwhile', async () => {
