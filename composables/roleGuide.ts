@@ -1,8 +1,7 @@
 import type { Role } from '#shared/constants/roles'
 
 // What each role does in a competition and where it goes next, in the product's own words.
-// A role whose own page has not arrived yet (the director's board) points at its duties on
-// the competition overview.
+// A role with no page of its own to start from points at its duties on the competition overview.
 export interface RoleLink {
   label: string
   /** Path below /competitions/<id>, or an absolute path when it starts with '~' (e.g. '~/entries'). */
@@ -37,6 +36,8 @@ export const ROLE_GUIDE: Record<Role, RoleGuide> = {
     ],
     links: [
       { label: 'Entries', path: '/entries' },
+      { label: 'Readiness board', path: '/board' },
+      { label: 'Audit log', path: '/audit' },
       { label: 'Set-up', path: '/setup' },
       { label: 'People', path: '/people' },
       { label: 'Payments', path: '/payments' },
@@ -48,13 +49,16 @@ export const ROLE_GUIDE: Record<Role, RoleGuide> = {
   director: {
     next: 'Watch the readiness board; hold, release or waive.',
     action: 'Open the readiness board',
-    actionPath: '',
+    actionPath: '/board',
     duties: [
       'Open each contest day and watch the readiness board.',
       'Hold or release a glider.',
       'Accept a finding for one day with a recorded reason (a waiver).',
     ],
     links: [
+      { label: 'Readiness board', path: '/board' },
+      { label: 'Contest days', path: '/days' },
+      { label: 'Audit log', path: '/audit' },
       { label: 'Entries', path: '/entries' },
       { label: 'Launch grid', path: '/grid' },
     ],
@@ -70,6 +74,7 @@ export const ROLE_GUIDE: Record<Role, RoleGuide> = {
     ],
     links: [
       { label: 'Launch grid', path: '/grid' },
+      { label: 'Readiness board', path: '/board' },
       { label: 'Document review', path: '/documents' },
       { label: 'Entries', path: '/entries' },
       { label: 'Firmware catalogue', path: '/firmware' },

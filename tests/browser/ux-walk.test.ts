@@ -121,6 +121,7 @@ describe('walking every page as each demo role', () => {
     await asRole('director@gridmark.example', [
       ['/', 'home-director'],
       [c, 'overview-director'],
+      [`${c}/board`, 'board-director'],
     ])
   })
 

@@ -24,7 +24,7 @@ describe('HomeCompetitions', () => {
     expect(card.text()).toContain('Nowhere Field')
     expect(card.text()).toContain('10–17 July 2027')
     expect(card.findAll('[data-testid="role-chip"]').map(c => c.text())).toEqual(['Contest director', 'Entrant'])
-    expect(card.find('a[href="/competitions/c1#role-director"]').text()).toContain('Open the readiness board')
+    expect(card.find('a[href="/competitions/c1/board"]').text()).toContain('Open the readiness board')
     expect(home.find('[data-testid="admin-note"]').exists()).toBe(false)
   })
 

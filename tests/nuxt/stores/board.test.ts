@@ -1,0 +1,331 @@
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest'
+import { registerEndpoint } from '@nuxt/test-utils/runtime'
+import { setResponseStatus } from 'h3'
+import { createPinia, setActivePinia } from 'pinia'
+import type { Readiness } from '#shared/engine'
+import type { BoardSnapshot, BoardTile, BoardTileEvent } from '#shared/types/api-board'
+import type { BoardSocketConnector, BoardSocketHandlers } from '~/composables/boardSocket'
+
+// The board store against a mocked API (snapshot and sequence routes) and a stand-in socket:
+// the tests drive the handlers the store hands to its socket, exactly as socket.io would call them.
+
+const cid = '0b7e3c1a-5d2f-4e8a-9c61-3f2a1b0c9d01'
+const DAY = '2027-07-13'
+const classes = [{ id: 'k-open', name: 'Open' }, { id: 'k-std', name: 'Standard' }]
+
+function tile(entryId: string, compId: string, readiness: Readiness, seq: number, classId = 'k-open'): BoardTile {
+  return {
+    entryId, compId, classId, className: classId === 'k-open' ? 'Open' : 'Standard',
+    pilotName: `Pilot ${compId}`, registration: `G-${compId}`, gliderType: 'Test glider',
+    readiness,
+    headline: readiness === 'held' ? { kind: 'checklist', text: 'Failed on the grid: canopy' } : null,
+    counts: { blocking: readiness === 'held' ? 1 : 0, advisory: 0, waived: 0 },
+    lastCheck: readiness === 'unchecked' ? null : { at: '2027-07-13T08:02:00Z', initials: 'SC', name: 'Sam Check', outcome: readiness === 'held' ? 'fail' : 'pass' },
+    hold: null,
+    seq,
+    updatedAt: '2027-07-13T08:02:00Z',
+  }
+}
+
+/** What the mocked server holds: its tiles and sequence number, and how often it was asked. */
+interface FakeServer {
+  seq: number
+  tiles: BoardTile[]
+  day: BoardSnapshot['day']
+  fail: boolean
+  snapshots: number
+  seqChecks: number
+  /** While set, the snapshot answer waits for it. */
+  gate: Promise<void> | null
+}
+let server: FakeServer
+
+function snapshot(): BoardSnapshot {
+  return {
+    competition: { id: cid, name: 'Test Cup', timeZone: 'Europe/Berlin' },
+    day: server.day,
+    seq: server.seq,
+    classes,
+    tiles: structuredClone(server.tiles),
+    generatedAt: new Date().toISOString(),
+  }
+}
+
+/** The server records a change: its tile and the next number, and the event it would push. */
+function change(t: Omit<BoardTile, 'seq'> & { seq?: number }): BoardTileEvent {
+  server.seq++
+  const next = { ...t, seq: server.seq } as BoardTile
+  server.tiles = server.tiles.map(x => (x.entryId === next.entryId ? next : x))
+  if (!server.tiles.some(x => x.entryId === next.entryId)) server.tiles.push(next)
+  return { competitionId: cid, day: DAY, seq: server.seq, cause: 'grid-check', entryId: next.entryId, tile: next }
+}
+
+function fakeSocket() {
+  const state: { handlers: BoardSocketHandlers | null, closed: boolean } = { handlers: null, closed: false }
+  const connect: BoardSocketConnector = (competitionId, handlers) => {
+    expect(competitionId).toBe(cid)
+    state.handlers = handlers
+    return { close: () => { state.closed = true } }
+  }
+  return { connect, state, get on() { return state.handlers! } }
+}
+
+const cleanups: (() => void)[] = []
+beforeEach(() => {
+  setActivePinia(createPinia())
+  server = {
+    seq: 10,
+    tiles: [tile('e1', '11', 'unchecked', 3), tile('e2', '22', 'ready', 7), tile('e3', 'K9', 'caution', 9, 'k-std')],
+    day: { day: DAY, kind: 'contest', status: 'open', openedAt: '2027-07-13T06:00:00Z', openedBy: 'Dana Director', closedAt: null, closedBy: null },
+    fail: false,
+    snapshots: 0,
+    seqChecks: 0,
+    gate: null,
+  }
+  cleanups.push(registerEndpoint(`/api/competitions/${cid}/board`, async (event) => {
+    server.snapshots++
+    if (server.gate) await server.gate
+    if (server.fail) {
+      setResponseStatus(event, 503)
+      return { statusCode: 503, message: 'The database is not reachable just now.' }
+    }
+    return snapshot()
+  }))
+  cleanups.push(registerEndpoint(`/api/competitions/${cid}/board/seq`, () => {
+    server.seqChecks++
+    return { seq: server.seq, openDay: DAY }
+  }))
+})
+afterEach(() => {
+  useBoardStore().close()
+  while (cleanups.length) cleanups.pop()!()
+})
+
+/** Opens the board and joins, as on a page load: live at the server's sequence number. */
+async function openLive(timing = {}) {
+  const board = useBoardStore()
+  const socket = fakeSocket()
+  await board.open(cid, { connect: socket.connect, timing })
+  socket.on.joined({ ok: true, scope: 'staff' })
+  await vi.waitFor(() => expect(board.connection).toBe('live'))
+  return { board, socket }
+}
+
+const sleep = (ms: number) => new Promise(r => setTimeout(r, ms))
+
+describe('board store', () => {
+  it('shows the snapshot, then goes live once it has joined and fetched the board after joining', async () => {
+    const board = useBoardStore()
+    const socket = fakeSocket()
+    await board.open(cid, { connect: socket.connect })
+    expect(board.loaded).toBe(true)
+    expect(board.connection).toBe('connecting')
+    expect(board.orderedTiles.map(t => t.compId)).toEqual(['11', '22', 'K9'])
+    expect(board.seq).toBe(10)
+    const before = server.snapshots
+    socket.on.joined({ ok: true, scope: 'staff' })
+    await vi.waitFor(() => expect(board.connection).toBe('live'))
+    // The board is fetched again after the join: changes before it were not pushed to this socket.
+    expect(server.snapshots).toBe(before + 1)
+    expect(board.offlineSince).toBeNull()
+  })
+
+  it('applies the next change at once, highlights it, and the counters follow', async () => {
+    const { board, socket } = await openLive()
+    expect(board.counts.overall).toMatchObject({ ready: 1, caution: 1, held: 0, unchecked: 1, total: 3 })
+    expect(board.counts.byClass['k-std']).toMatchObject({ caution: 1, total: 1 })
+
+    socket.on.tile(change(tile('e1', '11', 'held', 0)))
+    expect(board.seq).toBe(11)
+    expect(board.tiles.e1!.readiness).toBe('held')
+    expect(board.changed).toEqual(['e1'])
+    expect(board.heldAlerts).toBe(1)
+    expect(board.counts.overall).toMatchObject({ ready: 1, caution: 1, held: 1, unchecked: 0, total: 3 })
+    expect(board.counts.byClass['k-open']).toMatchObject({ held: 1, ready: 1, unchecked: 0, total: 2 })
+
+    // A change of a held tile that stays held does not chime again.
+    socket.on.tile(change({ ...tile('e1', '11', 'held', 0), headline: { kind: 'hold', text: 'Canopy crack' } }))
+    expect(board.tiles.e1!.headline?.text).toBe('Canopy crack')
+    expect(board.heldAlerts).toBe(1)
+
+    // A tile that leaves the board (null) is removed and counted no more.
+    server.seq++
+    socket.on.tile({ competitionId: cid, day: DAY, seq: server.seq, cause: 'dossier', entryId: 'e2', tile: null })
+    expect(board.tiles.e2).toBeUndefined()
+    expect(board.orderedTiles.map(t => t.compId)).toEqual(['11', 'K9'])
+    expect(board.counts.overall).toMatchObject({ ready: 0, held: 1, total: 2 })
+  })
+
+  it('ignores a change it already shows (at or below its sequence number)', async () => {
+    const { board, socket } = await openLive()
+    const snapshotsBefore = server.snapshots
+    socket.on.tile({ competitionId: cid, day: DAY, seq: 10, cause: 'grid-check', entryId: 'e2', tile: tile('e2', '22', 'held', 10) })
+    socket.on.tile({ competitionId: cid, day: DAY, seq: 4, cause: 'grid-check', entryId: 'e1', tile: tile('e1', '11', 'ready', 4) })
+    expect(board.tiles.e2!.readiness).toBe('ready')
+    expect(board.tiles.e1!.readiness).toBe('unchecked')
+    expect(board.seq).toBe(10)
+    expect(board.changed).toEqual([])
+    await sleep(700)
+    expect(server.snapshots).toBe(snapshotsBefore)
+  })
+
+  it('waits for a missing change, then fetches the board when the gap does not fill', async () => {
+    const { board, socket } = await openLive()
+    const snapshotsBefore = server.snapshots
+    change(tile('e1', '11', 'ready', 0)) // seq 11: pushed, but lost on the way
+    const later = change(tile('e3', 'K9', 'held', 0, 'k-std')) // seq 12
+    socket.on.tile(later)
+    // Not applied out of order, and not fetched at once: the missing one may only be late.
+    expect(board.tiles.e3!.readiness).toBe('caution')
+    expect(board.seq).toBe(10)
+    expect(server.snapshots).toBe(snapshotsBefore)
+    await vi.waitFor(() => expect(server.snapshots).toBe(snapshotsBefore + 1), { timeout: 2000 })
+    await vi.waitFor(() => expect(board.seq).toBe(12))
+    expect(board.tiles.e1!.readiness).toBe('ready')
+    expect(board.tiles.e3!.readiness).toBe('held')
+    // Both tiles moved on in the fetched board: both are highlighted.
+    expect([...board.changed].sort()).toEqual(['e1', 'e3'])
+  })
+
+  it('applies a late change that fills the gap, in order, without fetching the board', async () => {
+    const { board, socket } = await openLive()
+    const snapshotsBefore = server.snapshots
+    const first = change(tile('e1', '11', 'caution', 0)) // 11
+    const second = change(tile('e1', '11', 'ready', 0)) // 12
+    socket.on.tile(second)
+    expect(board.tiles.e1!.readiness).toBe('unchecked')
+    await sleep(100)
+    socket.on.tile(first)
+    expect(board.seq).toBe(12)
+    // Applied in sequence order: the later change wins.
+    expect(board.tiles.e1!.readiness).toBe('ready')
+    await sleep(700)
+    expect(server.snapshots).toBe(snapshotsBefore)
+  })
+
+  it('after a reconnect fetches the board again and shows what changed while away', async () => {
+    const { board, socket } = await openLive()
+    socket.on.disconnected('transport close')
+    expect(board.connection).toBe('reconnecting')
+    expect(board.offlineSince).not.toBeNull()
+
+    // Meanwhile a glider is held; the push never reached this screen.
+    change(tile('e2', '22', 'held', 0))
+    const snapshotsBefore = server.snapshots
+    socket.on.joined({ ok: true, scope: 'staff' })
+    // Not live again until the board fetched after the join is in.
+    expect(board.connection).toBe('reconnecting')
+    await vi.waitFor(() => expect(board.connection).toBe('live'))
+    expect(server.snapshots).toBe(snapshotsBefore + 1)
+    expect(board.tiles.e2!.readiness).toBe('held')
+    expect(board.seq).toBe(11)
+    expect(board.changed).toEqual(['e2'])
+    expect(board.heldAlerts).toBe(1)
+    expect(board.offlineSince).toBeNull()
+  })
+
+  it('keeps changes pushed while the board is being fetched and applies those above its number', async () => {
+    const { board, socket } = await openLive()
+    let release!: () => void
+    server.gate = new Promise<void>((r) => { release = r })
+    const before = server.snapshots
+    const fetching = board.refresh()
+    await vi.waitFor(() => expect(server.snapshots).toBe(before + 1))
+    // Seq 11 is committed before the snapshot is read (so it is in it) and pushed meanwhile;
+    // seq 12 is pushed while the answer is on its way (not in it).
+    const inSnapshot = change(tile('e1', '11', 'caution', 0))
+    const afterSnapshot: BoardTileEvent = { competitionId: cid, day: DAY, seq: 12, cause: 'grid-check', entryId: 'e1', tile: tile('e1', '11', 'ready', 12) }
+    socket.on.tile(inSnapshot)
+    socket.on.tile(afterSnapshot)
+    // Held back, not applied on top of a board about to be replaced.
+    expect(board.tiles.e1!.readiness).toBe('unchecked')
+    expect(board.seq).toBe(10)
+    release()
+    await fetching
+    expect(board.seq).toBe(12)
+    expect(board.tiles.e1!.readiness).toBe('ready')
+    expect(server.snapshots).toBe(before + 1)
+  })
+
+  it('fetches the board again when a day is opened or closed', async () => {
+    const { board, socket } = await openLive()
+    const snapshotsBefore = server.snapshots
+    server.seq++
+    server.day = { ...server.day!, status: 'closed', closedAt: '2027-07-13T18:00:00Z', closedBy: 'Dana Director' }
+    socket.on.day({ competitionId: cid, seq: server.seq, day: server.day })
+    await vi.waitFor(() => expect(board.day?.status).toBe('closed'))
+    expect(server.snapshots).toBe(snapshotsBefore + 1)
+    // A day change it already shows (an old number) is not fetched again.
+    socket.on.day({ competitionId: cid, seq: server.seq, day: server.day })
+    await sleep(50)
+    expect(server.snapshots).toBe(snapshotsBefore + 1)
+  })
+
+  it('asks for the sequence number while live and fetches the board when the server is ahead', async () => {
+    const { board } = await openLive({ seqPollMs: 60 })
+    const snapshotsBefore = server.snapshots
+    change(tile('e3', 'K9', 'ready', 0, 'k-std')) // a push lost between two server instances
+    await vi.waitFor(() => expect(board.tiles.e3!.readiness).toBe('ready'), { timeout: 2000 })
+    expect(server.seqChecks).toBeGreaterThan(0)
+    expect(server.snapshots).toBe(snapshotsBefore + 1)
+  })
+
+  it('is not live when the board cannot be fetched, and says offline after a long outage', async () => {
+    const { board, socket } = await openLive({ offlineAfterMs: 150, snapshotRetryMs: 10_000 })
+    server.fail = true
+    await board.refresh()
+    expect(board.connection).toBe('reconnecting')
+    expect(board.loadError).toContain('database')
+    expect(board.offlineSince).not.toBeNull()
+    // The board shown stays (marked not live), it is not emptied.
+    expect(board.orderedTiles).toHaveLength(3)
+    await vi.waitFor(() => expect(board.connection).toBe('offline'))
+
+    server.fail = false
+    socket.on.joined({ ok: true, scope: 'staff' })
+    await vi.waitFor(() => expect(board.connection).toBe('live'))
+    expect(board.loadError).toBeNull()
+    expect(board.offlineSince).toBeNull()
+  })
+
+  it('says offline at once when the browser has no network', async () => {
+    const { board } = await openLive()
+    window.dispatchEvent(new Event('offline'))
+    expect(board.connection).toBe('offline')
+    expect(board.offlineSince).not.toBeNull()
+    window.dispatchEvent(new Event('online'))
+    await vi.waitFor(() => expect(board.connection).toBe('live'))
+  })
+
+  it('narrows the groups by class and readiness, keeping the board order', async () => {
+    const { board } = await openLive()
+    expect(board.groups.map(g => [g.className, g.tiles.map(t => t.compId)])).toEqual([['Open', ['11', '22']], ['Standard', ['K9']]])
+    board.setFilters({ readiness: ['ready', 'caution'] })
+    expect(board.groups.map(g => [g.className, g.tiles.map(t => t.compId)])).toEqual([['Open', ['22']], ['Standard', ['K9']]])
+    board.setFilters({ classIds: ['k-std'] })
+    expect(board.groups.map(g => g.className)).toEqual(['Standard'])
+    expect(board.shownCount).toBe(1)
+    // Counters stay those of the whole board.
+    expect(board.counts.overall.total).toBe(3)
+  })
+
+  it('puts a glider that joins the board in competition-ID order within its class', async () => {
+    const { board, socket } = await openLive()
+    socket.on.tile(change(tile('e4', '15', 'unchecked', 0)))
+    expect(board.orderedTiles.map(t => t.compId)).toEqual(['11', '15', '22', 'K9'])
+    socket.on.tile(change(tile('e5', 'A2', 'unchecked', 0)))
+    expect(board.orderedTiles.map(t => t.compId)).toEqual(['11', '15', '22', 'A2', 'K9'])
+  })
+
+  it('stops the socket and its timers when closed', async () => {
+    const { board, socket } = await openLive({ seqPollMs: 30 })
+    board.close()
+    expect(socket.state.closed).toBe(true)
+    const checks = server.seqChecks
+    await sleep(120)
+    expect(server.seqChecks).toBe(checks)
+    // A late event of the closed board changes nothing.
+    socket.on.tile(change(tile('e1', '11', 'ready', 0)))
+    expect(board.tiles.e1!.readiness).toBe('unchecked')
+  })
+})
