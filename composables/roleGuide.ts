@@ -43,6 +43,8 @@ export const ROLE_GUIDE: Record<Role, RoleGuide> = {
       { label: 'Document review', path: '/documents' },
       { label: 'Firmware catalogue', path: '/firmware' },
       { label: 'Glider tags', path: '/tags' },
+      { label: 'Contest days', path: '/days' },
+      { label: 'Audit log', path: '/audit' },
     ],
   },
   director: {
@@ -55,8 +57,10 @@ export const ROLE_GUIDE: Record<Role, RoleGuide> = {
       'Accept a finding for one day with a recorded reason (a waiver).',
     ],
     links: [
+      { label: 'Contest days', path: '/days' },
       { label: 'Entries', path: '/entries' },
       { label: 'Launch grid', path: '/grid' },
+      { label: 'Audit log', path: '/audit' },
     ],
   },
   scrutineer: {
