@@ -104,9 +104,13 @@ export function auditDescription(item: Pick<AuditLogItem, 'action' | 'details'>)
   }
   // Anything else: the few details a person reads, in a fixed order.
   const parts: string[] = []
+  if (item.action.startsWith('unit.') && text(d.model)) {
+    parts.push(`${text(d.model)}${text(d.serial) ? `, serial ${d.serial}` : ''}`)
+    return parts.join('')
+  }
   if (text(d.field)) parts.push(`${d.field}: ${value(d.from)} → ${value(d.to)}`)
   else if (d.from !== undefined && d.to !== undefined) parts.push(`${value(d.from)} → ${value(d.to)}`)
-  for (const key of ['day', 'kind', 'role', 'compId', 'shortCode', 'version', 'reason'] as const) {
+  for (const key of ['day', 'kind', 'role', 'compId', 'registration', 'shortCode', 'version', 'reason'] as const) {
     const v = text(d[key])
     if (v) parts.push(key === 'reason' ? `reason: ${v}` : v)
   }

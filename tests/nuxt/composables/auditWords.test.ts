@@ -22,6 +22,8 @@ describe('audit words', () => {
     expect(auditDescription({ action: 'day.opened', details: { day: '2026-12-02', kind: 'practice', entries: 2 } })).toBe('2026-12-02 (practice day), 2 on the board')
     expect(auditDescription({ action: 'day.closed', details: { day: '2026-12-02', readiness: { ready: 3, held: 1 } } })).toBe('2026-12-02: 3 ready, 1 held')
     expect(auditDescription({ action: 'entry.updated', details: { field: 'registration', from: 'G-AAAA', to: 'G-BBBB' } })).toBe('registration: G-AAAA → G-BBBB')
+    expect(auditDescription({ action: 'unit.added', details: { kind: 'flight-recorder', model: 'Example Logger 3', serial: 'FR-0001' } })).toBe('Example Logger 3, serial FR-0001')
+    expect(auditDescription({ action: 'entry.created', details: { compId: 'DX', registration: 'G-98AA', classId: 'c' } })).toBe('DX · G-98AA')
     expect(auditDescription({ action: 'entry.rejected', details: { from: 'submitted', to: 'rejected', reason: 'No insurance' } })).toBe('submitted → rejected · reason: No insurance')
   })
 })
