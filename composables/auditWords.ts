@@ -50,6 +50,7 @@ export const AUDIT_ACTION_WORDS: Record<string, string> = {
   'membership.remove': 'Role removed',
   'reminder.queue': 'Reminder queued',
   'user.signed-up': 'Signed up',
+  'demo.seeded': 'Demo data loaded',
 }
 
 export function auditActionWords(action: string): string {
@@ -112,7 +113,11 @@ export function auditDescription(item: Pick<AuditLogItem, 'action' | 'details'>)
   else if (d.from !== undefined && d.to !== undefined) parts.push(`${value(d.from)} → ${value(d.to)}`)
   for (const key of ['day', 'kind', 'role', 'compId', 'registration', 'shortCode', 'version', 'reason'] as const) {
     const v = text(d[key])
-    if (v) parts.push(key === 'reason' ? `reason: ${v}` : v)
+    if (!v) continue
+    if (key === 'reason') parts.push(`reason: ${v}`)
+    // Short codes are read out and typed in two halves, as on the tag.
+    else if (key === 'shortCode') parts.push(`short code ${v.length === 8 ? `${v.slice(0, 4)}-${v.slice(4)}` : v}`)
+    else parts.push(v)
   }
   return parts.join(' · ')
 }

@@ -121,6 +121,9 @@ describe('walking every page as each demo role', () => {
     await asRole('director@gridmark.example', [
       ['/', 'home-director'],
       [c, 'overview-director'],
+      [`${c}/days`, 'days-director'],
+      [`${c}/audit`, 'audit-director'],
+      [`${c}/board/${entrantEntryId}`, 'desk-director'],
     ])
   })
 

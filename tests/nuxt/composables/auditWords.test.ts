@@ -24,6 +24,7 @@ describe('audit words', () => {
     expect(auditDescription({ action: 'entry.updated', details: { field: 'registration', from: 'G-AAAA', to: 'G-BBBB' } })).toBe('registration: G-AAAA → G-BBBB')
     expect(auditDescription({ action: 'unit.added', details: { kind: 'flight-recorder', model: 'Example Logger 3', serial: 'FR-0001' } })).toBe('Example Logger 3, serial FR-0001')
     expect(auditDescription({ action: 'entry.created', details: { compId: 'DX', registration: 'G-98AA', classId: 'c' } })).toBe('DX · G-98AA')
+    expect(auditDescription({ action: 'tag.issued', details: { tagId: 't', shortCode: 'HY369FYA' } })).toBe('short code HY36-9FYA')
     expect(auditDescription({ action: 'entry.rejected', details: { from: 'submitted', to: 'rejected', reason: 'No insurance' } })).toBe('submitted → rejected · reason: No insurance')
   })
 })
