@@ -277,4 +277,26 @@ describe('the director’s desk', () => {
     await badge(page, 'held').waitFor({ timeout: 30_000 })
     expect(await page.getByTestId('desk-hold-info').textContent()).toContain('Wing tape missing')
   })
+
+  it('the director closes the day after confirming; the desk then offers no action', async () => {
+    const today = todayIn()
+    const page = await signedIn(w.director.email, `/competitions/${w.competitionId}/days`, 'phone')
+    await page.getByTestId('days-close').click()
+    await page.getByTestId('days-close-yes').click()
+    await page.getByTestId('days-notice').waitFor()
+    expect(await page.getByTestId('days-notice').textContent()).toContain('is closed')
+    const card = page.locator(`[data-testid="days-opened-card"][data-day="${today}"]`)
+    expect(await card.textContent()).toContain('Closed: Dana Director')
+    // A day closed by mistake can be opened again; opening today is offered too.
+    expect(await card.getByTestId('days-reopen').count()).toBe(1)
+    const listed = await w.director.client.get(`${w.base}/days`)
+    expect(listed.body.openDay).toBeNull()
+
+    await gotoApp(page, baseUrl, deskPath())
+    await page.locator('[data-testid="desk"][data-can-direct="false"]').waitFor()
+    expect(await page.getByTestId('desk-day-status').getAttribute('data-status')).toBe('closed')
+    await page.getByTestId('desk-no-open-day').waitFor()
+    expect(await page.getByTestId('desk-hold-open').count()).toBe(0)
+    expect(await page.getByTestId('desk-waive').count()).toBe(0)
+  })
 })
