@@ -44,6 +44,7 @@ export const ROLE_GUIDE: Record<Role, RoleGuide> = {
       { label: 'Document review', path: '/documents' },
       { label: 'Firmware catalogue', path: '/firmware' },
       { label: 'Glider tags', path: '/tags' },
+      { label: 'Contest days', path: '/days' },
     ],
   },
   director: {

@@ -122,6 +122,9 @@ describe('walking every page as each demo role', () => {
       ['/', 'home-director'],
       [c, 'overview-director'],
       [`${c}/board`, 'board-director'],
+      [`${c}/days`, 'days-director'],
+      [`${c}/audit`, 'audit-director'],
+      [`${c}/board/${entrantEntryId}`, 'desk-director'],
     ])
   })
 

@@ -1,0 +1,27 @@
+// Times on the director's desk, the contest days and the audit log are read on the airfield, so
+// they are shown in the competition's time zone whatever the viewer's device says; server and
+// browser format alike (explicit locale and zone), so the page hydrates without a change.
+
+/** "2 Dec, 14:05" — an instant in the competition's time zone. */
+export function atInZone(iso: string, timeZone: string): string {
+  return new Date(iso).toLocaleString('en-GB', { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit', timeZone })
+}
+
+/** "14:05" — the clock time only, for an instant on the day being shown. */
+export function clockInZone(iso: string, timeZone: string): string {
+  return new Date(iso).toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit', timeZone })
+}
+
+/** "Wednesday 2 December 2026" — a contest day (a calendar date, so read as UTC: no shift). */
+export function dayInWords(day: string): string {
+  const d = new Date(`${day.slice(0, 10)}T12:00:00Z`)
+  if (Number.isNaN(d.getTime())) return day
+  return d.toLocaleDateString('en-GB', { weekday: 'long', day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' })
+}
+
+/** "Wed 2 Dec" — a contest day, short. */
+export function dayShort(day: string): string {
+  const d = new Date(`${day.slice(0, 10)}T12:00:00Z`)
+  if (Number.isNaN(d.getTime())) return day
+  return d.toLocaleDateString('en-GB', { weekday: 'short', day: 'numeric', month: 'short', timeZone: 'UTC' })
+}

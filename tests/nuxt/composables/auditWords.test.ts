@@ -1,0 +1,30 @@
+import { describe, expect, it } from 'vitest'
+import { auditActionWords, auditDescription } from '~/composables/auditWords'
+
+describe('audit words', () => {
+  it('names known actions in words and shows an unknown one as stored', () => {
+    expect(auditActionWords('grid-check.recorded')).toBe('Grid check recorded')
+    expect(auditActionWords('director.hold')).toBe('Held')
+    expect(auditActionWords('director.release')).toBe('Released')
+    expect(auditActionWords('director.waiver')).toBe('Finding waived')
+    expect(auditActionWords('day.reopened')).toBe('Day opened again')
+    expect(auditActionWords('weather.changed')).toBe('weather.changed')
+  })
+
+  it('describes a row from its details', () => {
+    expect(auditDescription({ action: 'director.hold', details: { day: '2026-12-02', reason: 'Canopy crack' } })).toBe('2026-12-02: Canopy crack')
+    expect(auditDescription({ action: 'director.waiver', details: { day: null, scope: 'competition', checkId: 'entry.paid', reason: 'Paid in cash' } }))
+      .toBe('entry.paid for the whole competition: Paid in cash')
+    expect(auditDescription({ action: 'grid-check.recorded', details: { day: '2026-12-02', outcome: 'fail', readiness: 'held', massKg: 402.5, blocking: ['entry.paid'] } }))
+      .toBe('2026-12-02: Failed, Held, weighed 402.5 kg, blocking: entry.paid')
+    expect(auditDescription({ action: 'findings.changed', details: { day: '2026-12-02', added: [{ checkId: 'entry.paid', severity: 'blocking' }], removed: [], readiness: { from: 'unchecked', to: 'held' } } }))
+      .toBe('2026-12-02: new entry.paid (blocking); Unchecked → Held')
+    expect(auditDescription({ action: 'day.opened', details: { day: '2026-12-02', kind: 'practice', entries: 2 } })).toBe('2026-12-02 (practice day), 2 on the board')
+    expect(auditDescription({ action: 'day.closed', details: { day: '2026-12-02', readiness: { ready: 3, held: 1 } } })).toBe('2026-12-02: 3 ready, 1 held')
+    expect(auditDescription({ action: 'entry.updated', details: { field: 'registration', from: 'G-AAAA', to: 'G-BBBB' } })).toBe('registration: G-AAAA → G-BBBB')
+    expect(auditDescription({ action: 'unit.added', details: { kind: 'flight-recorder', model: 'Example Logger 3', serial: 'FR-0001' } })).toBe('Example Logger 3, serial FR-0001')
+    expect(auditDescription({ action: 'entry.created', details: { compId: 'DX', registration: 'G-98AA', classId: 'c' } })).toBe('DX · G-98AA')
+    expect(auditDescription({ action: 'tag.issued', details: { tagId: 't', shortCode: 'HY369FYA' } })).toBe('short code HY36-9FYA')
+    expect(auditDescription({ action: 'entry.rejected', details: { from: 'submitted', to: 'rejected', reason: 'No insurance' } })).toBe('submitted → rejected · reason: No insurance')
+  })
+})
