@@ -1,5 +1,5 @@
 import { io, type Socket } from 'socket.io-client'
-import type { BoardDayEvent, BoardJoinAck, BoardTileEvent } from '#shared/types/api-board'
+import type { BoardDayEvent, BoardJoinAck, BoardTileEvent, EntryReadinessEvent } from '#shared/types/api-board'
 
 // The board's one live connection: socket.io to the same origin, websocket only (no sticky
 // sessions needed behind a load balancer). The store hands in what to do on each event and
@@ -14,6 +14,8 @@ export interface BoardSocketHandlers {
   failed: (message: string, refused: boolean) => void
   tile: (event: BoardTileEvent) => void
   day: (event: BoardDayEvent) => void
+  /** An entrant's own entry changed on the board (entrants get these instead of tiles). */
+  readiness?: (event: EntryReadinessEvent) => void
 }
 
 export interface BoardSocketHandle {
@@ -65,6 +67,7 @@ export const connectBoardSocket: BoardSocketConnector = (competitionId, handlers
   })
   socket.on('board:tile', (event: BoardTileEvent) => handlers.tile(event))
   socket.on('board:day', (event: BoardDayEvent) => handlers.day(event))
+  socket.on('entry:readiness', (event: EntryReadinessEvent) => handlers.readiness?.(event))
 
   function scheduleRetry() {
     clearTimeout(retry)

@@ -1,6 +1,7 @@
-// Times on the director's desk, the contest days and the audit log are read on the airfield, so
-// they are shown in the competition's time zone whatever the viewer's device says; server and
-// browser format alike (explicit locale and zone), so the page hydrates without a change.
+// Times on the board, the director's desk, the contest days and the audit log are read on the
+// airfield, so they are shown in the competition's time zone whatever the viewer's device says
+// (the wall screen, the director's laptop and the log agree); server and browser format alike
+// (explicit locale and zone), so the page hydrates without a change.
 
 /** "2 Dec, 14:05" — an instant in the competition's time zone. */
 export function atInZone(iso: string, timeZone: string): string {
@@ -9,7 +10,21 @@ export function atInZone(iso: string, timeZone: string): string {
 
 /** "14:05" — the clock time only, for an instant on the day being shown. */
 export function clockInZone(iso: string, timeZone: string): string {
-  return new Date(iso).toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit', timeZone })
+  return timeIn(iso, timeZone)
+}
+
+/** "14:02" (or "14:02:09") in the competition's time zone; the screen's own zone if the name is unknown. */
+export function timeIn(iso: string | Date, timeZone: string, seconds = false): string {
+  const at = typeof iso === 'string' ? new Date(iso) : iso
+  if (Number.isNaN(at.getTime())) return ''
+  const format: Intl.DateTimeFormatOptions = { hour: '2-digit', minute: '2-digit', ...(seconds ? { second: '2-digit' } : {}), hourCycle: 'h23' }
+  try {
+    return at.toLocaleTimeString('en-GB', { ...format, timeZone })
+  }
+  catch {
+    // The zone is typed by the organiser: rather the screen's clock than nothing.
+    return at.toLocaleTimeString('en-GB', format)
+  }
 }
 
 /** "Wednesday 2 December 2026" — a contest day (a calendar date, so read as UTC: no shift). */

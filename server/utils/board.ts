@@ -9,7 +9,7 @@
 // dossiers: two writers can never compute a tile from data the other is about to change.
 import type { Knex } from 'knex'
 import { blockingFirst, evaluate, type Finding, type IsoDate } from '#shared/engine'
-import type { BoardCause, BoardDay, BoardSnapshot, BoardTile, BoardTileEvent, BoardDayEvent, EntryReadinessEvent } from '#shared/types/api-board'
+import type { BoardCause, BoardDay, BoardSnapshot, BoardTile, BoardTileEvent, BoardDayEvent, EntryDayReadiness, EntryReadinessEvent } from '#shared/types/api-board'
 import type { BoardDayRow, BoardTileRow } from '#shared/types/rows-board'
 import { buildTile, diffFindings, sameTile, sortedJson, type TileAction, type TileBody, type TileCheck } from '#shared/utils/board-tile'
 import type { GridCheckAnswerJson } from '#shared/types/rows-grid'
@@ -371,6 +371,14 @@ export async function boardSnapshot(competition: { id: string, name: string, tim
 export async function boardTileOf(competitionId: string, day: IsoDate, entryId: string, db: Knex = useDb()): Promise<BoardTile | null> {
   const row = await db('board_tiles').where({ competition_id: competitionId, day, entry_id: entryId }).first('seq', 'tile', 'updated_at')
   return row ? toBoardTile(row) : null
+}
+
+/** One entry on the open day's board, as its entrant may see it. */
+export async function entryDayReadiness(competitionId: string, entryId: string, db: Knex = useDb()): Promise<EntryDayReadiness> {
+  const row = await dayQuery(db, competitionId).whereNull('d.closed_at').first() as BoardDayJoinedRow | undefined
+  const day = row ? toBoardDay(row) : null
+  const tile = day ? await boardTileOf(competitionId, day.day, entryId, db) : null
+  return { day, readiness: tile?.readiness ?? null, headline: tile?.headline ?? null, hold: tile?.hold ?? null, lastCheck: tile?.lastCheck ?? null }
 }
 
 // ---------------------------------------------------------------------------------------

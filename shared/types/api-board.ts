@@ -100,6 +100,17 @@ export interface EntryReadinessEvent {
   hold: BoardTile['hold']
 }
 
+/** GET …/entries/:entryId/readiness: the entry on the open day's board (its entrant sees this). */
+export interface EntryDayReadiness {
+  /** The open day; null while none is open. */
+  day: BoardDay | null
+  /** Null when no day is open or the entry is not on the board (only accepted entries are). */
+  readiness: Readiness | null
+  headline: BoardHeadline | null
+  hold: BoardTile['hold']
+  lastCheck: BoardTile['lastCheck']
+}
+
 /** The answer to a socket's `board:join`. */
 export type BoardJoinAck = { ok: true, scope: 'staff' | 'own' } | { ok: false, message: string }
 

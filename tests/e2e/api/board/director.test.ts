@@ -156,6 +156,16 @@ describe('the phone’s day pack', () => {
   })
 })
 
+describe('the entry on today’s board', () => {
+  it('its entrant reads its readiness, why and the hold; another entrant learns nothing', async () => {
+    const res = await w.entrant.client.get(`${w.base}/entries/${unpaid}/readiness`)
+    expect(res.status).toBe(200)
+    expect(res.body).toMatchObject({ day: { day: todayIn(), status: 'open' }, readiness: 'ready', hold: null, lastCheck: { name: 'Sam Scrutineer' } })
+    expect((await w.otherEntrant.client.get(`${w.base}/entries/${unpaid}/readiness`)).status).toBe(404)
+    expect((await w.otherEntrant.client.get(`${w.base}/entries/${otherEntrantEntry}/readiness`)).body).toMatchObject({ readiness: 'unchecked', lastCheck: null })
+  })
+})
+
 describe('an entry’s timeline', () => {
   it('lists grid checks, holds, releases and waivers with who and when, newest first', async () => {
     const res = await w.entrant.client.get(`${w.base}/entries/${unpaid}/timeline`)
