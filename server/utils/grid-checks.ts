@@ -8,7 +8,7 @@ import { createHash } from 'node:crypto'
 import type { Knex } from 'knex'
 import type { H3Event } from 'h3'
 import { addDays, blockingFirst, checkOutcome, dateInZone, evaluate, readiness, weighIn, withWeighIn, type DirectorAction, type Finding, type IsoDate, type Readiness } from '#shared/engine'
-import type { ChecklistItem } from '#shared/constants/grid'
+import { GRID_DAYS_AHEAD, GRID_DAYS_BACK, type ChecklistItem } from '#shared/constants/grid'
 import { STAFF_ROLES } from '#shared/constants/roles'
 import { MESSAGES } from '#shared/constants/messages'
 import type { GridCheckBody } from '#shared/schemas/grid'
@@ -21,9 +21,6 @@ import { rulesOf } from './competition-setup'
 import { actionsQuery, boardTransaction, lockBoard, openDate, refreshTiles, toTileAction } from './board'
 import type { CompetitionAccess } from './authz'
 
-/** A grid check is for today, tomorrow (a phone ahead of midnight), or up to 14 days back. */
-export const GRID_DAYS_BACK = 14
-export const GRID_DAYS_AHEAD = 1
 
 // ---------------------------------------------------------------------------------------
 // Pure parts

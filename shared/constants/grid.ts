@@ -33,3 +33,7 @@ export const DEFAULT_CHECKLIST: readonly ChecklistItem[] = [
 /** How a scrutineer reached an entry on the grid. */
 export const FOUND_BY = ['scan', 'code', 'list'] as const
 export type FoundBy = (typeof FOUND_BY)[number]
+
+/** A grid check (and an opened day) is for today, tomorrow (a phone ahead of midnight), or up to 14 days back. */
+export const GRID_DAYS_BACK = 14
+export const GRID_DAYS_AHEAD = 1
