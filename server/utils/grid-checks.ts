@@ -21,7 +21,6 @@ import { rulesOf } from './competition-setup'
 import { actionsQuery, boardTransaction, lockBoard, openDate, refreshTiles, toTileAction } from './board'
 import type { CompetitionAccess } from './authz'
 
-
 // ---------------------------------------------------------------------------------------
 // Pure parts
 
