@@ -370,31 +370,61 @@ export function toBoardTile(r: Pick<BoardTileRow, 'tile'> & { seq: string | numb
 }
 
 /**
- * The board of one day at one sequence number. Read in one repeatable-read snapshot, so the
- * number and the tiles agree: a pushed change numbered above it is news to the screen.
+ * The board of one day at one sequence number, as the JSON text of a `BoardSnapshot`: what a
+ * wall screen polls, so it is read in one statement and hardly touched on the way out. The
+ * statement's subqueries share one snapshot, so the number and the tiles agree (a pushed change
+ * numbered above it is news to the screen). Each tile is its stored text (board_tiles.tile is
+ * json, kept as written) with `seq` and `updatedAt` added as `toBoardTile` adds them, joined
+ * in PostgreSQL; nothing here parses a tile or serialises it again. The day is the one asked
+ * for, else the open day, else the latest opened (as `boardDayOf`).
  */
+export async function boardSnapshotJson(competition: { id: string, name: string, time_zone: string }, day?: IsoDate, db: Knex = useDb()): Promise<string> {
+  const { rows: [row] } = await db.raw(`with shown as (
+      select d.competition_id, d.kind, d.opened_at, d.closed_at, d.opened_by, d.closed_by, d.day as day_date,
+        to_char(d.day, 'YYYY-MM-DD') as day, o.name as opened_by_name, c.name as closed_by_name
+      from board_days d join users o on o.id = d.opened_by left join users c on c.id = d.closed_by
+      where d.competition_id = :competitionId ${day ? 'and d.day = :day' : ''}
+      order by d.closed_at is null desc, d.day desc
+      limit 1
+    )
+    select
+      (select json_build_object('competition_id', s.competition_id, 'kind', s.kind, 'opened_at', s.opened_at, 'closed_at', s.closed_at,
+          'opened_by', s.opened_by, 'closed_by', s.closed_by, 'day', s.day, 'opened_by_name', s.opened_by_name, 'closed_by_name', s.closed_by_name)
+        from shown s) as shown,
+      coalesce((select seq from board_sequences where competition_id = :competitionId), 0) as seq,
+      (select coalesce(json_agg(json_build_object('id', k.id, 'name', k.name) order by k.sort_order, k.name), '[]')
+        from classes k where k.competition_id = :competitionId) as classes,
+      (select '[' || coalesce(string_agg(
+          -- A tile is a non-empty JSON object: drop its closing brace, add seq and updatedAt
+          -- (updated_at to the millisecond in UTC, as Date.toISOString writes it).
+          left(rtrim(t.tile::text), -1) || ',"seq":' || t.seq
+            || ',"updatedAt":"' || to_char(t.updated_at at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"') || '"}',
+          ',' order by k.sort_order, e.comp_id), '') || ']'
+        from shown s
+        join board_tiles t on t.competition_id = s.competition_id and t.day = s.day_date
+        join entries e on e.id = t.entry_id
+        join classes k on k.id = e.class_id) as tiles`, day ? { competitionId: competition.id, day } : { competitionId: competition.id }) as {
+    rows: {
+      // Timestamps inside JSON values arrive as text; toBoardDay reads them as instants.
+      shown: (Omit<BoardDayJoinedRow, 'opened_at' | 'closed_at'> & { opened_at: string, closed_at: string | null }) | null
+      seq: string
+      classes: { id: string, name: string }[]
+      tiles: string
+    }[]
+  }
+  const head: Omit<BoardSnapshot, 'tiles' | 'generatedAt'> = {
+    competition: { id: competition.id, name: competition.name, timeZone: competition.time_zone },
+    day: row!.shown ? toBoardDay(row!.shown) : null,
+    seq: Number(row!.seq),
+    classes: row!.classes,
+  }
+  // The keys in BoardSnapshot's order, with the tiles' text as it came.
+  return `${JSON.stringify(head).slice(0, -1)},"tiles":${row!.tiles},"generatedAt":${JSON.stringify(new Date().toISOString())}}`
+}
+
+/** The board of one day at one sequence number (see boardSnapshotJson), as an object. */
 export async function boardSnapshot(competition: { id: string, name: string, time_zone: string }, day?: IsoDate, db: Knex = useDb()): Promise<BoardSnapshot> {
-  return db.transaction(async (trx) => {
-    const shown = await boardDayOf(competition.id, day, trx)
-    const [seq, classes, tiles] = await Promise.all([
-      currentSeq(competition.id, trx),
-      trx('classes').where({ competition_id: competition.id }).orderBy([{ column: 'sort_order' }, { column: 'name' }]).select('id', 'name'),
-      shown
-        ? trx('board_tiles as t').join('entries as e', 'e.id', 't.entry_id').join('classes as k', 'k.id', 'e.class_id')
-            .where({ 't.competition_id': competition.id, 't.day': shown.day })
-            .orderBy([{ column: 'k.sort_order' }, { column: 'e.comp_id' }])
-            .select('t.seq', 't.tile', 't.updated_at')
-        : Promise.resolve([]),
-    ])
-    return {
-      competition: { id: competition.id, name: competition.name, timeZone: competition.time_zone },
-      day: shown,
-      seq,
-      classes: classes.map((c: { id: string, name: string }) => ({ id: c.id, name: c.name })),
-      tiles: (tiles as Pick<BoardTileRow, 'seq' | 'tile' | 'updated_at'>[]).map(toBoardTile),
-      generatedAt: new Date().toISOString(),
-    }
-  }, { isolationLevel: 'repeatable read', readOnly: true })
+  return JSON.parse(await boardSnapshotJson(competition, day, db)) as BoardSnapshot
 }
 
 /** One entry's tile on a day, if it has one. */
