@@ -24,6 +24,7 @@ import * as m20261205000100 from './20261205000100_board'
 import * as m20261205000200 from './20261205000200_director_actions'
 import * as m20261205000300 from './20261205000300_socket_attachments'
 import * as m20261206000100 from './20261206000100_board_tiles_json'
+import * as m20261206000200 from './20261206000200_board_tiles_shown'
 
 type Migration = Knex.Migration
 
@@ -51,6 +52,7 @@ const migrations: Record<string, Migration> = {
   '20261205000200_director_actions': m20261205000200,
   '20261205000300_socket_attachments': m20261205000300,
   '20261206000100_board_tiles_json': m20261206000100,
+  '20261206000200_board_tiles_shown': m20261206000200,
 }
 
 export const migrationSource: Knex.MigrationSource<string> = {

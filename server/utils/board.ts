@@ -310,9 +310,11 @@ export async function refreshTiles(
       .insert(written.slice(i, i + 500).map(p => ({
         competition_id: competitionId, day, entry_id: p.entryId, seq: p.tile.seq, readiness: p.tile.readiness,
         tile: JSON.stringify(p.body), findings: JSON.stringify(p.findings), updated_at: now,
+        // As the board sends it (boardSnapshotJson joins these).
+        shown: JSON.stringify(p.tile),
       })))
       .onConflict(['competition_id', 'day', 'entry_id'])
-      .merge(['seq', 'readiness', 'tile', 'findings', 'updated_at'])
+      .merge(['seq', 'readiness', 'tile', 'findings', 'updated_at', 'shown'])
   }
   for (const p of written) {
     const tile = p.tile
@@ -373,10 +375,10 @@ export function toBoardTile(r: Pick<BoardTileRow, 'tile'> & { seq: string | numb
  * The board of one day at one sequence number, as the JSON text of a `BoardSnapshot`: what a
  * wall screen polls, so it is read in one statement and hardly touched on the way out. The
  * statement's subqueries share one snapshot, so the number and the tiles agree (a pushed change
- * numbered above it is news to the screen). Each tile is its stored text (board_tiles.tile is
- * json, kept as written) with `seq` and `updatedAt` added as `toBoardTile` adds them, joined
- * in PostgreSQL; nothing here parses a tile or serialises it again. The day is the one asked
- * for, else the open day, else the latest opened (as `boardDayOf`).
+ * numbered above it is news to the screen). Each tile is the text stored with it as the board
+ * sends it (board_tiles.shown: the tile with `seq` and `updatedAt`, as `toBoardTile` makes it),
+ * joined in PostgreSQL; nothing here parses a tile or serialises it again. The day is the one
+ * asked for, else the open day, else the latest opened (as `boardDayOf`).
  */
 export async function boardSnapshotJson(competition: { id: string, name: string, time_zone: string }, day?: IsoDate, db: Knex = useDb()): Promise<string> {
   const { rows: [row] } = await db.raw(`with shown as (
@@ -394,11 +396,11 @@ export async function boardSnapshotJson(competition: { id: string, name: string,
       coalesce((select seq from board_sequences where competition_id = :competitionId), 0) as seq,
       (select coalesce(json_agg(json_build_object('id', k.id, 'name', k.name) order by k.sort_order, k.name), '[]')
         from classes k where k.competition_id = :competitionId) as classes,
-      (select '[' || coalesce(string_agg(
+      (select '[' || coalesce(string_agg(coalesce(t.shown::text,
           -- A tile is a non-empty JSON object: drop its closing brace, add seq and updatedAt
           -- (updated_at to the millisecond in UTC, as Date.toISOString writes it).
           left(rtrim(t.tile::text), -1) || ',"seq":' || t.seq
-            || ',"updatedAt":"' || to_char(t.updated_at at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"') || '"}',
+            || ',"updatedAt":"' || to_char(t.updated_at at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"') || '"}'),
           ',' order by k.sort_order, e.comp_id), '') || ']'
         from shown s
         join board_tiles t on t.competition_id = s.competition_id and t.day = s.day_date
