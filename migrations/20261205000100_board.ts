@@ -25,6 +25,9 @@ export async function up(knex: Knex): Promise<void> {
     t.bigInteger('seq').notNullable().defaultTo(0)
   })
 
+  // Tiles are kept as the text they were written (json, not jsonb, which would reorder keys):
+  // a tile read back compares equal with the same tile built again, so an unchanged tile is
+  // neither renumbered nor pushed; and a 1,000-tile board is sent by joining stored text.
   await knex.schema.createTable('board_tiles', (t) => {
     t.uuid('competition_id').notNullable().references('competitions.id').onDelete('CASCADE')
     t.date('day').notNullable()
@@ -33,15 +36,20 @@ export async function up(knex: Knex): Promise<void> {
     t.bigInteger('seq').notNullable()
     t.text('readiness').notNullable().checkIn(['ready', 'caution', 'held', 'unchecked'])
     /** The tile as the board shows it (shared/types/api-board.ts, BoardTile without seq and time). */
-    t.jsonb('tile').notNullable()
+    t.json('tile').notNullable()
+    /** The tile as the board sends it: with its number and the time of its last change. */
+    t.json('shown').notNullable()
     /** The engine's findings the tile was made from, to record what changed next time. */
-    t.jsonb('findings').notNullable().defaultTo('[]')
+    t.json('findings').notNullable().defaultTo('[]')
     t.timestamp('updated_at', { useTz: true }).notNullable().defaultTo(knex.fn.now())
     t.primary(['competition_id', 'day', 'entry_id'])
   })
+  // Competition IDs in the order people read them: 3, 7, 12, A2, A10, AB (ICU, numbers by value).
+  await knex.raw(`CREATE COLLATION IF NOT EXISTS comp_id_order (provider = icu, locale = 'und-u-kn-true')`)
 }
 
 export async function down(knex: Knex): Promise<void> {
+  await knex.raw('DROP COLLATION IF EXISTS comp_id_order')
   await knex.schema.dropTable('board_tiles')
   await knex.schema.dropTable('board_sequences')
   await knex.schema.dropTable('board_days')

@@ -1,9 +1,20 @@
-// `npm run bench`: the check engine's speed on invented data. Builds 1,000 synthetic dossiers
-// (a few with problems, a field with duplicate radio IDs), then times evaluate() on one
-// dossier (median of many runs) and on the whole competition with its field (median of
-// repeated passes). Prints one `name: value unit` line per figure. Targets: ≤ 1 ms per
-// dossier, ≤ 200 ms for 1,000 entries.
+// `npm run bench`: the check engine's speed on invented data, then the live board under load.
+//
+//   engine  Builds 1,000 synthetic dossiers (a few with problems, a field with duplicate radio
+//           IDs), then times evaluate() on one dossier (median of many runs) and on the whole
+//           competition with its field (median of repeated passes). Targets: ≤ 1 ms per
+//           dossier, ≤ 200 ms for 1,000 entries.
+//   board   A throwaway database and the built server (scripts/lib/bench-board.ts): the time
+//           from a grid check's POST to its tile on 200 pushed board screens, the same seen by
+//           20 polling screens, and GET …/board of 1,000 entries. Targets: p95 ≤ 50 ms from
+//           scan to board, ≤ 20 ms for the snapshot.
+//
+// Prints one `name: value unit` line per figure, a note under a figure that misses its target,
+// and the counts of the board run (checks, samples, lost events). Exit code 1 when the board
+// run itself went wrong (lost events, failed requests), 130 when interrupted.
 import { performance } from 'node:perf_hooks'
+import { benchBoard, benchInterrupted, type BoardBenchResult } from './lib/bench-board'
+import { reportError } from './lib/common'
 import { DEFAULT_RULES } from '../shared/schemas/competition'
 import { buildField } from '../shared/engine/field'
 import { evaluate } from '../shared/engine/evaluate'
@@ -114,6 +125,30 @@ for (let run = 0; run < 21; run++) {
   findings += n
 }
 
-console.log(`engine_per_dossier_ms: ${median(single).toFixed(3)} ms`)
-console.log(`engine_1000_entries_ms: ${median(whole).toFixed(1)} ms`)
+const engineLines = [
+  `engine_per_dossier_ms: ${median(single).toFixed(3)} ms`,
+  `engine_1000_entries_ms: ${median(whole).toFixed(1)} ms`,
+]
 if (findings === 0) console.error('bench: the synthetic field produced no findings; check the generator')
+
+// The board run prints its progress; all figures follow together at the end.
+let board: BoardBenchResult | undefined
+let boardError: unknown
+try {
+  board = await benchBoard()
+}
+catch (error) {
+  boardError = error
+}
+
+console.log('')
+for (const line of engineLines) console.log(line)
+if (board) {
+  for (const f of board.figures) console.log(`${f.name}: ${f.value.toFixed(f.digits)} ${f.unit}`)
+  for (const line of [...board.notes, ...board.counts]) console.log(line)
+}
+else {
+  reportError(boardError)
+  console.error('bench: the board figures could not be taken (see above)')
+}
+process.exit(benchInterrupted() ? 130 : board && !board.failed ? 0 : 1)

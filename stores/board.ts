@@ -2,6 +2,7 @@ import type { Readiness } from '#shared/engine'
 import type { BoardClass, BoardDay, BoardDayEvent, BoardJoinAck, BoardSeq, BoardSnapshot, BoardTile, BoardTileEvent } from '#shared/types/api-board'
 import { hasGap, offer, rebase, sequenceState } from '#shared/utils/board-sequence'
 import { countTiles, emptyCounts, type ReadinessCounts } from '#shared/utils/board-tile'
+import { compareCompIds } from '#shared/utils/comp-id-order'
 import { connectBoardSocket, type BoardSocketConnector, type BoardSocketHandle, type BoardSocketHandlers } from '~/composables/boardSocket'
 import { createBoardChime, type BoardChime } from '~/composables/boardChime'
 
@@ -178,10 +179,10 @@ export const useBoardStore = defineStore('board', () => {
     const i = classes.value.findIndex(c => c.id === classId)
     return i === -1 ? classes.value.length : i
   }
-  // The server's order (class, then competition ID as text), so a glider that joins the board
-  // stands where the next snapshot will put it.
+  // The server's order (class, then competition ID as people read it), so a glider that joins
+  // the board stands where the next snapshot will put it.
   const boardOrder = (a: BoardTile, b: BoardTile) =>
-    classIndex(a.classId) - classIndex(b.classId) || (a.compId < b.compId ? -1 : a.compId > b.compId ? 1 : 0)
+    classIndex(a.classId) - classIndex(b.classId) || compareCompIds(a.compId, b.compId)
 
   /** Applies one change in sequence (a null tile: the entry left the board). */
   function applyTileEvent(event: BoardTileEvent) {

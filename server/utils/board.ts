@@ -14,6 +14,7 @@ import type { BoardDayRow, BoardTileRow } from '#shared/types/rows-board'
 import { buildTile, diffFindings, sameTile, sortedJson, type TileAction, type TileBody, type TileCheck } from '#shared/utils/board-tile'
 import type { GridCheckAnswerJson } from '#shared/types/rows-grid'
 import { READINESS_LABELS } from '#shared/constants/readiness'
+import type { CompetitionDossiers } from './findings'
 
 // ---------------------------------------------------------------------------------------
 // Changes to push once the transaction commits
@@ -87,7 +88,10 @@ export function dayQuery(db: Knex, competitionId: string) {
     .select(dayColumns(db))
 }
 
-export function toBoardDay(r: BoardDayJoinedRow): BoardDay {
+/** A timestamp as the driver reads a column (Date), or as JSON text when read inside a JSON value. */
+type Instant = Date | string
+
+export function toBoardDay(r: Omit<BoardDayJoinedRow, 'opened_at' | 'closed_at'> & { opened_at: Instant, closed_at: Instant | null }): BoardDay {
   return {
     day: r.day,
     kind: r.kind,
@@ -120,7 +124,7 @@ export async function boardDayOf(competitionId: string, day: IsoDate | undefined
 interface CheckRow {
   entry_id: string
   day: string
-  checked_at: Date
+  checked_at: Instant
   outcome: 'pass' | 'fail'
   answers: GridCheckAnswerJson[]
   scrutineer_name: string
@@ -184,12 +188,33 @@ export function actionsQuery(db: Knex, competitionId: string, day: IsoDate, entr
   return q
 }
 
-function latestChecksQuery(db: Knex, competitionId: string, day: IsoDate, entryIds?: readonly string[]) {
-  const q = db('grid_checks as g').join('users as u', 'u.id', 'g.scrutineer_id')
-    .whereIn('g.id', latestGridCheckIds(db, competitionId, day))
-    .select('g.entry_id', 'g.checked_at', 'g.outcome', 'g.answers', 'u.name as scrutineer_name', db.raw(`to_char(g.day, 'YYYY-MM-DD') as day`))
-  if (entryIds) q.whereIn('g.entry_id', [...entryIds])
-  return q
+type ExistingTileRow = Pick<BoardTileRow, 'entry_id' | 'readiness' | 'tile' | 'findings'> & { seq: string | number, updated_at: Instant }
+
+/**
+ * What refreshTiles reads besides the dossiers and the director's actions, in one statement:
+ * each entry's latest grid check of the day (with its scrutineer's name), its tile as it
+ * stands, and its entrant — of every entry, or of `entryIds`.
+ */
+async function tileInputs(db: Knex, competitionId: string, day: IsoDate, entryIds?: readonly string[]): Promise<{ checks: CheckRow[], existing: ExistingTileRow[], entrants: EntrantRow[] }> {
+  const only = (column: string) => (entryIds ? `and ${column} = any(:ids::uuid[])` : '')
+  const { rows: [row] } = await db.raw(`select
+      (select coalesce(json_agg(json_build_object('entry_id', g.entry_id, 'checked_at', g.checked_at, 'outcome', g.outcome,
+          'answers', g.answers, 'scrutineer_name', u.name, 'day', to_char(g.day, 'YYYY-MM-DD'))), '[]')
+        from grid_checks g join users u on u.id = g.scrutineer_id
+        where g.id in (:latestChecks) ${only('g.entry_id')}) as checks,
+      (select coalesce(json_agg(json_build_object('entry_id', t.entry_id, 'seq', t.seq, 'readiness', t.readiness,
+          'tile', t.tile, 'findings', t.findings, 'updated_at', t.updated_at)), '[]')
+        from board_tiles t where t.competition_id = :competitionId and t.day = :day ${only('t.entry_id')}) as existing,
+      (select coalesce(json_agg(json_build_object('id', e.id, 'comp_id', e.comp_id, 'entrant_user_id', e.entrant_user_id,
+          'entrant_email', u.email, 'entrant_name', u.name)), '[]')
+        from entries e join users u on u.id = e.entrant_user_id
+        where e.competition_id = :competitionId ${only('e.id')}) as entrants`, {
+    competitionId,
+    day,
+    latestChecks: latestGridCheckIds(db, competitionId, day),
+    ...(entryIds ? { ids: [...entryIds] } : {}),
+  })
+  return row
 }
 
 function groupBy<T extends { entry_id: string }>(rows: T[]): Map<string, T[]> {
@@ -212,6 +237,14 @@ export interface RefreshOptions {
   quietHold?: boolean
   /** Push no tile changes (a day being opened pushes one day change instead). */
   silent?: boolean
+  /**
+   * What the caller already read under the board's lock for exactly these entries and this
+   * day, so one change does not read the same dossiers twice: `loadCompetitionDossiers(…,
+   * { entryIds, acceptedOnly: true, day })` and `actionsQuery(…, day, entryIds)`, unchanged
+   * since. (The dossiers' own grid check is not read here: the tile's check comes from the
+   * grid_checks rows below.)
+   */
+  preloaded?: { dossiers: CompetitionDossiers, actions: BoardActionRow[] }
 }
 
 /**
@@ -229,21 +262,10 @@ export async function refreshTiles(
   opts: RefreshOptions,
 ): Promise<Map<string, BoardTile>> {
   const ids = opts.entryIds
-  const [loaded, checks, actions, existing, entrants] = await Promise.all([
-    loadCompetitionDossiers(competitionId, { entryIds: ids, acceptedOnly: true, day }, trx),
-    latestChecksQuery(trx, competitionId, day, ids) as Promise<CheckRow[]>,
-    actionsQuery(trx, competitionId, day, ids) as Promise<BoardActionRow[]>,
-    (() => {
-      const q = trx('board_tiles').where({ competition_id: competitionId, day }).select('entry_id', 'seq', 'readiness', 'tile', 'findings', 'updated_at')
-      if (ids) q.whereIn('entry_id', [...ids])
-      return q
-    })() as Promise<Pick<BoardTileRow, 'entry_id' | 'seq' | 'readiness' | 'tile' | 'findings' | 'updated_at'>[]>,
-    (() => {
-      const q = trx('entries as e').join('users as u', 'u.id', 'e.entrant_user_id').where('e.competition_id', competitionId)
-        .select('e.id', 'e.comp_id', 'e.entrant_user_id', 'u.email as entrant_email', 'u.name as entrant_name')
-      if (ids) q.whereIn('e.id', [...ids])
-      return q
-    })() as Promise<EntrantRow[]>,
+  const [loaded, actions, { checks, existing, entrants }] = await Promise.all([
+    opts.preloaded?.dossiers ?? loadCompetitionDossiers(competitionId, { entryIds: ids, acceptedOnly: true, day }, trx),
+    opts.preloaded?.actions ?? actionsQuery(trx, competitionId, day, ids) as Promise<BoardActionRow[]>,
+    tileInputs(trx, competitionId, day, ids),
   ])
   const result = new Map<string, BoardTile>()
   if (!loaded) return result
@@ -280,13 +302,22 @@ export async function refreshTiles(
   let seq = await takeSeq(trx, competitionId, count)
   const now = new Date()
 
-  for (const p of pending) {
-    const tile: BoardTile = { ...p.body, seq, updatedAt: now.toISOString() }
-    seq++
+  const written = pending.map((p): Pending & { tile: BoardTile } => ({ ...p, tile: { ...p.body, seq: seq++, updatedAt: now.toISOString() } }))
+  // The tiles in as few statements as there are hundreds of them (a day being opened writes
+  // every tile; a grid check one).
+  for (let i = 0; i < written.length; i += 500) {
     await trx('board_tiles')
-      .insert({ competition_id: competitionId, day, entry_id: p.entryId, seq: tile.seq, readiness: tile.readiness, tile: JSON.stringify(p.body), findings: JSON.stringify(p.findings), updated_at: now })
+      .insert(written.slice(i, i + 500).map(p => ({
+        competition_id: competitionId, day, entry_id: p.entryId, seq: p.tile.seq, readiness: p.tile.readiness,
+        tile: JSON.stringify(p.body), findings: JSON.stringify(p.findings), updated_at: now,
+        // As the board sends it (boardSnapshotJson joins these).
+        shown: JSON.stringify(p.tile),
+      })))
       .onConflict(['competition_id', 'day', 'entry_id'])
-      .merge(['seq', 'readiness', 'tile', 'findings', 'updated_at'])
+      .merge(['seq', 'readiness', 'tile', 'findings', 'updated_at', 'shown'])
+  }
+  for (const p of written) {
+    const tile = p.tile
     result.set(p.entryId, tile)
     if (!opts.silent) changes.tiles.push({ competitionId, day, seq: tile.seq, cause: opts.cause, entryId: p.entryId, tile })
 
@@ -335,36 +366,61 @@ export async function refreshOpenDay(competitionId: string, opts: RefreshOptions
 // ---------------------------------------------------------------------------------------
 // Reading the board
 
-export function toBoardTile(r: Pick<BoardTileRow, 'seq' | 'tile' | 'updated_at'>): BoardTile {
+export function toBoardTile(r: Pick<BoardTileRow, 'tile'> & { seq: string | number, updated_at: Instant }): BoardTile {
   return { ...r.tile, seq: Number(r.seq), updatedAt: new Date(r.updated_at).toISOString() }
 }
 
 /**
- * The board of one day at one sequence number. Read in one repeatable-read snapshot, so the
- * number and the tiles agree: a pushed change numbered above it is news to the screen.
+ * The board of one day at one sequence number, as the JSON text of a `BoardSnapshot`: what a
+ * wall screen polls, so it is read in one statement and hardly touched on the way out. The
+ * statement's subqueries share one snapshot, so the number and the tiles agree (a pushed change
+ * numbered above it is news to the screen). Each tile is the text stored with it as the board
+ * sends it (board_tiles.shown: the tile with `seq` and `updatedAt`, as `toBoardTile` makes it),
+ * joined in PostgreSQL; nothing here parses a tile or serialises it again. The day is the one
+ * asked for, else the open day, else the latest opened (as `boardDayOf`).
  */
+export async function boardSnapshotJson(competition: { id: string, name: string, time_zone: string }, day?: IsoDate, db: Knex = useDb()): Promise<string> {
+  const { rows: [row] } = await db.raw(`with shown as (
+      select d.competition_id, d.kind, d.opened_at, d.closed_at, d.opened_by, d.closed_by, d.day as day_date,
+        to_char(d.day, 'YYYY-MM-DD') as day, o.name as opened_by_name, c.name as closed_by_name
+      from board_days d join users o on o.id = d.opened_by left join users c on c.id = d.closed_by
+      where d.competition_id = :competitionId ${day ? 'and d.day = :day' : ''}
+      order by d.closed_at is null desc, d.day desc
+      limit 1
+    )
+    select
+      (select json_build_object('competition_id', s.competition_id, 'kind', s.kind, 'opened_at', s.opened_at, 'closed_at', s.closed_at,
+          'opened_by', s.opened_by, 'closed_by', s.closed_by, 'day', s.day, 'opened_by_name', s.opened_by_name, 'closed_by_name', s.closed_by_name)
+        from shown s) as shown,
+      coalesce((select seq from board_sequences where competition_id = :competitionId), 0) as seq,
+      (select coalesce(json_agg(json_build_object('id', k.id, 'name', k.name) order by k.sort_order, k.name), '[]')
+        from classes k where k.competition_id = :competitionId) as classes,
+      (select '[' || coalesce(string_agg(t.shown::text, ',' order by k.sort_order, e.comp_id collate comp_id_order), '') || ']'
+        from shown s
+        join board_tiles t on t.competition_id = s.competition_id and t.day = s.day_date
+        join entries e on e.id = t.entry_id
+        join classes k on k.id = e.class_id) as tiles`, day ? { competitionId: competition.id, day } : { competitionId: competition.id }) as {
+    rows: {
+      // Timestamps inside JSON values arrive as text; toBoardDay reads them as instants.
+      shown: (Omit<BoardDayJoinedRow, 'opened_at' | 'closed_at'> & { opened_at: string, closed_at: string | null }) | null
+      seq: string
+      classes: { id: string, name: string }[]
+      tiles: string
+    }[]
+  }
+  const head: Omit<BoardSnapshot, 'tiles' | 'generatedAt'> = {
+    competition: { id: competition.id, name: competition.name, timeZone: competition.time_zone },
+    day: row!.shown ? toBoardDay(row!.shown) : null,
+    seq: Number(row!.seq),
+    classes: row!.classes,
+  }
+  // The keys in BoardSnapshot's order, with the tiles' text as it came.
+  return `${JSON.stringify(head).slice(0, -1)},"tiles":${row!.tiles},"generatedAt":${JSON.stringify(new Date().toISOString())}}`
+}
+
+/** The board of one day at one sequence number (see boardSnapshotJson), as an object. */
 export async function boardSnapshot(competition: { id: string, name: string, time_zone: string }, day?: IsoDate, db: Knex = useDb()): Promise<BoardSnapshot> {
-  return db.transaction(async (trx) => {
-    const shown = await boardDayOf(competition.id, day, trx)
-    const [seq, classes, tiles] = await Promise.all([
-      currentSeq(competition.id, trx),
-      trx('classes').where({ competition_id: competition.id }).orderBy([{ column: 'sort_order' }, { column: 'name' }]).select('id', 'name'),
-      shown
-        ? trx('board_tiles as t').join('entries as e', 'e.id', 't.entry_id').join('classes as k', 'k.id', 'e.class_id')
-            .where({ 't.competition_id': competition.id, 't.day': shown.day })
-            .orderBy([{ column: 'k.sort_order' }, { column: 'e.comp_id' }])
-            .select('t.seq', 't.tile', 't.updated_at')
-        : Promise.resolve([]),
-    ])
-    return {
-      competition: { id: competition.id, name: competition.name, timeZone: competition.time_zone },
-      day: shown,
-      seq,
-      classes: classes.map((c: { id: string, name: string }) => ({ id: c.id, name: c.name })),
-      tiles: (tiles as Pick<BoardTileRow, 'seq' | 'tile' | 'updated_at'>[]).map(toBoardTile),
-      generatedAt: new Date().toISOString(),
-    }
-  }, { isolationLevel: 'repeatable read', readOnly: true })
+  return JSON.parse(await boardSnapshotJson(competition, day, db)) as BoardSnapshot
 }
 
 /** One entry's tile on a day, if it has one. */

@@ -2,13 +2,15 @@
 // A few set-based queries per competition — entries with their class, units, current
 // documents, current IGC files, the competition with its classes and firmware catalogue —
 // weigh-ins and, for a day, that day's latest grid check — then pure row → engine mappings,
-// the field of every entry, and evaluate. `loadCompetitionDossiers` is the loader both the
-// findings routes and the grid pack read through.
+// the field of every entry, and evaluate; a few entries' dossiers in one statement.
+// `loadCompetitionDossiers` is the loader the findings routes, the grid pack, the grid check
+// and the board read through.
 import type { Knex } from 'knex'
 import { blockingFirst, buildField, evaluate, type ClassLimit, type CompetitionForEngine, type Dossier, type EngineDocument, type EngineEntry, type EngineIgcFile, type EngineUnit, type Field, type Finding, type FirmwareRelease, type GridCheck, type IsoDate, type ScaleReading, type WeighInRecord, type WeighUnits } from '#shared/engine'
 import type { CompetitionFindings, EntryFindings, FindingCounts } from '#shared/types/api-findings'
 import type { EntryStatus, PaymentStatus } from '#shared/constants/entries'
 import { rulesOf } from './competition-setup'
+import { latestGridCheckIds } from './grid-checks'
 
 // ---------------------------------------------------------------------------------------
 // Rows as the queries below select them (dates as YYYY-MM-DD text, numerics as pg strings).
@@ -268,15 +270,133 @@ export interface CompetitionDossiers {
   rows: FindingsEntryRow[]
 }
 
+/** What the field reads of every entry: [id, competition ID, status]. */
+export type FindingsFieldEntry = [id: string, compId: string, status: EntryStatus]
+/** …and of every collision-warning unit with a radio ID: [entry id, radio ID]. */
+export type FindingsFieldRadioId = [entryId: string, radioId: string]
+
+/**
+ * The field of a competition from what it reads of each entry: the engine's own buildField,
+ * over dossiers that hold only the entry's id, competition ID and status and its
+ * collision-warning units' radio IDs (tests/unit/server/findings.test.ts holds the result
+ * equal to buildField over the full dossiers), so a few entries' dossiers need no other entry
+ * read in full.
+ */
+export function toField(entries: readonly FindingsFieldEntry[], radioIds: readonly FindingsFieldRadioId[]): Field {
+  const units = new Map<string, { kind: 'collision-warning', radioId: string }[]>()
+  for (const [entryId, radioId] of radioIds) {
+    const list = units.get(entryId)
+    if (list) list.push({ kind: 'collision-warning', radioId })
+    else units.set(entryId, [{ kind: 'collision-warning', radioId }])
+  }
+  return buildField(entries.map(([id, compId, status]) => ({
+    entry: { id, compId, status },
+    units: units.get(id) ?? [],
+  }) as unknown as Dossier))
+}
+
+const YMD = `'YYYY-MM-DD'`
+
+/**
+ * One statement for what `loadCompetitionDossiers` reads for a few entries (:ids), each part a
+ * JSON value with the columns the row types above name (numerics as their text, dates as
+ * YYYY-MM-DD), so an entry's dossier costs one round trip to the database, not nine — what a
+ * grid check, a director's action or an entry's page waits for. The field still covers the
+ * whole competition, from two slim lists.
+ */
+function scopedDossierSql(scope: { acceptedOnly: boolean, day: boolean }): string {
+  const inScope = (column: string) => `and ${column} = any(:ids::uuid[])${scope.acceptedOnly
+    ? ` and ${column} in (select id from entries where competition_id = :competitionId and status = 'accepted')`
+    : ''}`
+  return `select
+  (select json_build_object('name', c.name, 'time_zone', c.time_zone, 'settings', c.settings,
+      'first_contest_day', to_char(c.first_contest_day, ${YMD}), 'last_contest_day', to_char(c.last_contest_day, ${YMD}))
+    from competitions c where c.id = :competitionId) as competition,
+  (select coalesce(json_agg(json_build_object('id', k.id, 'code', k.code, 'max_mtom_kg', k.max_mtom_kg::text)), '[]')
+    from classes k where k.competition_id = :competitionId) as classes,
+  (select coalesce(json_agg(json_build_object('unit_family', f.unit_family, 'version', f.version, 'expires_on', to_char(f.expires_on, ${YMD}))), '[]')
+    from firmware_releases f where f.competition_id = :competitionId) as firmware,
+  (select coalesce(json_agg(json_build_array(e.id, e.comp_id, e.status)), '[]')
+    from entries e where e.competition_id = :competitionId) as field_entries,
+  (select coalesce(json_agg(json_build_array(u.entry_id, u.radio_id)), '[]')
+    from units u where u.competition_id = :competitionId and u.kind = 'collision-warning' and u.radio_id is not null) as field_radio_ids,
+  (select coalesce(json_agg(json_build_object(
+      'id', e.id, 'comp_id', e.comp_id, 'registration', e.registration, 'glider_type', e.glider_type, 'pilot_name', e.pilot_name,
+      'copilot_name', e.copilot_name, 'status', e.status, 'payment_status', e.payment_status, 'mtom_kg', e.mtom_kg::text,
+      'cg_forward_limit_m', e.cg_forward_limit_m::text, 'cg_aft_limit_m', e.cg_aft_limit_m::text,
+      'class_id', e.class_id, 'class_name', k.name, 'class_code', k.code) order by e.comp_id, e.id), '[]')
+    from entries e join classes k on k.id = e.class_id
+    where e.competition_id = :competitionId ${inScope('e.id')}) as entries,
+  (select coalesce(json_agg(json_build_object(
+      'id', u.id, 'entry_id', u.entry_id, 'kind', u.kind, 'model', u.model, 'serial', u.serial, 'radio_id', u.radio_id,
+      'firmware_version', u.firmware_version, 'approval_level', u.approval_level,
+      'firmware_expires_on', to_char(u.firmware_expires_on, ${YMD}), 'firmware_updated_on', to_char(u.firmware_updated_on, ${YMD}),
+      'obstacle_db_expires_on', to_char(u.obstacle_db_expires_on, ${YMD})) order by u.kind, u.created_at, u.id), '[]')
+    from units u where u.competition_id = :competitionId ${inScope('u.entry_id')}) as units,
+  (select coalesce(json_agg(json_build_object(
+      'id', d.id, 'entry_id', d.entry_id, 'kind', d.kind, 'status', d.status, 'expires_on', to_char(d.expires_on, ${YMD})) order by d.uploaded_at), '[]')
+    from documents d where d.competition_id = :competitionId and not d.superseded ${inScope('d.entry_id')}) as documents,
+  (select coalesce(json_agg(json_build_object(
+      'id', i.id, 'entry_id', i.entry_id, 'unit_id', i.unit_id, 'pilot', i.pilot, 'copilot', i.copilot, 'glider_type', i.glider_type,
+      'glider_id', i.glider_id, 'declared_comp_id', i.declared_comp_id, 'declared_class', i.declared_class, 'has_g_record', i.has_g_record,
+      'uploaded_at', i.uploaded_at, 'flight_date', to_char(i.flight_date, ${YMD})) order by i.uploaded_at), '[]')
+    from igc_files i where i.competition_id = :competitionId and not i.superseded ${inScope('i.entry_id')}) as igc_files,
+  -- Within a day the engine takes the last weigh-in it is given: order by the time of the grid
+  -- check it came with, so the later check's weighing counts.
+  (select coalesce(json_agg(json_build_object(
+      'id', w.id, 'entry_id', w.entry_id, 'units', w.units, 'readings', w.readings, 'weighed_on', to_char(w.weighed_on, ${YMD}))
+      order by w.weighed_on, g.checked_at, w.created_at, w.id), '[]')
+    from weigh_ins w left join grid_checks g on g.id = w.grid_check_id
+    where w.competition_id = :competitionId ${inScope('w.entry_id')}) as weigh_ins,
+  ${scope.day
+    ? `(select coalesce(json_agg(json_build_object('entry_id', g.entry_id, 'outcome', g.outcome, 'day', to_char(g.day, ${YMD}))), '[]')
+      from grid_checks g where g.id in (:latestChecks) ${inScope('g.entry_id')})`
+    : `'[]'::json`} as grid_checks`
+}
+
+interface DossierSqlRow {
+  competition: (FindingsCompetitionRow & { name: string }) | null
+  classes: FindingsClassRow[]
+  firmware: FindingsFirmwareRow[]
+  field_entries: FindingsFieldEntry[]
+  field_radio_ids: FindingsFieldRadioId[]
+  entries: FindingsEntryRow[]
+  units: FindingsUnitRow[]
+  documents: FindingsDocumentRow[]
+  igc_files: (Omit<FindingsIgcRow, 'uploaded_at'> & { uploaded_at: string })[]
+  weigh_ins: FindingsWeighInRow[]
+  grid_checks: FindingsGridCheckRow[]
+}
+
+async function loadScopedDossiers(competitionId: string, entryIds: readonly string[], scope: DossierScope, db: Knex): Promise<CompetitionDossiers | undefined> {
+  const bindings: Record<string, unknown> = { competitionId, ids: [...entryIds] }
+  if (scope.day) bindings.latestChecks = latestGridCheckIds(db, competitionId, scope.day)
+  const sql = scopedDossierSql({ acceptedOnly: Boolean(scope.acceptedOnly), day: Boolean(scope.day) })
+  const { rows: [row] } = await db.raw(sql, bindings) as { rows: DossierSqlRow[] }
+  const competition = row?.competition
+  if (!row || !competition) return undefined
+  // As the driver reads a timestamptz column: a Date (to the millisecond).
+  const igcFiles: FindingsIgcRow[] = row.igc_files.map(f => ({ ...f, uploaded_at: new Date(f.uploaded_at) }))
+  const dossiers = toDossiers(row.entries, row.units, row.documents, igcFiles, row.weigh_ins, row.grid_checks)
+  return {
+    competitionRow: competition,
+    competition: toEngineCompetition(competition, row.classes, row.firmware),
+    dossiers,
+    field: toField(row.field_entries, row.field_radio_ids),
+    rows: row.entries,
+  }
+}
+
 /**
  * Reads the dossiers of one competition in a few set-based queries. Documents, IGC files,
  * weigh-ins and grid checks are read only for the entries in scope; entries and units for
  * all, so the field sees the whole competition. Undefined when there is no such competition.
+ * Some entries' dossiers (`entryIds`) are read in one statement instead (loadScopedDossiers),
+ * with the same result (tests/e2e/api/findings/dossier-loader.test.ts).
  */
 export async function loadCompetitionDossiers(competitionId: string, scope: DossierScope = {}, db: Knex = useDb()): Promise<CompetitionDossiers | undefined> {
-  const only = scope.entryIds ? [...scope.entryIds] : null
+  if (scope.entryIds) return loadScopedDossiers(competitionId, scope.entryIds, scope, db)
   const scoped = (q: Knex.QueryBuilder, column = 'entry_id') => {
-    if (only) q.whereIn(column, only)
     if (scope.acceptedOnly) q.whereIn(column, db('entries').where({ competition_id: competitionId, status: 'accepted' }).select('id'))
     return q
   }
@@ -321,8 +441,7 @@ export async function loadCompetitionDossiers(competitionId: string, scope: Doss
   if (!competition) return undefined
   const all = toDossiers(entries, units, documents, igcFiles, weighIns, gridChecks)
   const field = buildField(all)
-  const wanted = only ? new Set(only) : null
-  const inScope = (r: FindingsEntryRow) => (!wanted || wanted.has(r.id)) && (!scope.acceptedOnly || r.status === 'accepted')
+  const inScope = (r: FindingsEntryRow) => !scope.acceptedOnly || r.status === 'accepted'
   const dossiers: Dossier[] = []
   const rows: FindingsEntryRow[] = []
   entries.forEach((r, i) => {

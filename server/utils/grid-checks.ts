@@ -18,7 +18,7 @@ import type { CompetitionRow } from '#shared/types/rows'
 import type { User } from '#auth-utils'
 import { sortedJson } from '#shared/utils/board-tile'
 import { rulesOf } from './competition-setup'
-import { actionsQuery, boardTransaction, lockBoard, openDate, refreshTiles, toTileAction } from './board'
+import { actionsQuery, boardTransaction, lockBoard, refreshTiles, toTileAction, type BoardActionRow } from './board'
 import type { CompetitionAccess } from './authz'
 
 // ---------------------------------------------------------------------------------------
@@ -222,11 +222,6 @@ function fieldError(field: string, message: string) {
   return httpError(400, `${MESSAGES.invalidInput} ${message}`, { fieldErrors: { [field]: [message] }, formErrors: [] })
 }
 
-/** The director's holds, releases and waivers that count for an entry on a day, in the order taken. */
-async function directorActionsOf(trx: Knex, competitionId: string, entryId: string, day: IsoDate): Promise<DirectorAction[]> {
-  return (await actionsQuery(trx, competitionId, day, [entryId])).map(toTileAction)
-}
-
 export async function recordGridCheck(
   competition: CompetitionRow,
   user: User,
@@ -243,11 +238,24 @@ export async function recordGridCheck(
       return { gridCheck: await gridCheckById(trx, earlier.id), replayed: true }
     }
     // A new check changes the board: one writer per competition's board at a time (board.ts).
+    // Every round trip from here to the commit keeps the other phones waiting, so what can go
+    // together goes together.
     await lockBoard(trx, competition.id)
 
-    const entry = await trx('entries').where({ id: body.entryId }).first('id', 'competition_id', 'status')
-    if (!entry) throw httpError(404, MESSAGES.gridEntryNotFound)
-    if (entry.competition_id !== competition.id) throw httpError(403, MESSAGES.gridEntryOtherCompetition)
+    // At once: the entry's dossier (as the board reads an entry of this competition), the
+    // director's actions that count today, and whether the day is open on the board (opening
+    // and closing take the lock we hold). The entry is judged first: only an entry that is not
+    // this competition's is looked up on its own, to tell "no such entry" from "another's".
+    const [loaded, actionRows, open] = await Promise.all([
+      loadCompetitionDossiers(competition.id, { entryIds: [body.entryId], day: body.day }, trx),
+      actionsQuery(trx, competition.id, body.day, [body.entryId]) as Promise<BoardActionRow[]>,
+      trx('board_days').where({ competition_id: competition.id, day: body.day }).whereNull('closed_at').first('day'),
+    ])
+    const entry = loaded?.rows[0]
+    if (!entry) {
+      const elsewhere = await trx('entries').where({ id: body.entryId }).first('id')
+      throw elsewhere ? httpError(403, MESSAGES.gridEntryOtherCompetition) : httpError(404, MESSAGES.gridEntryNotFound)
+    }
     if (entry.status !== 'accepted') throw httpError(409, MESSAGES.gridEntryNotAccepted)
     if (!gridDayAllowed(body.day, todayIn(competition.time_zone, now))) throw fieldError('day', MESSAGES.gridDayOutOfRange)
 
@@ -260,13 +268,12 @@ export async function recordGridCheck(
     const weighed = body.weighIn ? weighIn(body.weighIn.readings, body.weighIn.units) : null
 
     // The engine over the dossier as it stands, with this check's weigh-in as the day's last.
-    const loaded = await loadCompetitionDossiers(competition.id, { entryIds: [entry.id], day: body.day }, trx)
     const dossier = loaded?.dossiers[0]
     let findings: Finding[] = []
     if (loaded?.competition && dossier) {
       findings = blockingFirst(evaluate(withWeighIn(dossier, body.day, body.weighIn), loaded.competition, loaded.field, body.day))
     }
-    const actions = await directorActionsOf(trx, competition.id, entry.id, body.day)
+    const actions: DirectorAction[] = actionRows.map(toTileAction)
     const ready: Readiness = readiness(findings, { day: body.day, outcome }, actions, body.day)
 
     const [row] = await trx('grid_checks').insert({
@@ -298,24 +305,39 @@ export async function recordGridCheck(
         weighed_by: user.id,
       })
     }
-    await audit(trx, {
-      actorUserId: user.id,
-      competitionId: competition.id,
-      action: 'grid-check.recorded',
-      subjectType: 'grid_check',
-      subjectId: gridCheckId,
-      details: {
-        entryId: entry.id,
-        day: body.day,
-        outcome,
-        readiness: ready,
-        blocking: findings.filter(f => f.severity === 'blocking').map(f => f.checkId),
-        massKg: weighed ? Math.round(weighed.massKg * 100) / 100 : null,
-        idempotencyKey: body.idempotencyKey,
-      },
-    })
-    // On an open day the entry's tile follows at once, pushed to the boards after commit.
-    if (await openDate(trx, competition.id) === body.day) await refreshTiles(trx, competition.id, body.day, changes, { cause: 'grid-check', actorId: user.id, entryIds: [entry.id] })
-    return { gridCheck: await gridCheckById(trx, gridCheckId), replayed: false }
+    // The check and its weigh-in are written; the audit row, the entry's tile on an open day
+    // (pushed to the boards after commit) and the check as answered are independent of one
+    // another, so they go together. The tile reuses the reads above — the board's read of an
+    // accepted entry, unchanged since — unless this check brought a weigh-in (then the tile
+    // reads the dossier again, with the weigh-in where the stored order puts it).
+    const reusable = !body.weighIn
+    const [gridCheck] = await Promise.all([
+      gridCheckById(trx, gridCheckId),
+      audit(trx, {
+        actorUserId: user.id,
+        competitionId: competition.id,
+        action: 'grid-check.recorded',
+        subjectType: 'grid_check',
+        subjectId: gridCheckId,
+        details: {
+          entryId: entry.id,
+          day: body.day,
+          outcome,
+          readiness: ready,
+          blocking: findings.filter(f => f.severity === 'blocking').map(f => f.checkId),
+          massKg: weighed ? Math.round(weighed.massKg * 100) / 100 : null,
+          idempotencyKey: body.idempotencyKey,
+        },
+      }),
+      open
+        ? refreshTiles(trx, competition.id, body.day, changes, {
+            cause: 'grid-check',
+            actorId: user.id,
+            entryIds: [entry.id],
+            preloaded: reusable ? { dossiers: loaded!, actions: actionRows } : undefined,
+          })
+        : null,
+    ])
+    return { gridCheck, replayed: false }
   })
 }

@@ -22,9 +22,12 @@ export interface BoardTileRow {
   /** bigint arrives from pg as a string */
   seq: string
   readiness: Readiness
+  /** json (kept as written, so a tile read back compares equal key for key with one built again) */
   tile: Omit<BoardTile, 'seq' | 'updatedAt'>
   findings: Finding[]
   updated_at: Date
+  /** The tile as the board sends it (with seq and updatedAt), written with it. */
+  shown: BoardTile
 }
 
 export interface DirectorActionRow {

@@ -4,8 +4,8 @@ import { describe, expect, it } from 'vitest'
 import { DEFAULT_RULES } from '../../../shared/schemas/competition'
 import { buildField, evaluate } from '../../../shared/engine'
 import {
-  classKey, countFindings, toDossiers, toEngineCompetition, toEngineIgcFile, toEngineUnit, toWeighInRecord,
-  type FindingsEntryRow, type FindingsIgcRow, type FindingsUnitRow, type FindingsWeighInRow,
+  classKey, countFindings, toDossiers, toEngineCompetition, toEngineIgcFile, toEngineUnit, toField, toWeighInRecord,
+  type FindingsEntryRow, type FindingsFieldEntry, type FindingsFieldRadioId, type FindingsIgcRow, type FindingsUnitRow, type FindingsWeighInRow,
 } from '../../../server/utils/findings'
 
 const entry = (over: Partial<FindingsEntryRow> = {}): FindingsEntryRow => ({
@@ -120,5 +120,48 @@ describe('the engine over mapped rows', () => {
       { checkId: 'b', severity: 'advisory', reason: '', fixHint: '' },
       { checkId: 'c', severity: 'blocking', reason: '', fixHint: '' },
     ])).toEqual({ blocking: 2, advisory: 1 })
+  })
+})
+
+describe('the field from what it reads of each entry', () => {
+  // What loadCompetitionDossiers reads of every entry when it reads only a few dossiers in full.
+  const slim = (entries: FindingsEntryRow[], units: FindingsUnitRow[]): [FindingsFieldEntry[], FindingsFieldRadioId[]] => [
+    entries.map(e => [e.id, e.comp_id, e.status]),
+    units.filter(u => u.kind === 'collision-warning' && u.radio_id !== null).map(u => [u.entry_id, u.radio_id!]),
+  ]
+
+  it('is the field the engine builds from the full dossiers', () => {
+    const entries = [
+      entry(),
+      entry({ id: 'e2', comp_id: 'T3', status: 'accepted' }),
+      entry({ id: 'e3', comp_id: 'k7', status: 'withdrawn' }),
+      entry({ id: 'e4', comp_id: 'R4', status: 'rejected' }),
+      entry({ id: 'e5', comp_id: 'M5', status: 'draft' }),
+    ]
+    const units = [
+      warner(),
+      recorder,
+      warner({ id: 'u3', entry_id: 'e2', radio_id: 'abc123' }),
+      warner({ id: 'u4', entry_id: 'e2', radio_id: 'DEF456' }),
+      warner({ id: 'u5', entry_id: 'e3', radio_id: 'ABC123' }),
+      warner({ id: 'u6', entry_id: 'e5', radio_id: '' }),
+      warner({ id: 'u7', entry_id: 'e5', radio_id: null }),
+      { ...recorder, id: 'u8', entry_id: 'e4' },
+    ]
+    const full = buildField(toDossiers(entries, units, [], []))
+    expect(toField(...slim(entries, units))).toEqual(full)
+    // Withdrawn and rejected entries claim nothing; the one whose units carry no radio ID holds none.
+    expect(Object.keys(full.entries).sort()).toEqual(['e1', 'e2', 'e5'])
+    expect(full.entries.e5!.radioIds).toEqual([])
+  })
+
+  it('finds the same radio-ID clash when one entry’s dossier is evaluated against it', () => {
+    const entries = [entry({ status: 'accepted' }), entry({ id: 'e2', comp_id: 'T3', status: 'accepted' })]
+    const units = [warner(), recorder, warner({ id: 'u3', entry_id: 'e2', radio_id: 'abc123' })]
+    const [mine] = toDossiers([entries[0]!], [warner(), recorder], [], [])
+    const viaFull = evaluate(mine!, competition, buildField(toDossiers(entries, units, [], []))).filter(f => f.checkId.startsWith('radio-id'))
+    const viaSlim = evaluate(mine!, competition, toField(...slim(entries, units))).filter(f => f.checkId.startsWith('radio-id'))
+    expect(viaFull.length).toBeGreaterThan(0)
+    expect(viaSlim).toEqual(viaFull)
   })
 })

@@ -10,5 +10,8 @@ export default defineApiHandler(async (event): Promise<BoardSnapshot> => {
   const { day } = await validQuery(event, boardQuerySchema)
   const { competition } = await requireRole(event, competitionId, STAFF_ROLES)
   setResponseHeader(event, 'cache-control', 'no-store')
-  return boardSnapshot(competition, day)
+  // Wall screens poll this: the snapshot is sent as the JSON text boardSnapshotJson builds,
+  // with nothing parsed or encoded again. The client receives a BoardSnapshot, hence the type.
+  setResponseHeader(event, 'content-type', 'application/json')
+  return await boardSnapshotJson(competition, day) as unknown as BoardSnapshot
 })

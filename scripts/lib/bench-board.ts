@@ -1,0 +1,607 @@
+// The live board under load, for `npm run bench`: a throwaway PostgreSQL cluster (as `npm
+// test` makes one), the built server, and in this process the screens and phones of a busy
+// morning on the grid.
+//
+//   latency    competition of 300 entries, today's day opened by its director. 200 board
+//              screens on socket.io and 20 polling screens (GET …/board every 2 s, each at its
+//              own phase) watch while 30 scrutineers each send a grid check every 1–2 s
+//              (jittered) for 30 s. For each check: from just before its POST to the moment
+//              each screen first shows the entry's tile carrying that check (matched on entry
+//              id and `lastCheck.at` = the check's `checkedAt`). Before that, 20 checks one at
+//              a time show what a check costs with no queue (reported apart, with the machine's
+//              load: other work on the machine shows in every figure).
+//   snapshot   competition of 1,000 entries with its day open: GET …/board, the median of
+//              30 sequential requests after a warm-up, timed here on loopback.
+//
+// Everything it started (sockets, server, cluster, /tmp folder) is removed in every case,
+// Ctrl-C included. The clients keep their work small: a tile event is matched by one map
+// look-up; a polled board is parsed once and only changed tiles are looked at.
+import { chmodSync, mkdtempSync, rmSync } from 'node:fs'
+import { join } from 'node:path'
+import { performance } from 'node:perf_hooks'
+import { randomBytes, randomUUID } from 'node:crypto'
+import { availableParallelism, loadavg } from 'node:os'
+import knex from 'knex'
+import { io, type Socket } from 'socket.io-client'
+import { createKnexConfig } from '../../knexfile'
+import type { BoardJoinAck, BoardSnapshot, BoardTileEvent } from '../../shared/types/api-board'
+import { startServer, type RunningServer } from '../../tests/support/server'
+import { BENCH_PASSWORD, benchToday, createBenchCompetition, createBenchUsers, type BenchUser } from './bench-data'
+import { ensureBuild } from './build'
+import { formatDuration, ScriptError, step } from './common'
+import { migrate } from './db'
+import { freePort } from './net'
+import { clusterUrl, createDatabase, ensurePostgresBinaries, initCluster, isClusterRunning, startCluster, stopCluster, type Cluster } from './postgres'
+import { randomSessionPassword } from './secrets'
+
+const BENCH_DATABASE = 'gridmark_bench'
+
+export const BOARD_BENCH = {
+  entries: 300,
+  snapshotEntries: 1000,
+  boardClients: 200,
+  pollingClients: 20,
+  scrutineers: 30,
+  /** Each scrutineer waits 1–2 s (uniformly) between the end of one check and the start of the next. */
+  checkGapMs: [1000, 2000] as const,
+  loadMs: 30_000,
+  pollIntervalMs: 2000,
+  /**
+   * An entry is checked again only this long after its last check, so each check is its own
+   * change on every screen: two checks of one glider in flight at once, or within one poll
+   * interval, would show only the later. On the grid a glider is checked once a launch anyway.
+   */
+  entryCooldownMs: 5000,
+  /** After the last check: how long pushed tiles may still arrive. */
+  pushGraceMs: 5000,
+  snapshotWarmUp: 5,
+  snapshotRuns: 30,
+} as const
+
+export const TARGETS = { scanToBoardP95Ms: 50, boardSnapshot1000Ms: 20 } as const
+
+export interface BoardBenchResult {
+  figures: { name: string, value: number, unit: string, digits: number }[]
+  notes: string[]
+  /** Submissions and samples taken, events lost. */
+  counts: string[]
+  /** Something went wrong in the measurement itself (lost events, failed checks). */
+  failed: boolean
+}
+
+// ---------------------------------------------------------------------------------------
+// Interrupts
+
+let interrupted: NodeJS.Signals | undefined
+const interruptWaiters = new Set<() => void>()
+
+function onSignal(signal: NodeJS.Signals): void {
+  if (interrupted) return
+  interrupted = signal
+  console.log(`\n▸ ${signal}: stopping the bench, then cleaning up`)
+  for (const wake of interruptWaiters) wake()
+}
+
+function checkInterrupted(): void {
+  if (interrupted) throw new ScriptError(`Interrupted by ${interrupted}`)
+}
+
+/** Sleeps, but wakes at once on Ctrl-C. */
+function pause(ms: number): Promise<void> {
+  if (interrupted) return Promise.resolve()
+  return new Promise((resolve) => {
+    const wake = () => {
+      clearTimeout(timer)
+      interruptWaiters.delete(wake)
+      resolve()
+    }
+    const timer = setTimeout(wake, ms)
+    interruptWaiters.add(wake)
+  })
+}
+
+// ---------------------------------------------------------------------------------------
+// Small HTTP client: a session cookie and an address of its own (the bench server trusts
+// X-Forwarded-For, as it would behind a reverse proxy).
+
+class BenchClient {
+  cookie = ''
+  readonly address: string
+  constructor(readonly baseUrl: string) {
+    const b = randomBytes(3)
+    this.address = `10.${b[0]}.${b[1]}.${b[2]}`
+  }
+
+  headers(json = false): Record<string, string> {
+    const h: Record<string, string> = { 'x-forwarded-for': this.address, 'accept': 'application/json' }
+    if (this.cookie) h.cookie = this.cookie
+    if (json) h['content-type'] = 'application/json'
+    return h
+  }
+
+  async signIn(email: string): Promise<void> {
+    const res = await fetch(`${this.baseUrl}/api/auth/login`, { method: 'POST', headers: this.headers(true), body: JSON.stringify({ email, password: BENCH_PASSWORD }) })
+    const body = await res.text()
+    if (res.status !== 200) throw new ScriptError(`Signing in ${email} failed: ${res.status} ${body}`)
+    const cookie = res.headers.getSetCookie().find(c => c.startsWith('gridmark-session='))
+    if (!cookie) throw new ScriptError(`Signing in ${email} set no session cookie.`)
+    this.cookie = cookie.split(';')[0]!
+  }
+
+  post(path: string, body: unknown): Promise<Response> {
+    return fetch(this.baseUrl + path, { method: 'POST', headers: this.headers(true), body: JSON.stringify(body) })
+  }
+
+  get(path: string): Promise<Response> {
+    return fetch(this.baseUrl + path, { headers: this.headers() })
+  }
+}
+
+/** Runs `task` over `items` with at most `limit` at a time. */
+async function inBatches<T, R>(items: readonly T[], limit: number, task: (item: T, index: number) => Promise<R>): Promise<R[]> {
+  const out: R[] = new Array(items.length)
+  let next = 0
+  await Promise.all(Array.from({ length: Math.min(limit, items.length) }, async () => {
+    while (next < items.length) {
+      checkInterrupted()
+      const i = next++
+      out[i] = await task(items[i]!, i)
+    }
+  }))
+  return out
+}
+
+async function signedIn(baseUrl: string, users: readonly BenchUser[]): Promise<BenchClient[]> {
+  // Each sign-in hashes a password on the server: a few at a time keeps the set-up quick.
+  return inBatches(users, 6, async (u) => {
+    const client = new BenchClient(baseUrl)
+    await client.signIn(u.email)
+    return client
+  })
+}
+
+// ---------------------------------------------------------------------------------------
+// Statistics
+
+function percentile(sorted: Float64Array, p: number): number {
+  if (!sorted.length) return Number.NaN
+  // Nearest rank: the smallest sample with at least p % of the samples at or below it.
+  const rank = Math.max(1, Math.ceil((p / 100) * sorted.length))
+  return sorted[rank - 1]!
+}
+
+function sortedSamples(xs: number[]): Float64Array {
+  return Float64Array.from(xs).sort()
+}
+
+function median(xs: number[]): number {
+  const s = sortedSamples(xs)
+  const mid = Math.floor(s.length / 2)
+  return s.length % 2 ? s[mid]! : (s[mid - 1]! + s[mid]!) / 2
+}
+
+// ---------------------------------------------------------------------------------------
+// The latency run
+
+interface Submission {
+  entryId: string
+  t0: number
+  /** 201 once the server recorded it; anything else is a failed check. */
+  status: number
+  postMs: number
+  /** Sent alone before the busy run (see `soloChecks`): counted apart. */
+  solo: boolean
+  pushSeen: Uint8Array
+  pollSeen: Uint8Array
+}
+
+interface Samples {
+  push: number[]
+  poll: number[]
+  post: number[]
+}
+
+interface LatencyRun {
+  submissions: Submission[]
+  busy: Samples
+  solo: Samples
+  outOfOrder: number
+  disconnects: number
+  failures: string[]
+  /** 1-minute load average of the machine when the busy run started and ended. */
+  load: [number, number]
+}
+
+const SOLO_CHECKS = 20
+
+async function connectBoard(baseUrl: string, cookie: string, competitionId: string): Promise<Socket> {
+  const socket = io(baseUrl, { transports: ['websocket'], extraHeaders: { cookie }, reconnection: false, timeout: 20_000 })
+  await new Promise<void>((resolve, reject) => {
+    socket.once('connect', () => resolve())
+    socket.once('connect_error', error => reject(new ScriptError(`A board screen could not connect: ${error.message}`)))
+  })
+  const ack = await socket.timeout(20_000).emitWithAck('board:join', { competitionId }) as BoardJoinAck
+  if (!ack.ok || ack.scope !== 'staff') throw new ScriptError(`A board screen was not let in: ${JSON.stringify(ack)}`)
+  return socket
+}
+
+async function latencyRun(opts: {
+  baseUrl: string
+  competitionId: string
+  entryIds: readonly string[]
+  day: string
+  boardCookies: readonly string[]
+  pollers: readonly BenchClient[]
+  scrutineers: readonly BenchClient[]
+  sockets: Socket[]
+}): Promise<LatencyRun> {
+  const { competitionId, entryIds, day } = opts
+  const nBoards = opts.boardCookies.length
+  const nPollers = opts.pollers.length
+  const base = `/api/competitions/${competitionId}`
+  const run: LatencyRun = {
+    submissions: [],
+    busy: { push: [], poll: [], post: [] },
+    solo: { push: [], poll: [], post: [] },
+    outOfOrder: 0,
+    disconnects: 0,
+    failures: [],
+    load: [0, 0],
+  }
+  const byKey = new Map<string, Submission>()
+  const samplesOf = (sub: Submission) => (sub.solo ? run.solo : run.busy)
+
+  step(`Connecting ${nBoards} board screens`)
+  const t0Connect = Date.now()
+  const sockets = await inBatches(opts.boardCookies, 20, cookie => connectBoard(opts.baseUrl, cookie, competitionId))
+  opts.sockets.push(...sockets)
+  console.log(`  ✓ ${sockets.length} screens joined the board (${formatDuration(Date.now() - t0Connect)})`)
+
+  sockets.forEach((socket, c) => {
+    let lastSeq = 0
+    socket.on('board:tile', (e: BoardTileEvent) => {
+      const now = performance.now()
+      if (e.seq <= lastSeq) run.outOfOrder++
+      else lastSeq = e.seq
+      const at = e.tile?.lastCheck?.at
+      if (!at) return
+      const sub = byKey.get(`${e.entryId}|${at}`)
+      if (!sub || sub.pushSeen[c]) return
+      sub.pushSeen[c] = 1
+      samplesOf(sub).push.push(now - sub.t0)
+    })
+    socket.on('disconnect', (reason) => {
+      if (reason !== 'io client disconnect') run.disconnects++
+    })
+  })
+
+  // One grid check: registered under its key before it is sent (a push may beat the answer).
+  const lastChecked = new Float64Array(entryIds.length).fill(-Infinity)
+  const busy = new Uint8Array(entryIds.length)
+  async function submit(client: BenchClient, i: number, solo: boolean): Promise<void> {
+    busy[i] = 1
+    const entryId = entryIds[i]!
+    const checkedAt = new Date().toISOString()
+    const body = {
+      idempotencyKey: randomUUID(),
+      entryId,
+      day,
+      checkedAt,
+      answers: [
+        { itemId: 'cwu-operating', result: 'pass' },
+        { itemId: 'cwu-firmware', result: 'pass' },
+        { itemId: 'antennas', result: 'pass', note: 'Both fitted' },
+      ],
+      notes: 'Dry wings',
+      foundBy: 'scan',
+    }
+    const sub: Submission = { entryId, t0: 0, status: 0, postMs: 0, solo, pushSeen: new Uint8Array(nBoards), pollSeen: new Uint8Array(nPollers) }
+    byKey.set(`${entryId}|${checkedAt}`, sub)
+    run.submissions.push(sub)
+    sub.t0 = performance.now()
+    try {
+      const res = await client.post(`${base}/grid-checks`, body)
+      sub.status = res.status
+      if (res.status !== 201) run.failures.push(`a grid check answered ${res.status}: ${await res.text()}`)
+      else await res.arrayBuffer()
+    }
+    catch (error) {
+      run.failures.push(`a grid check failed: ${(error as Error).message}`)
+    }
+    sub.postMs = performance.now() - sub.t0
+    samplesOf(sub).post.push(sub.postMs)
+    lastChecked[i] = performance.now()
+    busy[i] = 0
+  }
+  const pickEntry = (): number | null => {
+    const now = performance.now()
+    for (let tries = 0; tries < 50; tries++) {
+      const i = Math.floor(Math.random() * entryIds.length)
+      if (!busy[i] && now - lastChecked[i]! >= BOARD_BENCH.entryCooldownMs) return i
+    }
+    return null
+  }
+
+  // First a few checks one at a time, nothing else going on: what one check costs, before
+  // any queue forms. Reported apart from the figures.
+  step(`${SOLO_CHECKS} grid checks one at a time`)
+  for (let n = 0; n < SOLO_CHECKS && !interrupted; n++) {
+    const i = pickEntry()
+    if (i !== null) await submit(opts.scrutineers[n % opts.scrutineers.length]!, i, true)
+    await pause(150)
+  }
+
+  // Polling screens: the last check each has seen per entry, so only changed tiles are looked up.
+  const pollState = opts.pollers.map(() => new Map<string, string>())
+  async function poll(p: number): Promise<void> {
+    const res = await opts.pollers[p]!.get(`${base}/board`)
+    const text = await res.text()
+    const now = performance.now()
+    if (res.status !== 200) {
+      run.failures.push(`GET board answered ${res.status}`)
+      return
+    }
+    const seen = pollState[p]!
+    for (const tile of (JSON.parse(text) as BoardSnapshot).tiles) {
+      const at = tile.lastCheck?.at
+      if (!at || seen.get(tile.entryId) === at) continue
+      seen.set(tile.entryId, at)
+      const sub = byKey.get(`${tile.entryId}|${at}`)
+      if (!sub || sub.solo || sub.pollSeen[p]) continue
+      sub.pollSeen[p] = 1
+      run.busy.poll.push(now - sub.t0)
+    }
+  }
+  // Each screen has seen the board as it stood before the busy run.
+  await Promise.all(opts.pollers.map((_, p) => poll(p)))
+
+  let pollingOn = true
+  const pollers = opts.pollers.map(async (_, p) => {
+    // A random phase, then a fixed 2 s rhythm (a slow answer does not shift the next poll).
+    let next = performance.now() + Math.random() * BOARD_BENCH.pollIntervalMs
+    while (pollingOn && !interrupted) {
+      await pause(Math.max(0, next - performance.now()))
+      if (!pollingOn || interrupted) break
+      next += BOARD_BENCH.pollIntervalMs
+      await poll(p).catch(error => run.failures.push(`GET board failed: ${(error as Error).message}`))
+    }
+  })
+
+  step(`${opts.scrutineers.length} scrutineers checking for ${BOARD_BENCH.loadMs / 1000} s; ${nBoards} screens pushed to, ${nPollers} polling`)
+  run.load[0] = loadavg()[0]!
+  const loadEnds = performance.now() + BOARD_BENCH.loadMs
+  const [gapMin, gapMax] = BOARD_BENCH.checkGapMs
+  const scrutineers = opts.scrutineers.map(async (client) => {
+    // Start spread over the first gap, as phones come onto the grid one by one.
+    await pause(Math.random() * gapMax)
+    while (performance.now() < loadEnds && !interrupted) {
+      const i = pickEntry()
+      if (i !== null) await submit(client, i, false)
+      await pause(gapMin + Math.random() * (gapMax - gapMin))
+    }
+  })
+  await Promise.all(scrutineers)
+  run.load[1] = loadavg()[0]!
+
+  // Stragglers: pushed tiles may still be on their way, and every polling screen polls twice
+  // more, so a check that never shows counts as lost rather than late.
+  const loadDone = performance.now()
+  const recorded = run.submissions.filter(s => s.status === 201)
+  while (!interrupted && performance.now() < loadDone + BOARD_BENCH.pushGraceMs && recorded.some(s => s.pushSeen.includes(0))) await pause(100)
+  await pause(loadDone + 2 * BOARD_BENCH.pollIntervalMs + 500 - performance.now())
+  pollingOn = false
+  for (const wake of interruptWaiters) wake()
+  await Promise.all(pollers)
+  return run
+}
+
+// ---------------------------------------------------------------------------------------
+// The snapshot run
+
+async function snapshotRun(director: BenchClient, competitionId: string): Promise<{ ms: number, tiles: number }> {
+  const path = `/api/competitions/${competitionId}/board`
+  let tiles = 0
+  for (let i = 0; i < BOARD_BENCH.snapshotWarmUp; i++) {
+    const res = await director.get(path)
+    const text = await res.text()
+    if (res.status !== 200) throw new ScriptError(`GET ${path} answered ${res.status}: ${text}`)
+    tiles = (JSON.parse(text) as BoardSnapshot).tiles.length
+  }
+  const times: number[] = []
+  for (let i = 0; i < BOARD_BENCH.snapshotRuns; i++) {
+    checkInterrupted()
+    const t0 = performance.now()
+    const res = await director.get(path)
+    await res.arrayBuffer()
+    times.push(performance.now() - t0)
+    if (res.status !== 200) throw new ScriptError(`GET ${path} answered ${res.status}`)
+  }
+  return { ms: median(times), tiles }
+}
+
+// ---------------------------------------------------------------------------------------
+// Set-up, run, tear-down
+
+async function timed<T>(label: string, task: () => Promise<T>): Promise<T> {
+  checkInterrupted()
+  const started = Date.now()
+  const result = await task()
+  console.log(`  ✓ ${label} (${formatDuration(Date.now() - started)})`)
+  return result
+}
+
+async function openDay(director: BenchClient, competitionId: string): Promise<string> {
+  const res = await director.post(`/api/competitions/${competitionId}/days`, { kind: 'practice' })
+  const body = await res.json() as { day?: { day: string }, message?: string }
+  if (res.status !== 201 || !body.day) throw new ScriptError(`Opening the day answered ${res.status}: ${JSON.stringify(body)}`)
+  return body.day.day
+}
+
+export async function benchBoard(): Promise<BoardBenchResult> {
+  process.on('SIGINT', onSignal)
+  process.on('SIGTERM', onSignal)
+
+  let tempDir: string | undefined
+  let cluster: Cluster | undefined
+  let server: RunningServer | undefined
+  const sockets: Socket[] = []
+
+  try {
+    step('Live board: a throwaway database and the built server')
+    const binDir = await timed('PostgreSQL binaries', ensurePostgresBinaries)
+    cluster = await timed('bench cluster started', async () => {
+      tempDir = mkdtempSync('/tmp/gridmark-bench-')
+      // mkdtemp makes it 0700; the postgres user must be able to enter it.
+      chmodSync(tempDir, 0o755)
+      const wanted: Cluster = {
+        dataDir: join(tempDir, 'pg'),
+        socketDir: join(tempDir, 'socket'),
+        logFile: join(tempDir, 'postgres.log'),
+        port: await freePort(),
+        binDir,
+        fsync: false,
+      }
+      await initCluster(wanted)
+      return startCluster(wanted)
+    })
+    const url = clusterUrl(cluster, BENCH_DATABASE)
+    await timed(`database ${BENCH_DATABASE} on port ${cluster.port}`, () => createDatabase(cluster!, BENCH_DATABASE))
+    await timed('migrations', () => migrate(url))
+    await timed('build', ensureBuild)
+
+    const today = benchToday()
+    const data = await timed(`bench data: ${BOARD_BENCH.entries} + ${BOARD_BENCH.snapshotEntries} entries, staff accounts`, async () => {
+      const k = knex(createKnexConfig(url))
+      try {
+        const [director] = await createBenchUsers(k, 'director', 1, () => 'Dana Fallowby')
+        const scrutineers = await createBenchUsers(k, 'scrutineer', BOARD_BENCH.scrutineers, i => `Scrutineer ${i + 1} Greyling`)
+        const boards = await createBenchUsers(k, 'board', BOARD_BENCH.boardClients, i => `Board Screen ${i + 1}`)
+        const pollers = await createBenchUsers(k, 'poller', BOARD_BENCH.pollingClients, i => `Polling Screen ${i + 1}`)
+        const staff = [
+          { userId: director!.id, role: 'director' as const },
+          ...scrutineers.map(u => ({ userId: u.id, role: 'scrutineer' as const })),
+          ...[...boards, ...pollers].map(u => ({ userId: u.id, role: 'organiser' as const })),
+        ]
+        const live = await createBenchCompetition(k, { name: 'Larkrise Down Open', slug: 'bench-live', entries: BOARD_BENCH.entries, today, staff })
+        const large = await createBenchCompetition(k, { name: 'Larkrise Down Nationals', slug: 'bench-large', entries: BOARD_BENCH.snapshotEntries, today, staff: [{ userId: director!.id, role: 'director' }] })
+        return { director: director!, scrutineers, boards, pollers, live, large }
+      }
+      finally {
+        await k.destroy()
+      }
+    })
+
+    const sessionSecret = randomSessionPassword()
+    server = await timed('bench server started', () => {
+      // startServer hands its own environment on to the server, with these on top.
+      process.env.DATABASE_URL = url
+      return startServer({
+        NUXT_SESSION_PASSWORD: sessionSecret,
+        NUXT_UPLOADS_DIR: join(tempDir!, 'uploads'),
+        // Every screen and phone signs in once, each from its own address.
+        NUXT_LOGIN_LIMIT_PER_ADDRESS: '1000',
+        NUXT_LOGIN_LIMIT_PER_ACCOUNT: '1000',
+      })
+    })
+    const baseUrl = server.url
+
+    const signIns = 1 + data.scrutineers.length + data.boards.length + data.pollers.length
+    const [director, scrutineers, boards, pollers] = await timed(`${signIns} sign-ins`, async () => [
+      (await signedIn(baseUrl, [data.director]))[0]!,
+      await signedIn(baseUrl, data.scrutineers),
+      await signedIn(baseUrl, data.boards),
+      await signedIn(baseUrl, data.pollers),
+    ] as const)
+
+    const day = await timed(`day opened, ${BOARD_BENCH.entries} tiles`, () => openDay(director, data.live.id))
+    const run = await latencyRun({
+      baseUrl,
+      competitionId: data.live.id,
+      entryIds: data.live.entryIds,
+      day,
+      boardCookies: boards.map(b => b.cookie),
+      pollers,
+      scrutineers,
+      sockets,
+    })
+    checkInterrupted()
+    for (const s of sockets) s.disconnect()
+
+    await timed(`day opened, ${BOARD_BENCH.snapshotEntries} tiles`, () => openDay(director, data.large.id))
+    step(`Timing GET …/board on ${BOARD_BENCH.snapshotEntries} entries`)
+    const snapshot = await snapshotRun(director, data.large.id)
+    if (snapshot.tiles !== BOARD_BENCH.snapshotEntries) throw new ScriptError(`The board of ${BOARD_BENCH.snapshotEntries} entries showed ${snapshot.tiles} tiles.`)
+
+    return summarise(run, snapshot.ms, boards.length, pollers.length)
+  }
+  finally {
+    for (const s of sockets) s.disconnect()
+    try {
+      await server?.stop()
+    }
+    catch (error) {
+      console.error(`Could not stop the bench server: ${(error as Error).message}`)
+    }
+    if (cluster) {
+      try {
+        if (await isClusterRunning(cluster)) await stopCluster(cluster)
+      }
+      catch (error) {
+        console.error(`Could not stop the bench cluster: ${(error as Error).message}`)
+      }
+    }
+    if (tempDir) rmSync(tempDir, { recursive: true, force: true })
+    process.off('SIGINT', onSignal)
+    process.off('SIGTERM', onSignal)
+  }
+}
+
+/** Whether the bench was stopped by a signal (the caller exits 130). */
+export function benchInterrupted(): NodeJS.Signals | undefined {
+  return interrupted
+}
+
+function summarise(run: LatencyRun, snapshotMs: number, nBoards: number, nPollers: number): BoardBenchResult {
+  const recorded = run.submissions.filter(s => s.status === 201)
+  const busyRecorded = recorded.filter(s => !s.solo)
+  let lostPush = 0
+  let lostPoll = 0
+  for (const s of recorded) {
+    for (const seen of s.pushSeen) if (!seen) lostPush++
+    if (!s.solo) for (const seen of s.pollSeen) if (!seen) lostPoll++
+  }
+  const push = sortedSamples(run.busy.push)
+  const poll = sortedSamples(run.busy.poll)
+  const post = sortedSamples(run.busy.post)
+  const soloPush = sortedSamples(run.solo.push)
+  const soloPost = sortedSamples(run.solo.post)
+  const p95 = percentile(push, 95)
+  const pollP95 = percentile(poll, 95)
+  const figures = [
+    { name: 'scan_to_board_p50_ms', value: percentile(push, 50), unit: 'ms', digits: 1 },
+    { name: 'scan_to_board_p95_ms', value: p95, unit: 'ms', digits: 1 },
+    { name: 'scan_to_board_p99_ms', value: percentile(push, 99), unit: 'ms', digits: 1 },
+    { name: 'polling_board_p95_ms', value: pollP95, unit: 'ms', digits: 1 },
+    { name: 'push_vs_poll_ratio', value: pollP95 / p95, unit: 'x', digits: 1 },
+    { name: 'board_snapshot_1000_ms', value: snapshotMs, unit: 'ms', digits: 1 },
+  ]
+  const notes: string[] = []
+  if (!(p95 <= TARGETS.scanToBoardP95Ms)) notes.push(`note: scan_to_board_p95_ms is ${p95.toFixed(1)} ms, above its target of ${TARGETS.scanToBoardP95Ms} ms`)
+  if (!(snapshotMs <= TARGETS.boardSnapshot1000Ms)) notes.push(`note: board_snapshot_1000_ms is ${snapshotMs.toFixed(1)} ms, above its target of ${TARGETS.boardSnapshot1000Ms} ms`)
+  if (lostPush > 0 || lostPoll > 0) notes.push('note: lost events must be 0')
+  const ms = (x: number) => `${x.toFixed(1)} ms`
+  const counts = [
+    `board bench: ${busyRecorded.length} of ${run.submissions.length - SOLO_CHECKS} grid checks recorded, sent by ${BOARD_BENCH.scrutineers} scrutineers in ${BOARD_BENCH.loadMs / 1000} s; `
+    + `their POST p50 ${ms(percentile(post, 50))}, p95 ${ms(percentile(post, 95))}`,
+    `board bench: ${push.length} push samples (${nBoards} screens), ${poll.length} polling samples (${nPollers} screens every ${BOARD_BENCH.pollIntervalMs / 1000} s)`,
+    `board bench: lost events: ${lostPush} pushed, ${lostPoll} polled; tile events out of order: ${run.outOfOrder}; screens dropped: ${run.disconnects}`,
+    `board bench: before that, ${soloPost.length} checks one at a time: POST p50 ${ms(percentile(soloPost, 50))}, on the boards p50 ${ms(percentile(soloPush, 50))}, p95 ${ms(percentile(soloPush, 95))}`,
+    `board bench: machine load (1-minute average, ${availableParallelism()} cores): ${run.load[0].toFixed(1)} when the busy run began, ${run.load[1].toFixed(1)} when it ended`,
+  ]
+  const failed = lostPush > 0 || lostPoll > 0 || run.failures.length > 0 || recorded.length === 0 || run.disconnects > 0
+  if (run.failures.length) {
+    const distinct = [...new Set(run.failures)]
+    counts.push(`board bench: ${run.failures.length} failed requests, e.g. ${distinct.slice(0, 3).join(' | ')}`)
+  }
+  return { figures, notes, counts, failed }
+}
