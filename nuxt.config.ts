@@ -129,6 +129,17 @@ export default defineNuxtConfig({
     strict: true,
   },
 
+  hooks: {
+    // With Nitro's websockets on, nuxt-auth-utils adds a server plugin that reads the session on
+    // every request (for crossws handlers, which we do not use: the board's socket handshake
+    // reads the session itself, server/plugins/socket-io.ts). It cost every request a key
+    // derivation, and sealed and set a fresh cookie on every anonymous one (a health check, a
+    // tag link). Routes read the session where they need it, through requireUser.
+    'nitro:config'(config) {
+      config.plugins = (config.plugins ?? []).filter(p => !/nuxt-auth-utils[\\/].*[\\/]server[\\/]plugins[\\/]ws/.test(p))
+    },
+  },
+
   eslint: {
     config: { stylistic: false },
   },

@@ -19,6 +19,11 @@ import { MESSAGES } from '#shared/constants/messages'
 import { effectiveRoles } from '#shared/utils/access'
 import type { BoardJoinAck } from '#shared/types/api-board'
 
+/** What instances tell each other: changes to push to their own screens. */
+interface InterServerEvents {
+  'gridmark:deliver': (deliveries: Delivery[]) => void
+}
+
 interface SocketData {
   user: User
   sessionId: string
@@ -48,7 +53,7 @@ function throttledLog(prefix: string) {
 
 export default defineNitroPlugin((nitroApp) => {
   const engine = new Engine({ pingInterval: 10_000, pingTimeout: 8_000 })
-  const io = new Server<Record<string, never>, Record<string, never>, Record<string, never>, SocketData>({ serveClient: false })
+  const io = new Server<Record<string, never>, Record<string, never>, InterServerEvents, SocketData>({ serveClient: false })
 
   // Its own small pool: the adapter keeps one connection LISTENing for the other instances.
   const logAdapter = throttledLog('[gridmark] board events between instances')
@@ -74,6 +79,9 @@ export default defineNitroPlugin((nitroApp) => {
       next(new Error(MESSAGES.databaseDown))
     }
   })
+
+  // Another instance committed a change: push it to the screens connected here.
+  io.on(RELAY_EVENT, deliveries => deliverLocally(deliveries))
 
   io.on('connection', (socket: Socket) => {
     const user = socket.data.user as User

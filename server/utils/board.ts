@@ -262,11 +262,11 @@ export async function refreshTiles(
   opts: RefreshOptions,
 ): Promise<Map<string, BoardTile>> {
   const ids = opts.entryIds
-  const [loaded, actions, { checks, existing, entrants }] = await Promise.all([
-    opts.preloaded?.dossiers ?? loadCompetitionDossiers(competitionId, { entryIds: ids, acceptedOnly: true, day }, trx),
-    opts.preloaded?.actions ?? actionsQuery(trx, competitionId, day, ids) as Promise<BoardActionRow[]>,
-    tileInputs(trx, competitionId, day, ids),
-  ])
+  const [loaded, actions, { checks, existing, entrants }] = await together(trx, [
+    () => opts.preloaded ? Promise.resolve(opts.preloaded.dossiers) : loadCompetitionDossiers(competitionId, { entryIds: ids, acceptedOnly: true, day }, trx),
+    () => (opts.preloaded?.actions ?? actionsQuery(trx, competitionId, day, ids)) as Promise<BoardActionRow[]>,
+    () => tileInputs(trx, competitionId, day, ids),
+  ] as const)
   const result = new Map<string, BoardTile>()
   if (!loaded) return result
 

@@ -46,3 +46,22 @@ export function markSchemaReady(): void {
 export function whenSchemaReady(): Promise<void> {
   return schemaReadyPromise
 }
+
+type Task<T> = PromiseLike<T> | (() => PromiseLike<T>)
+type Results<T extends readonly Task<unknown>[]> = { -readonly [K in keyof T]: T[K] extends Task<infer R> ? R : never }
+
+/**
+ * Independent reads: side by side on the pool, one after the other inside a transaction. A
+ * transaction is one connection, which runs one query at a time anyway; handing it several at
+ * once only queues them in the driver, which warns that it will stop doing so. Pass knex
+ * query builders (they start when awaited) or functions that start the work.
+ */
+export async function together<T extends readonly Task<unknown>[]>(db: Knex, tasks: T): Promise<Results<T>> {
+  const start = (t: Task<unknown>) => (typeof t === 'function' ? t() : t)
+  if ((db as Knex.Transaction).isTransaction) {
+    const out: unknown[] = []
+    for (const t of tasks) out.push(await start(t))
+    return out as Results<T>
+  }
+  return Promise.all(tasks.map(start)) as Promise<Results<T>>
+}

@@ -141,7 +141,7 @@ export async function dossierExtras(entryIds: string[], db: Knex = useDb()): Pro
 }>> {
   const extras = new Map(entryIds.map(id => [id, { documents: [] as DossierDocument[], igcFiles: [] as DossierIgcFile[], payments: [] as DossierPayment[] }]))
   if (!entryIds.length) return extras
-  const [documents, igcFiles, payments] = await Promise.all([
+  const [documents, igcFiles, payments] = await together(db, [
     db('documents').whereIn('entry_id', entryIds).where('superseded', false).orderBy('uploaded_at').select('id', 'entry_id', 'kind', 'status'),
     db('igc_files').whereIn('entry_id', entryIds).where('superseded', false).orderBy('uploaded_at').select('id', 'entry_id', 'unit_id'),
     db('payments').whereIn('entry_id', entryIds).orderBy('created_at').select('id', 'entry_id', 'status', 'amount_minor'),
@@ -375,13 +375,13 @@ export async function createEntry(user: User, competitionId: string, body: Entry
 
 export async function loadDossier(access: EntryAccess, db: Knex = useDb()): Promise<EntryDossier> {
   const entry = await readEntry(db, access.entry.id)
-  const [units, classes, window, extras, findings] = await Promise.all([
-    listUnits([entry.id], db),
-    listClasses(entry.competition_id, db),
-    registrationWindow(entry.competition_id, db),
-    dossierExtras([entry.id], db),
-    entryFindings(entry.competition_id, entry.id, db),
-  ])
+  const [units, classes, window, extras, findings] = await together(db, [
+    () => listUnits([entry.id], db),
+    () => listClasses(entry.competition_id, db),
+    () => registrationWindow(entry.competition_id, db),
+    () => dossierExtras([entry.id], db),
+    () => entryFindings(entry.competition_id, entry.id, db),
+  ] as const)
   const { documents, igcFiles, payments } = extras.get(entry.id) ?? NO_EXTRAS
   const rules = competitionRules(access.competition)
   const view = toEntryView(entry)

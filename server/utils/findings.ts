@@ -401,7 +401,7 @@ export async function loadCompetitionDossiers(competitionId: string, scope: Doss
     return q
   }
   const nothing = Promise.resolve([])
-  const [competition, classes, firmware, entries, units, documents, igcFiles, weighIns, gridChecks] = await Promise.all([
+  const [competition, classes, firmware, entries, units, documents, igcFiles, weighIns, gridChecks] = await together(db, [
     db('competitions').where({ id: competitionId }).first(
       'name', 'time_zone', 'settings',
       db.raw(`to_char(first_contest_day, 'YYYY-MM-DD') as first_contest_day`),
@@ -437,7 +437,7 @@ export async function loadCompetitionDossiers(competitionId: string, scope: Doss
       ? scoped(db('grid_checks').whereIn('id', latestGridCheckIds(db, competitionId, scope.day)))
           .select('entry_id', 'outcome', db.raw(`to_char(day, 'YYYY-MM-DD') as day`)) as Promise<FindingsGridCheckRow[]>
       : nothing as Promise<FindingsGridCheckRow[]>,
-  ])
+  ] as const)
   if (!competition) return undefined
   const all = toDossiers(entries, units, documents, igcFiles, weighIns, gridChecks)
   const field = buildField(all)

@@ -238,19 +238,18 @@ export async function recordGridCheck(
       return { gridCheck: await gridCheckById(trx, earlier.id), replayed: true }
     }
     // A new check changes the board: one writer per competition's board at a time (board.ts).
-    // Every round trip from here to the commit keeps the other phones waiting, so what can go
-    // together goes together.
+    // Every round trip from here to the commit keeps the other phones waiting: few statements.
     await lockBoard(trx, competition.id)
 
-    // At once: the entry's dossier (as the board reads an entry of this competition), the
+    // Then: the entry's dossier (as the board reads an entry of this competition), the
     // director's actions that count today, and whether the day is open on the board (opening
     // and closing take the lock we hold). The entry is judged first: only an entry that is not
     // this competition's is looked up on its own, to tell "no such entry" from "another's".
-    const [loaded, actionRows, open] = await Promise.all([
-      loadCompetitionDossiers(competition.id, { entryIds: [body.entryId], day: body.day }, trx),
-      actionsQuery(trx, competition.id, body.day, [body.entryId]) as Promise<BoardActionRow[]>,
-      trx('board_days').where({ competition_id: competition.id, day: body.day }).whereNull('closed_at').first('day'),
-    ])
+    const [loaded, actionRows, open] = await together(trx, [
+      () => loadCompetitionDossiers(competition.id, { entryIds: [body.entryId], day: body.day }, trx),
+      () => actionsQuery(trx, competition.id, body.day, [body.entryId]) as Promise<BoardActionRow[]>,
+      () => trx('board_days').where({ competition_id: competition.id, day: body.day }).whereNull('closed_at').first('day'),
+    ] as const)
     const entry = loaded?.rows[0]
     if (!entry) {
       const elsewhere = await trx('entries').where({ id: body.entryId }).first('id')
@@ -290,8 +289,10 @@ export async function recordGridCheck(
       readiness: ready,
       findings: JSON.stringify(findings),
       found_by: body.foundBy ?? null,
-    }).returning('id')
+    }).returning(['id', 'received_at'])
     const gridCheckId = row.id as string
+    const massKg = weighed ? Math.round(weighed.massKg * 100) / 100 : null
+    const cgArmM = weighed && weighed.cgArmM !== null ? Math.round(weighed.cgArmM * 10_000) / 10_000 : null
     if (body.weighIn && weighed) {
       await trx('weigh_ins').insert({
         competition_id: competition.id,
@@ -300,44 +301,63 @@ export async function recordGridCheck(
         weighed_on: body.day,
         units: body.weighIn.units,
         readings: JSON.stringify(body.weighIn.readings),
-        mass_kg: Math.round(weighed.massKg * 100) / 100,
-        cg_arm_m: weighed.cgArmM === null ? null : Math.round(weighed.cgArmM * 10_000) / 10_000,
+        mass_kg: massKg,
+        cg_arm_m: cgArmM,
         weighed_by: user.id,
       })
     }
-    // The check and its weigh-in are written; the audit row, the entry's tile on an open day
-    // (pushed to the boards after commit) and the check as answered are independent of one
-    // another, so they go together. The tile reuses the reads above — the board's read of an
-    // accepted entry, unchanged since — unless this check brought a weigh-in (then the tile
-    // reads the dossier again, with the weigh-in where the stored order puts it).
-    const reusable = !body.weighIn
-    const [gridCheck] = await Promise.all([
-      gridCheckById(trx, gridCheckId),
-      audit(trx, {
-        actorUserId: user.id,
-        competitionId: competition.id,
-        action: 'grid-check.recorded',
-        subjectType: 'grid_check',
-        subjectId: gridCheckId,
-        details: {
-          entryId: entry.id,
-          day: body.day,
-          outcome,
-          readiness: ready,
-          blocking: findings.filter(f => f.severity === 'blocking').map(f => f.checkId),
-          massKg: weighed ? Math.round(weighed.massKg * 100) / 100 : null,
-          idempotencyKey: body.idempotencyKey,
-        },
-      }),
-      open
-        ? refreshTiles(trx, competition.id, body.day, changes, {
-            cause: 'grid-check',
-            actorId: user.id,
-            entryIds: [entry.id],
-            preloaded: reusable ? { dossiers: loaded!, actions: actionRows } : undefined,
-          })
-        : null,
-    ])
+    // The check and its weigh-in are written; then the audit row and the entry's tile on an
+    // open day (pushed to the boards after commit). The tile reuses the reads above — the
+    // board's read of an accepted entry, unchanged since — unless this check brought a weigh-in
+    // (then the tile reads the dossier again, with the weigh-in where the stored order puts it).
+    await audit(trx, {
+      actorUserId: user.id,
+      competitionId: competition.id,
+      action: 'grid-check.recorded',
+      subjectType: 'grid_check',
+      subjectId: gridCheckId,
+      details: {
+        entryId: entry.id,
+        day: body.day,
+        outcome,
+        readiness: ready,
+        blocking: findings.filter(f => f.severity === 'blocking').map(f => f.checkId),
+        massKg,
+        idempotencyKey: body.idempotencyKey,
+      },
+    })
+    if (open) {
+      await refreshTiles(trx, competition.id, body.day, changes, {
+        cause: 'grid-check',
+        actorId: user.id,
+        entryIds: [entry.id],
+        preloaded: body.weighIn ? undefined : { dossiers: loaded!, actions: actionRows },
+      })
+    }
+    // The check as stored, from what was written (one statement fewer while the lock is held).
+    const gridCheck = toGridCheckRecord({
+      id: gridCheckId,
+      competition_id: competition.id,
+      entry_id: entry.id,
+      day: body.day,
+      idempotency_key: body.idempotencyKey,
+      body_sha256: sha,
+      scrutineer_id: user.id,
+      checked_at: body.checkedAt,
+      received_at: row.received_at,
+      answers: stored.answers,
+      notes: body.notes ?? '',
+      outcome,
+      readiness: ready,
+      findings,
+      found_by: body.foundBy ?? null,
+      comp_id: entry.comp_id,
+      scrutineer_name: user.name,
+      weigh_units: body.weighIn?.units ?? null,
+      weigh_readings: body.weighIn?.readings ?? null,
+      weigh_mass_kg: massKg,
+      weigh_cg_arm_m: cgArmM,
+    })
     return { gridCheck, replayed: false }
   })
 }

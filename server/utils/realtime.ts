@@ -21,15 +21,36 @@ export const boardRoom = (competitionId: string) => `board:${competitionId}`
 export const entrantRoom = (competitionId: string, userId: string) => `entrant:${competitionId}:${userId}`
 export const sessionRoom = (sessionId: string) => `session:${sessionId}`
 
-/** Pushes what a committed transaction changed: board changes in sequence order, then entrants' news. */
+export interface Delivery {
+  room: string
+  name: string
+  payload: object
+}
+
+/** The name other instances are told what to push under (server to server, never to screens). */
+export const RELAY_EVENT = 'gridmark:deliver'
+
+/** Pushes to this instance's own screens. */
+export function deliverLocally(deliveries: readonly Delivery[]): void {
+  if (!io) return
+  for (const d of deliveries) io.local.to(d.room).emit(d.name, d.payload)
+}
+
+/**
+ * Pushes what a committed transaction changed: board changes in sequence order, then entrants'
+ * news. This instance's screens get them at once; the other instances are told through the
+ * adapter and push to theirs (an ordinary broadcast would first wait for PostgreSQL to take
+ * the notification before reaching even the local screens).
+ */
 export function publishBoardChanges(changes: BoardChanges): void {
   if (!io) return
-  const board = [
+  const deliveries: Delivery[] = [
     ...changes.days.map(e => ({ seq: e.seq, room: boardRoom(e.competitionId), name: 'board:day', payload: e as object })),
     ...changes.tiles.map(e => ({ seq: e.seq, room: boardRoom(e.competitionId), name: 'board:tile', payload: e as object })),
-  ].sort((a, b) => a.seq - b.seq)
-  for (const e of board) io.to(e.room).emit(e.name, e.payload)
-  for (const n of changes.entrants) io.to(entrantRoom(n.event.competitionId, n.userId)).emit('entry:readiness', n.event)
+  ].sort((a, b) => a.seq - b.seq).map(({ room, name, payload }) => ({ room, name, payload }))
+  for (const n of changes.entrants) deliveries.push({ room: entrantRoom(n.event.competitionId, n.userId), name: 'entry:readiness', payload: n.event })
+  deliverLocally(deliveries)
+  io.serverSideEmit(RELAY_EVENT, deliveries)
 }
 
 /** Closes the live connections of one sign-in (on every instance). */
