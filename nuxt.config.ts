@@ -136,7 +136,7 @@ export default defineNuxtConfig({
     // derivation, and sealed and set a fresh cookie on every anonymous one (a health check, a
     // tag link). Routes read the session where they need it, through requireUser.
     'nitro:config'(config) {
-      config.plugins = (config.plugins ?? []).filter(p => !/nuxt-auth-utils[\\/].*[\\/]server[\\/]plugins[\\/]ws/.test(p))
+      config.plugins = (config.plugins ?? []).filter(p => !p || !/nuxt-auth-utils[\\/].*[\\/]server[\\/]plugins[\\/]ws/.test(p))
     },
   },
 
