@@ -33,7 +33,10 @@ interface SocketData {
 async function handshakeUser(req: IncomingMessage): Promise<{ user: User, sessionId: string } | null> {
   if (!req.headers.cookie) return null
   // nuxt-auth-utils reads the session from an h3 event; the handshake has no response of its own.
+  // Nitro reads its configuration from the event's context, which a hand-made event lacks (the
+  // handshake may be a fresh server's first use of the session).
   const event = createEvent(req, new ServerResponse(req))
+  event.context.nitro = { runtimeConfig: useRuntimeConfig() }
   const session = await getUserSession(event)
   const user = await userOfSession(session)
   return user && session.sessionId ? { user, sessionId: session.sessionId } : null

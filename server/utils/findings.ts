@@ -10,6 +10,7 @@ import { blockingFirst, buildField, evaluate, type ClassLimit, type CompetitionF
 import type { CompetitionFindings, EntryFindings, FindingCounts } from '#shared/types/api-findings'
 import type { EntryStatus, PaymentStatus } from '#shared/constants/entries'
 import { rulesOf } from './competition-setup'
+import { together } from './db'
 import { latestGridCheckIds } from './grid-checks'
 
 // ---------------------------------------------------------------------------------------
