@@ -23,6 +23,7 @@ import * as m20261204000200 from './20261204000200_grid_checks'
 import * as m20261205000100 from './20261205000100_board'
 import * as m20261205000200 from './20261205000200_director_actions'
 import * as m20261205000300 from './20261205000300_socket_attachments'
+import * as m20261205000400 from './20261205000400_board_tile_order'
 
 type Migration = Knex.Migration
 
@@ -49,6 +50,7 @@ const migrations: Record<string, Migration> = {
   '20261205000100_board': m20261205000100,
   '20261205000200_director_actions': m20261205000200,
   '20261205000300_socket_attachments': m20261205000300,
+  '20261205000400_board_tile_order': m20261205000400,
 }
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -18,11 +18,7 @@ export async function requireRole(
   competitionId: string,
   allowed: readonly Role[] | 'any',
 ): Promise<CompetitionAccess> {
-  const user = await requireUser(event)
-  const [competition, rolesHeld] = await Promise.all([
-    findCompetition(competitionId),
-    rolesInCompetition(user.id, competitionId),
-  ])
+  const { user, competition, rolesHeld } = await requireUserIn(event, competitionId)
   const decision = decideAccess({ user, competitionExists: Boolean(competition), rolesHeld }, allowed)
   if (!decision.allowed) throw httpError(decision.status, decision.message)
   return { user, roles: decision.roles, competition: competition! }

@@ -14,6 +14,7 @@ import type { BoardDayRow, BoardTileRow } from '#shared/types/rows-board'
 import { buildTile, diffFindings, sameTile, sortedJson, type TileAction, type TileBody, type TileCheck } from '#shared/utils/board-tile'
 import type { GridCheckAnswerJson } from '#shared/types/rows-grid'
 import { READINESS_LABELS } from '#shared/constants/readiness'
+import { compareCompIds } from '#shared/utils/comp-id-order'
 import type { CompetitionDossiers } from './findings'
 
 // ---------------------------------------------------------------------------------------
@@ -48,9 +49,14 @@ export async function boardTransaction<T>(work: (trx: Knex.Transaction, changes:
 // ---------------------------------------------------------------------------------------
 // Locks and sequence numbers
 
+/** The advisory lock that serialises the writers of one competition's board. */
+export function boardLockKey(competitionId: string): string {
+  return `gridmark:board:${competitionId}`
+}
+
 /** Serialises the writers of one competition's board until the transaction ends. */
 export async function lockBoard(trx: Knex.Transaction, competitionId: string): Promise<void> {
-  await trx.raw('select pg_advisory_xact_lock(hashtext(?))', [`gridmark:board:${competitionId}`])
+  await trx.raw('select pg_advisory_xact_lock(hashtext(?))', [boardLockKey(competitionId)])
 }
 
 /** Takes `count` numbers of the competition's sequence; returns the first. */
@@ -188,14 +194,14 @@ export function actionsQuery(db: Knex, competitionId: string, day: IsoDate, entr
   return q
 }
 
-type ExistingTileRow = Pick<BoardTileRow, 'entry_id' | 'readiness' | 'tile' | 'findings'> & { seq: string | number, updated_at: Instant }
+type ExistingTileRow = Pick<BoardTileRow, 'entry_id' | 'readiness' | 'tile' | 'findings' | 'class_order'> & { seq: string | number, updated_at: Instant }
 
 /**
  * What refreshTiles reads besides the dossiers and the director's actions, in one statement:
  * each entry's latest grid check of the day (with its scrutineer's name), its tile as it
- * stands, and its entrant — of every entry, or of `entryIds`.
+ * stands, and its entrant — of every entry, or of `entryIds` — and the order of the classes.
  */
-async function tileInputs(db: Knex, competitionId: string, day: IsoDate, entryIds?: readonly string[]): Promise<{ checks: CheckRow[], existing: ExistingTileRow[], entrants: EntrantRow[] }> {
+async function tileInputs(db: Knex, competitionId: string, day: IsoDate, entryIds?: readonly string[]): Promise<{ checks: CheckRow[], existing: ExistingTileRow[], entrants: EntrantRow[], class_orders: Record<string, number> }> {
   const only = (column: string) => (entryIds ? `and ${column} = any(:ids::uuid[])` : '')
   const { rows: [row] } = await db.raw(`select
       (select coalesce(json_agg(json_build_object('entry_id', g.entry_id, 'checked_at', g.checked_at, 'outcome', g.outcome,
@@ -203,12 +209,13 @@ async function tileInputs(db: Knex, competitionId: string, day: IsoDate, entryId
         from grid_checks g join users u on u.id = g.scrutineer_id
         where g.id in (:latestChecks) ${only('g.entry_id')}) as checks,
       (select coalesce(json_agg(json_build_object('entry_id', t.entry_id, 'seq', t.seq, 'readiness', t.readiness,
-          'tile', t.tile, 'findings', t.findings, 'updated_at', t.updated_at)), '[]')
+          'tile', t.tile, 'findings', t.findings, 'updated_at', t.updated_at, 'class_order', t.class_order)), '[]')
         from board_tiles t where t.competition_id = :competitionId and t.day = :day ${only('t.entry_id')}) as existing,
       (select coalesce(json_agg(json_build_object('id', e.id, 'comp_id', e.comp_id, 'entrant_user_id', e.entrant_user_id,
           'entrant_email', u.email, 'entrant_name', u.name)), '[]')
         from entries e join users u on u.id = e.entrant_user_id
-        where e.competition_id = :competitionId ${only('e.id')}) as entrants`, {
+        where e.competition_id = :competitionId ${only('e.id')}) as entrants,
+      (select coalesce(json_object_agg(k.id, k.sort_order), '{}') from classes k where k.competition_id = :competitionId) as class_orders`, {
     competitionId,
     day,
     latestChecks: latestGridCheckIds(db, competitionId, day),
@@ -262,7 +269,7 @@ export async function refreshTiles(
   opts: RefreshOptions,
 ): Promise<Map<string, BoardTile>> {
   const ids = opts.entryIds
-  const [loaded, actions, { checks, existing, entrants }] = await together(trx, [
+  const [loaded, actions, { checks, existing, entrants, class_orders: classOrders }] = await together(trx, [
     () => opts.preloaded ? Promise.resolve(opts.preloaded.dossiers) : loadCompetitionDossiers(competitionId, { entryIds: ids, acceptedOnly: true, day }, trx),
     () => (opts.preloaded?.actions ?? actionsQuery(trx, competitionId, day, ids)) as Promise<BoardActionRow[]>,
     () => tileInputs(trx, competitionId, day, ids),
@@ -276,7 +283,7 @@ export async function refreshTiles(
   const entrantBy = new Map(entrants.map(e => [e.id, e]))
   const firstOpening = existing.length === 0 && !ids
 
-  interface Pending { entryId: string, body: TileBody, findings: Finding[], previous?: (typeof existing)[number] }
+  interface Pending { entryId: string, body: TileBody, findings: Finding[], classOrder: number, previous?: (typeof existing)[number] }
   const pending: Pending[] = []
   loaded.dossiers.forEach((dossier, i) => {
     const row = loaded.rows[i]!
@@ -289,11 +296,13 @@ export async function refreshTiles(
       day,
     })
     const previous = before.get(row.id)
-    if (previous && sameTile(previous.tile, body) && sortedJson(previous.findings) === sortedJson(findings)) {
+    const classOrder = classOrders[row.class_id] ?? 0
+    // A tile is rewritten when it changed, or moved on the board (its class was reordered).
+    if (previous && sameTile(previous.tile, body) && sortedJson(previous.findings) === sortedJson(findings) && previous.class_order === classOrder) {
       result.set(row.id, toBoardTile(previous))
       return
     }
-    pending.push({ entryId: row.id, body, findings, previous })
+    pending.push({ entryId: row.id, body, findings, classOrder, previous })
   })
   const leaving = existing.filter(r => !loaded.rows.some(x => x.id === r.entry_id))
 
@@ -310,11 +319,13 @@ export async function refreshTiles(
       .insert(written.slice(i, i + 500).map(p => ({
         competition_id: competitionId, day, entry_id: p.entryId, seq: p.tile.seq, readiness: p.tile.readiness,
         tile: JSON.stringify(p.body), findings: JSON.stringify(p.findings), updated_at: now,
-        // As the board sends it (boardSnapshotJson joins these).
+        // As the board sends it (boardSnapshotJson joins these), in its place on the board.
         shown: JSON.stringify(p.tile),
+        class_order: p.classOrder,
+        comp_id: p.body.compId,
       })))
       .onConflict(['competition_id', 'day', 'entry_id'])
-      .merge(['seq', 'readiness', 'tile', 'findings', 'updated_at', 'shown'])
+      .merge(['seq', 'readiness', 'tile', 'findings', 'updated_at', 'shown', 'class_order', 'comp_id'])
   }
   for (const p of written) {
     const tile = p.tile
@@ -373,14 +384,17 @@ export function toBoardTile(r: Pick<BoardTileRow, 'tile'> & { seq: string | numb
 /**
  * The board of one day at one sequence number, as the JSON text of a `BoardSnapshot`: what a
  * wall screen polls, so it is read in one statement and hardly touched on the way out. The
- * statement's subqueries share one snapshot, so the number and the tiles agree (a pushed change
+ * statement's parts share one snapshot, so the number and the tiles agree (a pushed change
  * numbered above it is news to the screen). Each tile is the text stored with it as the board
  * sends it (board_tiles.shown: the tile with `seq` and `updatedAt`, as `toBoardTile` makes it),
- * joined in PostgreSQL; nothing here parses a tile or serialises it again. The day is the one
- * asked for, else the open day, else the latest opened (as `boardDayOf`).
+ * in board order (each tile's class order and competition ID are kept beside it); nothing
+ * here parses a tile or serialises it again. The tiles come as rows beside one head row (day,
+ * number, classes): a 1,000-tile board as one aggregated value is a single 400 KB message,
+ * which the driver reassembles at twice the cost of 1,000 small rows.
+ * The day is the one asked for, else the open day, else the latest opened (as `boardDayOf`).
  */
 export async function boardSnapshotJson(competition: { id: string, name: string, time_zone: string }, day?: IsoDate, db: Knex = useDb()): Promise<string> {
-  const { rows: [row] } = await db.raw(`with shown as (
+  const { rows } = await db.raw(`with shown as (
       select d.competition_id, d.kind, d.opened_at, d.closed_at, d.opened_by, d.closed_by, d.day as day_date,
         to_char(d.day, 'YYYY-MM-DD') as day, o.name as opened_by_name, c.name as closed_by_name
       from board_days d join users o on o.id = d.opened_by left join users c on c.id = d.closed_by
@@ -388,34 +402,42 @@ export async function boardSnapshotJson(competition: { id: string, name: string,
       order by d.closed_at is null desc, d.day desc
       limit 1
     )
-    select
+    select 0 as part,
       (select json_build_object('competition_id', s.competition_id, 'kind', s.kind, 'opened_at', s.opened_at, 'closed_at', s.closed_at,
           'opened_by', s.opened_by, 'closed_by', s.closed_by, 'day', s.day, 'opened_by_name', s.opened_by_name, 'closed_by_name', s.closed_by_name)
         from shown s) as shown,
       coalesce((select seq from board_sequences where competition_id = :competitionId), 0) as seq,
       (select coalesce(json_agg(json_build_object('id', k.id, 'name', k.name) order by k.sort_order, k.name), '[]')
         from classes k where k.competition_id = :competitionId) as classes,
-      (select '[' || coalesce(string_agg(t.shown::text, ',' order by k.sort_order, e.comp_id collate comp_id_order), '') || ']'
-        from shown s
-        join board_tiles t on t.competition_id = s.competition_id and t.day = s.day_date
-        join entries e on e.id = t.entry_id
-        join classes k on k.id = e.class_id) as tiles`, day ? { competitionId: competition.id, day } : { competitionId: competition.id }) as {
+      null::text as tile, null::int as class_order, null::text as comp_id
+    union all
+    select 1, null, null, null, t.shown::text, t.class_order, t.comp_id
+      from shown s join board_tiles t on t.competition_id = s.competition_id and t.day = s.day_date`, day ? { competitionId: competition.id, day } : { competitionId: competition.id }) as {
     rows: {
+      part: number
       // Timestamps inside JSON values arrive as text; toBoardDay reads them as instants.
       shown: (Omit<BoardDayJoinedRow, 'opened_at' | 'closed_at'> & { opened_at: string, closed_at: string | null }) | null
-      seq: string
-      classes: { id: string, name: string }[]
-      tiles: string
+      seq: string | null
+      classes: { id: string, name: string }[] | null
+      tile: string | null
+      class_order: number | null
+      comp_id: string | null
     }[]
   }
+  const top = rows.find(r => r.part === 0)
   const head: Omit<BoardSnapshot, 'tiles' | 'generatedAt'> = {
     competition: { id: competition.id, name: competition.name, timeZone: competition.time_zone },
-    day: row!.shown ? toBoardDay(row!.shown) : null,
-    seq: Number(row!.seq),
-    classes: row!.classes,
+    day: top!.shown ? toBoardDay(top!.shown) : null,
+    seq: Number(top!.seq),
+    classes: top!.classes ?? [],
   }
+  // In board order: here rather than in PostgreSQL, whose sort of 1,000 rows carrying their
+  // tiles' text costs several times this one over the keys (the same order: comp-id-order.ts).
+  const placed = rows.filter(r => r.part === 1)
+  placed.sort((a, b) => a.class_order! - b.class_order! || compareCompIds(a.comp_id!, b.comp_id!))
+  const tiles = placed.map(r => r.tile!)
   // The keys in BoardSnapshot's order, with the tiles' text as it came.
-  return `${JSON.stringify(head).slice(0, -1)},"tiles":${row!.tiles},"generatedAt":${JSON.stringify(new Date().toISOString())}}`
+  return `${JSON.stringify(head).slice(0, -1)},"tiles":[${tiles.join(',')}],"generatedAt":${JSON.stringify(new Date().toISOString())}}`
 }
 
 /** The board of one day at one sequence number (see boardSnapshotJson), as an object. */

@@ -12,13 +12,27 @@ const COMPETITION_COLUMNS = [
 ]
 
 export async function findCompetition(id: string, db: Knex = useDb()): Promise<CompetitionRow | undefined> {
-  return db('competitions')
-    .where({ id })
-    .first(
-      ...COMPETITION_COLUMNS,
-      db.raw(`to_char(first_contest_day, 'YYYY-MM-DD') as first_contest_day`),
-      db.raw(`to_char(last_contest_day, 'YYYY-MM-DD') as last_contest_day`),
-    )
+  return db('competitions as c').where('c.id', id).first(...competitionColumns(db))
+}
+
+/**
+ * The columns of a CompetitionRow from `competitions as c`; with a prefix, each named
+ * `<prefix><column>` so they can sit beside another table's (read back by `prefixedCompetition`).
+ */
+export function competitionColumns(db: Knex, prefix = '') {
+  return [
+    ...COMPETITION_COLUMNS.map(c => `c.${c} as ${prefix}${c}`),
+    db.raw(`to_char(c.first_contest_day, 'YYYY-MM-DD') as ??`, [`${prefix}first_contest_day`]),
+    db.raw(`to_char(c.last_contest_day, 'YYYY-MM-DD') as ??`, [`${prefix}last_contest_day`]),
+  ]
+}
+
+/** The competition in a row read with `competitionColumns(db, prefix)`; undefined when none joined. */
+export function prefixedCompetition(row: Record<string, unknown>, prefix: string): CompetitionRow | undefined {
+  if (row[`${prefix}id`] == null) return undefined
+  const out: Record<string, unknown> = {}
+  for (const c of [...COMPETITION_COLUMNS, 'first_contest_day', 'last_contest_day']) out[c] = row[`${prefix}${c}`]
+  return out as unknown as CompetitionRow
 }
 
 export async function listClasses(competitionId: string, db: Knex = useDb()): Promise<CompetitionClassSummary[]> {

@@ -18,7 +18,7 @@ import type { CompetitionRow } from '#shared/types/rows'
 import type { User } from '#auth-utils'
 import { sortedJson } from '#shared/utils/board-tile'
 import { rulesOf } from './competition-setup'
-import { actionsQuery, boardTransaction, lockBoard, refreshTiles, toTileAction, type BoardActionRow } from './board'
+import { actionsQuery, boardLockKey, boardTransaction, refreshTiles, toTileAction, type BoardActionRow } from './board'
 import type { CompetitionAccess } from './authz'
 
 // ---------------------------------------------------------------------------------------
@@ -230,16 +230,20 @@ export async function recordGridCheck(
 ): Promise<GridCheckResult> {
   const sha = gridCheckBodySha256(body, competition.id, user.id)
   return boardTransaction(async (trx, changes) => {
-    // One sender at a time per key: a second copy of the check waits here, then finds the first.
-    await trx.raw('select pg_advisory_xact_lock(hashtext(?))', [`gridmark:grid-check:${body.idempotencyKey.toLowerCase()}`])
+    // One sender at a time per key — a second copy of the check waits here, then finds the
+    // first — and one writer at a time on the competition's board (board.ts), as a new check
+    // changes it: both locks in one round trip, the key's first (no other writer takes a key's
+    // lock, so the order cannot deadlock; a replay holds the board's lock for a moment).
+    // Every round trip from here to the commit keeps the other phones waiting: few statements.
+    await trx.raw('select pg_advisory_xact_lock(hashtext(?)), pg_advisory_xact_lock(hashtext(?))', [
+      `gridmark:grid-check:${body.idempotencyKey.toLowerCase()}`,
+      boardLockKey(competition.id),
+    ])
     const earlier = await trx('grid_checks').where({ idempotency_key: body.idempotencyKey }).first('id', 'body_sha256')
     if (earlier) {
       if (earlier.body_sha256 !== sha) throw httpError(409, MESSAGES.gridReplayConflict)
       return { gridCheck: await gridCheckById(trx, earlier.id), replayed: true }
     }
-    // A new check changes the board: one writer per competition's board at a time (board.ts).
-    // Every round trip from here to the commit keeps the other phones waiting: few statements.
-    await lockBoard(trx, competition.id)
 
     // Then: the entry's dossier (as the board reads an entry of this competition), the
     // director's actions that count today, and whether the day is open on the board (opening

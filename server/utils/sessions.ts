@@ -2,8 +2,10 @@
 // request checks the row is still open, so sign-out ends a session everywhere at once, and
 // sessions survive a server restart because both the row and the cookie's key persist.
 import type { H3Event } from 'h3'
+import type { Knex } from 'knex'
 import type { User } from '#auth-utils'
-import type { UserRow, UserSessionRow } from '#shared/types/rows'
+import type { CompetitionRow, UserRow, UserSessionRow } from '#shared/types/rows'
+import type { Role } from '#shared/constants/roles'
 import { MESSAGES } from '#shared/constants/messages'
 
 // Touch last_seen_at at most this often, to keep reads cheap.
@@ -34,6 +36,23 @@ export async function revokeSession(sessionId: string): Promise<void> {
   await useDb()('user_sessions').where({ id: sessionId }).whereNull('revoked_at').update({ revoked_at: useDb().fn.now() })
 }
 
+type SessionUserRow = UserRow & { revoked_at: Date | null, last_seen_at: Date, session_id: string }
+
+/** A session's row joined with its user (aliases s and u), and the columns `acceptSession` reads. */
+function sessionUserQuery(db: Knex, sessionId: string) {
+  return db('user_sessions as s').join('users as u', 'u.id', 's.user_id').where('s.id', sessionId)
+}
+const SESSION_USER_COLUMNS = ['u.*', 's.revoked_at', 's.last_seen_at', 's.id as session_id'] as const
+
+/** The session's user, or null when its row is gone, revoked (signed out) or someone else's. */
+async function acceptSession(db: Knex, session: { user?: { id: string } }, row: SessionUserRow | undefined): Promise<User | null> {
+  if (!row || row.revoked_at || row.id !== session.user?.id) return null
+  if (Date.now() - new Date(row.last_seen_at).getTime() > TOUCH_AFTER_MS) {
+    await db('user_sessions').where({ id: row.session_id }).update({ last_seen_at: db.fn.now() })
+  }
+  return toPublicUser(row)
+}
+
 /**
  * The user of a sealed session, fresh from the database: null when the session names none, or
  * its row was revoked (signed out) or belongs to someone else. The socket handshake reads
@@ -42,32 +61,53 @@ export async function revokeSession(sessionId: string): Promise<void> {
 export async function userOfSession(session: { user?: { id: string }, sessionId?: string }): Promise<User | null> {
   if (!session.user || !session.sessionId) return null
   const db = useDb()
-  const row = await db('user_sessions as s')
-    .join('users as u', 'u.id', 's.user_id')
-    .where('s.id', session.sessionId)
-    .first<UserRow & { revoked_at: Date | null, last_seen_at: Date, session_id: string }>(
-      'u.*', 's.revoked_at', 's.last_seen_at', 's.id as session_id',
-    )
-  if (!row || row.revoked_at || row.id !== session.user.id) return null
-  if (Date.now() - new Date(row.last_seen_at).getTime() > TOUCH_AFTER_MS) {
-    await db('user_sessions').where({ id: row.session_id }).update({ last_seen_at: db.fn.now() })
-  }
-  return toPublicUser(row)
+  const row = await sessionUserQuery(db, session.sessionId).first<SessionUserRow>(...SESSION_USER_COLUMNS)
+  return acceptSession(db, session, row)
+}
+
+/** The request's unsealed session; 401 when it names no session. */
+async function requireSession(event: H3Event): Promise<{ user: { id: string }, sessionId: string }> {
+  const session = await getUserSession(event)
+  if (!session.user || !session.sessionId) throw httpError(401, MESSAGES.notSignedIn)
+  return session as { user: { id: string }, sessionId: string }
+}
+
+async function sessionEnded(event: H3Event): Promise<never> {
+  await clearUserSession(event)
+  throw httpError(401, MESSAGES.sessionEnded)
 }
 
 /** The signed-in user, fresh from the database; 401 when there is none or it was revoked. */
 export async function requireUser(event: H3Event): Promise<User> {
   const cached = event.context.gridmarkUser as User | undefined
   if (cached) return cached
-  const session = await getUserSession(event)
-  if (!session.user || !session.sessionId) {
-    throw httpError(401, MESSAGES.notSignedIn)
-  }
-  const user = await userOfSession(session)
-  if (!user) {
-    await clearUserSession(event)
-    throw httpError(401, MESSAGES.sessionEnded)
-  }
+  const session = await requireSession(event)
+  const user = await userOfSession(session) ?? await sessionEnded(event)
   event.context.gridmarkUser = user
   return user
+}
+
+/**
+ * `requireUser`, with a competition and the roles the user holds in it read in the same
+ * statement: most routes ask all three, and every round trip to the database is felt on a
+ * busy grid. The competition is undefined when there is none of that id.
+ */
+export async function requireUserIn(event: H3Event, competitionId: string): Promise<{ user: User, competition: CompetitionRow | undefined, rolesHeld: Role[] }> {
+  const cached = event.context.gridmarkUser as User | undefined
+  if (cached) {
+    const [competition, rolesHeld] = await Promise.all([findCompetition(competitionId), rolesInCompetition(cached.id, competitionId)])
+    return { user: cached, competition, rolesHeld }
+  }
+  const db = useDb()
+  const session = await requireSession(event)
+  const row = await sessionUserQuery(db, session.sessionId)
+    .leftJoin('competitions as c', 'c.id', db.raw('?', [competitionId]))
+    .first<SessionUserRow & { gm_roles: Role[] }>(
+      ...SESSION_USER_COLUMNS,
+      ...competitionColumns(db, 'gm_c_'),
+      db.raw('array(select m.role::text from memberships m where m.user_id = s.user_id and m.competition_id = ?) as gm_roles', [competitionId]),
+    )
+  const user = await acceptSession(db, session, row) ?? await sessionEnded(event)
+  event.context.gridmarkUser = user
+  return { user, competition: prefixedCompetition(row!, 'gm_c_'), rolesHeld: row!.gm_roles }
 }

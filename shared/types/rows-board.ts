@@ -28,6 +28,9 @@ export interface BoardTileRow {
   updated_at: Date
   /** The tile as the board sends it (with seq and updatedAt), written with it. */
   shown: BoardTile
+  /** Its place on the board: its class's sort order, then its competition ID (in number order). */
+  class_order: number
+  comp_id: string
 }
 
 export interface DirectorActionRow {

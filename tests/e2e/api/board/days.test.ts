@@ -201,3 +201,57 @@ describe('closing the day', () => {
     expect(list.body.openDay).toBe(todayIn())
   })
 })
+
+describe('a board of a whole field', () => {
+  it('comes in board order — classes in their order, competition IDs in number order — and gzipped when asked', async () => {
+    const f = await gridWorld(baseUrl, 'Board Field Cup')
+    // The Club class is put first; IDs of digits and letters, which a plain text sort misorders.
+    await testDb()('classes').where({ id: f.otherClassId }).update({ sort_order: 0 })
+    await testDb()('classes').where({ id: f.classId }).update({ sort_order: 1 })
+    const standardIds = ['12', '3', 'A10', 'A2', 'B1', '7', '21', 'ZZ', '100', 'A1']
+    const clubIds = ['9', '10', 'C2', 'C10', '1', '88', 'C1']
+    const rows = [...standardIds.map(c => ({ classId: f.classId, compId: c })), ...clubIds.map(c => ({ classId: f.otherClassId, compId: c }))]
+    const fillers = Array.from({ length: 30 - rows.length }, (_, i) => `M${i}`) // enough tiles to be worth gzipping
+    rows.push(...fillers.map(c => ({ classId: f.classId, compId: c })))
+    await testDb()('entries').insert(rows.map(r => ({
+      competition_id: f.competitionId,
+      class_id: r.classId,
+      entrant_user_id: f.entrant.user.id,
+      status: 'accepted',
+      payment_status: 'paid',
+      pilot_name: `Pilot ${r.compId}`,
+      glider_type: 'Tarn 15',
+      registration: `D-${r.compId}`,
+      comp_id: r.compId,
+    })))
+    await openToday(f)
+
+    const path = `${f.base}/board`
+    const headers = (encoding: string) => ({ 'cookie': f.director.client.cookie, 'x-forwarded-for': f.director.client.address, 'accept': 'application/json', 'accept-encoding': encoding })
+    const zipped = await fetch(baseUrl + path, { headers: headers('gzip, deflate, br') })
+    expect(zipped.status).toBe(200)
+    expect(zipped.headers.get('content-encoding')).toBe('gzip')
+    expect(zipped.headers.get('vary')).toMatch(/accept-encoding/i)
+    const plain = await fetch(baseUrl + path, { headers: headers('identity') })
+    expect(plain.headers.get('content-encoding')).toBeNull()
+    const zippedBody = await zipped.json() as any // fetch undoes the gzip
+    const plainBody = await plain.json() as any
+    expect(zippedBody.tiles).toEqual(plainBody.tiles)
+    expect(zippedBody.seq).toBe(plainBody.seq)
+
+    const order = zippedBody.tiles.map((t: any) => t.compId)
+    const club = ['1', '9', '10', '88', 'C1', 'C2', 'C10']
+    const standard = ['3', '7', '12', '21', '100', 'A1', 'A2', 'A10', 'B1', ...fillers, 'ZZ'] // M0 … M9, M10 …
+    expect(order).toEqual([...club, ...standard])
+    expect(zippedBody.classes.map((c: any) => c.name)).toEqual(['Club', 'Standard'])
+    expect(zippedBody.day.day).toBe(todayIn())
+
+    // The organiser moves the Club class after Standard: its tiles move on the board.
+    const moved = await f.organiser.client.request('PATCH', `${f.base}/classes/${f.otherClassId}`, { sortOrder: 5 })
+    expect(moved.status).toBe(200)
+    const after = await until(async () => (await f.director.client.get(path)).body, b => b.tiles[0]?.compId === '3')
+    expect(after.tiles.map((t: any) => t.compId)).toEqual([...standard, ...club])
+    expect(after.classes.map((c: any) => c.name)).toEqual(['Standard', 'Club'])
+    expect(after.seq).toBeGreaterThan(zippedBody.seq)
+  })
+})

@@ -11,7 +11,7 @@ export default defineApiHandler(async (event): Promise<BoardSnapshot> => {
   const { competition } = await requireRole(event, competitionId, STAFF_ROLES)
   setResponseHeader(event, 'cache-control', 'no-store')
   // Wall screens poll this: the snapshot is sent as the JSON text boardSnapshotJson builds,
-  // with nothing parsed or encoded again. The client receives a BoardSnapshot, hence the type.
-  setResponseHeader(event, 'content-type', 'application/json')
-  return await boardSnapshotJson(competition, day) as unknown as BoardSnapshot
+  // with nothing parsed or encoded again, gzipped when large. The client receives a
+  // BoardSnapshot, hence the type.
+  return await sendJsonText(event, await boardSnapshotJson(competition, day)) as unknown as BoardSnapshot
 })
