@@ -65,10 +65,59 @@ export async function userOfSession(session: { user?: { id: string }, sessionId?
   return acceptSession(db, session, row)
 }
 
+// Unsealing a session cookie derives two keys and checks a MAC (iron, through WebCrypto: a few
+// trips to the thread pool, some 2 ms of every request). The session of a cookie seen lately is
+// kept unsealed: the sealed text is the key, so only a cookie once verified is trusted; an entry
+// lasts ten minutes at most, and never past the seal's expiry or the session's age limit; and
+// every request still checks the session's row, so a sign-out ends it everywhere at once.
+interface UnsealedSession { id: string, createdAt: number, data: Record<string, unknown> }
+const unsealed = new Map<string, { session: UnsealedSession, until: number }>()
+const UNSEALED_KEEP_MS = 10 * 60 * 1000
+const UNSEALED_MAX = 5000
+
+function sessionConfig(event: H3Event): { name: string, maxAge?: number } {
+  return useRuntimeConfig(event).session as { name: string, maxAge?: number }
+}
+
+/** The sealed session the request carries in its cookie (not in h3's session header, which is not kept). */
+function sealedSessionOf(event: H3Event, name: string): string | undefined {
+  if (getRequestHeader(event, `x-${name.toLowerCase()}-session`) !== undefined) return undefined
+  return getCookie(event, name) || undefined
+}
+
+/** Hands h3 the session of a cookie unsealed lately, so getUserSession need not unseal it again. */
+function reuseUnsealed(event: H3Event, name: string, sealed: string): boolean {
+  const hit = unsealed.get(sealed)
+  if (!hit) return false
+  if (hit.until <= Date.now()) {
+    unsealed.delete(sealed)
+    return false
+  }
+  const sessions = (event.context.sessions ??= Object.create(null)) as Record<string, UnsealedSession>
+  if (sessions[name]) return false
+  sessions[name] = { id: hit.session.id, createdAt: hit.session.createdAt, data: structuredClone(hit.session.data) }
+  return true
+}
+
+function keepUnsealed(event: H3Event, config: { name: string, maxAge?: number }, sealed: string): void {
+  const session = (event.context.sessions as Record<string, UnsealedSession> | undefined)?.[config.name]
+  if (!session?.id) return
+  // An iron seal reads Fe26.2*id*salt*iv*data*expiry*hmac-salt*hmac (expiry in ms, may be empty).
+  const sealExpiry = Number(sealed.split('*')[5]) || Number.POSITIVE_INFINITY
+  const ageLimit = config.maxAge ? session.createdAt + config.maxAge * 1000 : Number.POSITIVE_INFINITY
+  const until = Math.min(Date.now() + UNSEALED_KEEP_MS, sealExpiry, ageLimit)
+  if (unsealed.size >= UNSEALED_MAX) unsealed.delete(unsealed.keys().next().value!)
+  unsealed.set(sealed, { session: { id: session.id, createdAt: session.createdAt, data: structuredClone(session.data) }, until })
+}
+
 /** The request's unsealed session; 401 when it names no session. */
 async function requireSession(event: H3Event): Promise<{ user: { id: string }, sessionId: string }> {
+  const config = sessionConfig(event)
+  const sealed = sealedSessionOf(event, config.name)
+  const reused = sealed ? reuseUnsealed(event, config.name, sealed) : false
   const session = await getUserSession(event)
   if (!session.user || !session.sessionId) throw httpError(401, MESSAGES.notSignedIn)
+  if (sealed && !reused) keepUnsealed(event, config, sealed)
   return session as { user: { id: string }, sessionId: string }
 }
 
