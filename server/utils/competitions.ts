@@ -28,10 +28,11 @@ export function competitionColumns(db: Knex, prefix = '') {
 }
 
 /** The competition in a row read with `competitionColumns(db, prefix)`; undefined when none joined. */
-export function prefixedCompetition(row: Record<string, unknown>, prefix: string): CompetitionRow | undefined {
-  if (row[`${prefix}id`] == null) return undefined
+export function prefixedCompetition(row: object, prefix: string): CompetitionRow | undefined {
+  const columns = row as Record<string, unknown>
+  if (columns[`${prefix}id`] == null) return undefined
   const out: Record<string, unknown> = {}
-  for (const c of [...COMPETITION_COLUMNS, 'first_contest_day', 'last_contest_day']) out[c] = row[`${prefix}${c}`]
+  for (const c of [...COMPETITION_COLUMNS, 'first_contest_day', 'last_contest_day']) out[c] = columns[`${prefix}${c}`]
   return out as unknown as CompetitionRow
 }
 
