@@ -11,14 +11,13 @@
 // result goes to artifacts/test-summary.json ({ passed, failed, steps }), which CI reads;
 // the cluster is stopped and its folder removed in every case, Ctrl-C included.
 import type { ChildProcess } from 'node:child_process'
-import { chmodSync, existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs'
+import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { ensureBrowser } from './lib/browser'
 import { ensureBuild } from './lib/build'
 import { artifactsDir, formatDuration, reportError, repoRoot, runInherited, ScriptError, step } from './lib/common'
 import { migrate, seed } from './lib/db'
-import { freePort } from './lib/net'
-import { clusterEnv, clusterUrl, createDatabase, ensurePostgresBinaries, initCluster, isClusterRunning, startCluster, stopCluster } from './lib/postgres'
+import { clusterEnv, clusterUrl, createDatabase, ensurePostgresBinaries, isClusterRunning, startThrowawayCluster, stopCluster, throwawayDir } from './lib/postgres'
 import type { Cluster } from './lib/postgres'
 import { randomSessionPassword } from './lib/secrets'
 import { startServices, type StartedServices } from './lib/services'
@@ -82,21 +81,10 @@ async function timed<T>(label: string, task: () => Promise<T>): Promise<T> {
 async function setUp(): Promise<string> {
   const binDir = await timed('PostgreSQL binaries', ensurePostgresBinaries)
   const testCluster = await timed('test cluster started', async () => {
-    tempDir = mkdtempSync('/tmp/gridmark-test-')
-    // mkdtemp makes it 0700; the postgres user must be able to enter it.
-    chmodSync(tempDir, 0o755)
+    tempDir = throwawayDir('gridmark-test-')
     // Uploaded files of the run (demo seed and tests) live and die with it, apart from the demo's.
     process.env.NUXT_UPLOADS_DIR = join(tempDir, 'uploads')
-    const wanted: Cluster = {
-      dataDir: join(tempDir, 'pg'),
-      socketDir: join(tempDir, 'socket'),
-      logFile: join(tempDir, 'postgres.log'),
-      port: await freePort(),
-      binDir,
-      fsync: false,
-    }
-    await initCluster(wanted)
-    cluster = await startCluster(wanted)
+    cluster = await startThrowawayCluster(tempDir, binDir)
     return cluster
   })
   const url = clusterUrl(testCluster, TEST_DATABASE)

@@ -16,7 +16,7 @@
 // Everything it started (sockets, server, cluster, /tmp folder) is removed in every case,
 // Ctrl-C included. The clients keep their work small: a tile event is matched by one map
 // look-up; a polled board is parsed once and only changed tiles are looked at.
-import { chmodSync, mkdtempSync, rmSync } from 'node:fs'
+import { rmSync } from 'node:fs'
 import { join } from 'node:path'
 import { performance } from 'node:perf_hooks'
 import { randomBytes, randomUUID } from 'node:crypto'
@@ -30,8 +30,7 @@ import { BENCH_PASSWORD, benchToday, createBenchCompetition, createBenchUsers, t
 import { ensureBuild } from './build'
 import { formatDuration, ScriptError, step } from './common'
 import { migrate } from './db'
-import { freePort } from './net'
-import { clusterUrl, createDatabase, ensurePostgresBinaries, initCluster, isClusterRunning, startCluster, stopCluster, type Cluster } from './postgres'
+import { clusterUrl, createDatabase, ensurePostgresBinaries, isClusterRunning, startThrowawayCluster, stopCluster, throwawayDir, type Cluster } from './postgres'
 import { randomSessionPassword } from './secrets'
 
 const BENCH_DATABASE = 'gridmark_bench'
@@ -455,19 +454,8 @@ export async function benchBoard(): Promise<BoardBenchResult> {
     step('Live board: a throwaway database and the built server')
     const binDir = await timed('PostgreSQL binaries', ensurePostgresBinaries)
     cluster = await timed('bench cluster started', async () => {
-      tempDir = mkdtempSync('/tmp/gridmark-bench-')
-      // mkdtemp makes it 0700; the postgres user must be able to enter it.
-      chmodSync(tempDir, 0o755)
-      const wanted: Cluster = {
-        dataDir: join(tempDir, 'pg'),
-        socketDir: join(tempDir, 'socket'),
-        logFile: join(tempDir, 'postgres.log'),
-        port: await freePort(),
-        binDir,
-        fsync: false,
-      }
-      await initCluster(wanted)
-      return startCluster(wanted)
+      tempDir = throwawayDir('gridmark-bench-')
+      return startThrowawayCluster(tempDir, binDir)
     })
     const url = clusterUrl(cluster, BENCH_DATABASE)
     await timed(`database ${BENCH_DATABASE} on port ${cluster.port}`, () => createDatabase(cluster!, BENCH_DATABASE))

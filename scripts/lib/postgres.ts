@@ -5,11 +5,11 @@
 // Two facts shape the code: the server refuses to run as root, so as root every server
 // tool runs as the `postgres` user (runuser) and its folders are handed to that user; and
 // that user must be able to reach the data folder, which a clone under /root is not.
-import { chownSync, existsSync, mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs'
+import { chmodSync, chownSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs'
 import { dirname, join } from 'node:path'
 import { aptInstall } from './apt'
 import { capture, isRoot, mustRun, ScriptError, step } from './common'
-import { isPortFree } from './net'
+import { freePort, isPortFree } from './net'
 
 export interface Cluster {
   /** PGDATA: owned by the server user, mode 0700. */
@@ -296,6 +296,31 @@ export async function createDatabase(cluster: Cluster, name: string): Promise<bo
 export async function dropDatabase(cluster: Cluster, name: string): Promise<void> {
   assertIdentifier(name)
   await psql(cluster, `DROP DATABASE IF EXISTS "${name}" WITH (FORCE)`)
+}
+
+/** A new folder under /tmp for one run's own cluster (see startThrowawayCluster). */
+export function throwawayDir(prefix: string): string {
+  const dir = mkdtempSync(`/tmp/${prefix}`)
+  // mkdtemp makes it 0700; the postgres user must be able to enter it.
+  chmodSync(dir, 0o755)
+  return dir
+}
+
+/**
+ * Starts a cluster of one run's own (`npm test`, `npm run bench`) in `dir`, made by
+ * throwawayDir: a free port, fsync off. The caller stops it and removes the folder.
+ */
+export async function startThrowawayCluster(dir: string, binDir: string): Promise<Cluster> {
+  const wanted: Cluster = {
+    dataDir: join(dir, 'pg'),
+    socketDir: join(dir, 'socket'),
+    logFile: join(dir, 'postgres.log'),
+    port: await freePort(),
+    binDir,
+    fsync: false,
+  }
+  await initCluster(wanted)
+  return startCluster(wanted)
 }
 
 export function clusterUrl(cluster: Cluster, database: string): string {

@@ -279,7 +279,8 @@ export async function recordGridCheck(
     const actions: DirectorAction[] = actionRows.map(toTileAction)
     const ready: Readiness = readiness(findings, { day: body.day, outcome }, actions, body.day)
 
-    const [row] = await trx('grid_checks').insert({
+    // The columns as written (answers and findings as JSON text) and as read back.
+    const columns = {
       competition_id: competition.id,
       entry_id: entry.id,
       day: body.day,
@@ -287,13 +288,14 @@ export async function recordGridCheck(
       body_sha256: sha,
       scrutineer_id: user.id,
       checked_at: body.checkedAt,
-      answers: JSON.stringify(stored.answers),
       notes: body.notes ?? '',
       outcome,
       readiness: ready,
-      findings: JSON.stringify(findings),
       found_by: body.foundBy ?? null,
-    }).returning(['id', 'received_at'])
+    }
+    const [row] = await trx('grid_checks')
+      .insert({ ...columns, answers: JSON.stringify(stored.answers), findings: JSON.stringify(findings) })
+      .returning(['id', 'received_at'])
     const gridCheckId = row.id as string
     const massKg = weighed ? Math.round(weighed.massKg * 100) / 100 : null
     const cgArmM = weighed && weighed.cgArmM !== null ? Math.round(weighed.cgArmM * 10_000) / 10_000 : null
@@ -340,21 +342,11 @@ export async function recordGridCheck(
     }
     // The check as stored, from what was written (one statement fewer while the lock is held).
     const gridCheck = toGridCheckRecord({
+      ...columns,
       id: gridCheckId,
-      competition_id: competition.id,
-      entry_id: entry.id,
-      day: body.day,
-      idempotency_key: body.idempotencyKey,
-      body_sha256: sha,
-      scrutineer_id: user.id,
-      checked_at: body.checkedAt,
       received_at: row.received_at,
       answers: stored.answers,
-      notes: body.notes ?? '',
-      outcome,
-      readiness: ready,
       findings,
-      found_by: body.foundBy ?? null,
       comp_id: entry.comp_id,
       scrutineer_name: user.name,
       weigh_units: body.weighIn?.units ?? null,
