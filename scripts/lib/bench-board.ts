@@ -5,7 +5,8 @@
 //   latency    competition of 300 entries, today's day opened by its director. 200 board
 //              screens on socket.io and 20 polling screens (GET …/board every 2 s, each at its
 //              own phase) watch while 30 scrutineers each send a grid check every 4–8 s
-//              (jittered; GRIDMARK_BENCH_PACE=stress: every 1–2 s) for 30 s. For each check: from just before its POST to the moment
+//              (jittered; GRIDMARK_BENCH_PACE=stress: every 1–2 s) for 30 s. For each check:
+//              from just before its POST to the moment
 //              each screen first shows the entry's tile carrying that check (matched on entry
 //              id and `lastCheck.at` = the check's `checkedAt`). Before that, 20 checks one at
 //              a time show what a check costs with no queue (reported apart, with the machine's

@@ -5,11 +5,12 @@ import type { CompetitionClassSummary, CompetitionDetail, MembershipSummary } fr
 import { effectiveRoles } from '#shared/utils/access'
 import type { ClassRow, CompetitionRow } from '#shared/types/rows'
 
-// Contest days are calendar dates: read them as text so no time zone can shift them.
 const COMPETITION_COLUMNS = [
   'id', 'slug', 'name', 'airfield_name', 'airfield_icao', 'time_zone', 'currency', 'settings',
   'created_by', 'created_at', 'updated_at',
 ]
+// Contest days are calendar dates: read them as text so no time zone can shift them.
+const CONTEST_DAY_COLUMNS = ['first_contest_day', 'last_contest_day']
 
 export async function findCompetition(id: string, db: Knex = useDb()): Promise<CompetitionRow | undefined> {
   return db('competitions as c').where('c.id', id).first(...competitionColumns(db))
@@ -22,8 +23,7 @@ export async function findCompetition(id: string, db: Knex = useDb()): Promise<C
 export function competitionColumns(db: Knex, prefix = '') {
   return [
     ...COMPETITION_COLUMNS.map(c => `c.${c} as ${prefix}${c}`),
-    db.raw(`to_char(c.first_contest_day, 'YYYY-MM-DD') as ??`, [`${prefix}first_contest_day`]),
-    db.raw(`to_char(c.last_contest_day, 'YYYY-MM-DD') as ??`, [`${prefix}last_contest_day`]),
+    ...CONTEST_DAY_COLUMNS.map(c => db.raw(`to_char(c.??, 'YYYY-MM-DD') as ??`, [c, `${prefix}${c}`])),
   ]
 }
 
@@ -32,7 +32,7 @@ export function prefixedCompetition(row: object, prefix: string): CompetitionRow
   const columns = row as Record<string, unknown>
   if (columns[`${prefix}id`] == null) return undefined
   const out: Record<string, unknown> = {}
-  for (const c of [...COMPETITION_COLUMNS, 'first_contest_day', 'last_contest_day']) out[c] = columns[`${prefix}${c}`]
+  for (const c of [...COMPETITION_COLUMNS, ...CONTEST_DAY_COLUMNS]) out[c] = columns[`${prefix}${c}`]
   return out as unknown as CompetitionRow
 }
 
