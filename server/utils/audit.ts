@@ -11,13 +11,20 @@ export interface AuditEntry {
   details?: Record<string, unknown>
 }
 
-export async function audit(db: Knex, entry: AuditEntry): Promise<void> {
-  await db('audit_log').insert({
+/** The audit_log row of an entry, for a caller that writes it within a statement of its own. */
+export function auditRow(entry: AuditEntry) {
+  return {
     actor_user_id: entry.actorUserId,
     competition_id: entry.competitionId ?? null,
     action: entry.action,
     subject_type: entry.subjectType,
     subject_id: entry.subjectId ?? null,
     details: entry.details ?? {},
-  })
+  }
+}
+
+/** Appends one or more entries, in one statement. */
+export async function audit(db: Knex, entries: AuditEntry | readonly AuditEntry[]): Promise<void> {
+  const list = Array.isArray(entries) ? entries : [entries as AuditEntry]
+  if (list.length) await db('audit_log').insert(list.map(auditRow))
 }

@@ -16,6 +16,7 @@ import type { GridCheckAnswerJson } from '#shared/types/rows-grid'
 import { READINESS_LABELS } from '#shared/constants/readiness'
 import { compareCompIds } from '#shared/utils/comp-id-order'
 import type { CompetitionDossiers } from './findings'
+import type { AuditEntry } from './audit'
 
 // ---------------------------------------------------------------------------------------
 // Changes to push once the transaction commits
@@ -59,14 +60,19 @@ export async function lockBoard(trx: Knex.Transaction, competitionId: string): P
   await trx.raw('select pg_advisory_xact_lock(hashtext(?))', [boardLockKey(competitionId)])
 }
 
-/** Takes `count` numbers of the competition's sequence; returns the first. */
-export async function takeSeq(trx: Knex.Transaction, competitionId: string, count = 1): Promise<number> {
-  const { rows } = await trx.raw(
+/** The statement that takes `count` numbers of the competition's sequence, returning the last (`seq`). */
+function takeSeqSql(db: Knex, competitionId: string, count: number) {
+  return db.raw(
     `insert into board_sequences (competition_id, seq) values (?, ?)
      on conflict (competition_id) do update set seq = board_sequences.seq + excluded.seq
      returning seq`,
     [competitionId, count],
   )
+}
+
+/** Takes `count` numbers of the competition's sequence; returns the first. */
+export async function takeSeq(trx: Knex.Transaction, competitionId: string, count = 1): Promise<number> {
+  const { rows } = await takeSeqSql(trx, competitionId, count)
   return Number(rows[0].seq) - count + 1
 }
 
@@ -127,7 +133,7 @@ export async function boardDayOf(competitionId: string, day: IsoDate | undefined
 // ---------------------------------------------------------------------------------------
 // Tiles
 
-interface CheckRow {
+export interface CheckRow {
   entry_id: string
   day: string
   checked_at: Instant
@@ -137,6 +143,7 @@ interface CheckRow {
 }
 
 export interface BoardActionRow {
+  id: string
   entry_id: string
   kind: 'hold' | 'release' | 'waiver'
   day: string | null
@@ -145,7 +152,8 @@ export interface BoardActionRow {
   subject: string | null
   reason: string
   actor_name: string
-  created_at: Date
+  /** A Date as the driver reads the column; its text when read inside a JSON value. */
+  created_at: Instant
 }
 
 interface EntrantRow {
@@ -188,7 +196,7 @@ export function actionsQuery(db: Knex, competitionId: string, day: IsoDate, entr
     .where('a.competition_id', competitionId)
     .where(w => w.where('a.day', day).orWhereNull('a.day'))
     .orderBy([{ column: 'a.created_at' }, { column: 'a.id' }])
-    .select('a.entry_id', 'a.kind', 'a.check_id', 'a.unit_id', 'a.subject', 'a.reason', 'a.created_at', 'u.name as actor_name',
+    .select('a.id', 'a.entry_id', 'a.kind', 'a.check_id', 'a.unit_id', 'a.subject', 'a.reason', 'a.created_at', 'u.name as actor_name',
       db.raw(`to_char(a.day, 'YYYY-MM-DD') as day`))
   if (entryIds) q.whereIn('a.entry_id', [...entryIds])
   return q
@@ -196,14 +204,25 @@ export function actionsQuery(db: Knex, competitionId: string, day: IsoDate, entr
 
 type ExistingTileRow = Pick<BoardTileRow, 'entry_id' | 'readiness' | 'tile' | 'findings' | 'class_order'> & { seq: string | number, updated_at: Instant }
 
+/** What refreshTiles reads besides the dossiers and the director's actions (see `tileInputsStatement`). */
+export interface TileInputs {
+  checks: CheckRow[]
+  existing: ExistingTileRow[]
+  entrants: EntrantRow[]
+  class_orders: Record<string, number>
+  /** The competition's last sequence number (0 before the first). */
+  seq: string | number
+}
+
 /**
- * What refreshTiles reads besides the dossiers and the director's actions, in one statement:
- * each entry's latest grid check of the day (with its scrutineer's name), its tile as it
- * stands, and its entrant — of every entry, or of `entryIds` — and the order of the classes.
+ * What refreshTiles reads besides the dossiers and the director's actions, as one statement
+ * whose one row is `TileInputs`, with its named bindings: each entry's latest grid check of the
+ * day (with its scrutineer's name), its tile as it stands, and its entrant — of every entry,
+ * or of `entryIds` — the order of the classes and the competition's last sequence number.
  */
-async function tileInputs(db: Knex, competitionId: string, day: IsoDate, entryIds?: readonly string[]): Promise<{ checks: CheckRow[], existing: ExistingTileRow[], entrants: EntrantRow[], class_orders: Record<string, number> }> {
+export function tileInputsStatement(db: Knex, competitionId: string, day: IsoDate, entryIds?: readonly string[]): { sql: string, bindings: Record<string, unknown> } {
   const only = (column: string) => (entryIds ? `and ${column} = any(:ids::uuid[])` : '')
-  const { rows: [row] } = await db.raw(`select
+  const sql = `select
       (select coalesce(json_agg(json_build_object('entry_id', g.entry_id, 'checked_at', g.checked_at, 'outcome', g.outcome,
           'answers', g.answers, 'scrutineer_name', u.name, 'day', to_char(g.day, 'YYYY-MM-DD'))), '[]')
         from grid_checks g join users u on u.id = g.scrutineer_id
@@ -215,13 +234,23 @@ async function tileInputs(db: Knex, competitionId: string, day: IsoDate, entryId
           'entrant_email', u.email, 'entrant_name', u.name)), '[]')
         from entries e join users u on u.id = e.entrant_user_id
         where e.competition_id = :competitionId ${only('e.id')}) as entrants,
-      (select coalesce(json_object_agg(k.id, k.sort_order), '{}') from classes k where k.competition_id = :competitionId) as class_orders`, {
-    competitionId,
-    day,
-    latestChecks: latestGridCheckIds(db, competitionId, day),
-    ...(entryIds ? { ids: [...entryIds] } : {}),
-  })
-  return row
+      (select coalesce(json_object_agg(k.id, k.sort_order), '{}') from classes k where k.competition_id = :competitionId) as class_orders,
+      coalesce((select seq from board_sequences where competition_id = :competitionId), 0) as seq`
+  return {
+    sql,
+    bindings: {
+      competitionId,
+      day,
+      latestChecks: latestGridCheckIds(db, competitionId, day),
+      ...(entryIds ? { ids: [...entryIds] } : {}),
+    },
+  }
+}
+
+async function tileInputs(db: Knex, competitionId: string, day: IsoDate, entryIds?: readonly string[]): Promise<TileInputs> {
+  const { sql, bindings } = tileInputsStatement(db, competitionId, day, entryIds)
+  const { rows: [row] } = await db.raw(sql, bindings) as { rows: TileInputs[] }
+  return row!
 }
 
 function groupBy<T extends { entry_id: string }>(rows: T[]): Map<string, T[]> {
@@ -246,12 +275,13 @@ export interface RefreshOptions {
   silent?: boolean
   /**
    * What the caller already read under the board's lock for exactly these entries and this
-   * day, so one change does not read the same dossiers twice: `loadCompetitionDossiers(…,
-   * { entryIds, acceptedOnly: true, day })` and `actionsQuery(…, day, entryIds)`, unchanged
-   * since. (The dossiers' own grid check is not read here: the tile's check comes from the
-   * grid_checks rows below.)
+   * day, so one change does not read the same things twice: `loadCompetitionDossiers(…,
+   * { entryIds, acceptedOnly: true, day })`, `actionsQuery(…, day, entryIds)` and
+   * `tileInputsStatement(…, day, entryIds)`, each as it stands now (a part left out is read
+   * here). (The dossiers' own grid check is not read here: the tile's check comes from the
+   * inputs' `checks`.)
    */
-  preloaded?: { dossiers: CompetitionDossiers, actions: BoardActionRow[] }
+  preloaded?: { dossiers?: CompetitionDossiers, actions?: BoardActionRow[], inputs?: TileInputs }
 }
 
 /**
@@ -269,10 +299,11 @@ export async function refreshTiles(
   opts: RefreshOptions,
 ): Promise<Map<string, BoardTile>> {
   const ids = opts.entryIds
-  const [loaded, actions, { checks, existing, entrants, class_orders: classOrders }] = await together(trx, [
-    () => opts.preloaded ? Promise.resolve(opts.preloaded.dossiers) : loadCompetitionDossiers(competitionId, { entryIds: ids, acceptedOnly: true, day }, trx),
-    () => (opts.preloaded?.actions ?? actionsQuery(trx, competitionId, day, ids)) as Promise<BoardActionRow[]>,
-    () => tileInputs(trx, competitionId, day, ids),
+  const preloaded = opts.preloaded ?? {}
+  const [loaded, actions, { checks, existing, entrants, class_orders: classOrders, seq: lastSeq }] = await together(trx, [
+    () => preloaded.dossiers ? Promise.resolve(preloaded.dossiers) : loadCompetitionDossiers(competitionId, { entryIds: ids, acceptedOnly: true, day }, trx),
+    () => (preloaded.actions ? Promise.resolve(preloaded.actions) : actionsQuery(trx, competitionId, day, ids)) as Promise<BoardActionRow[]>,
+    () => preloaded.inputs ? Promise.resolve(preloaded.inputs) : tileInputs(trx, competitionId, day, ids),
   ] as const)
   const result = new Map<string, BoardTile>()
   if (!loaded) return result
@@ -308,25 +339,37 @@ export async function refreshTiles(
 
   const count = pending.length + leaving.length
   if (!count) return result
-  let seq = await takeSeq(trx, competitionId, count)
+  // The numbers these changes take: the next ones, as no other writer of this board runs while
+  // we hold its lock. The first batch of tiles takes them in its own statement (one round trip
+  // fewer while the other writers wait), and the number it took is checked against these.
+  let seq = Number(lastSeq) + 1
   const now = new Date()
 
   const written = pending.map((p): Pending & { tile: BoardTile } => ({ ...p, tile: { ...p.body, seq: seq++, updatedAt: now.toISOString() } }))
   // The tiles in as few statements as there are hundreds of them (a day being opened writes
   // every tile; a grid check one).
   for (let i = 0; i < written.length; i += 500) {
-    await trx('board_tiles')
-      .insert(written.slice(i, i + 500).map(p => ({
-        competition_id: competitionId, day, entry_id: p.entryId, seq: p.tile.seq, readiness: p.tile.readiness,
-        tile: JSON.stringify(p.body), findings: JSON.stringify(p.findings), updated_at: now,
-        // As the board sends it (boardSnapshotJson joins these), in its place on the board.
-        shown: JSON.stringify(p.tile),
-        class_order: p.classOrder,
-        comp_id: p.body.compId,
-      })))
-      .onConflict(['competition_id', 'day', 'entry_id'])
-      .merge(['seq', 'readiness', 'tile', 'findings', 'updated_at', 'shown', 'class_order', 'comp_id'])
+    const rows = written.slice(i, i + 500).map(p => ({
+      competition_id: competitionId, day, entry_id: p.entryId, seq: p.tile.seq, readiness: p.tile.readiness,
+      tile: JSON.stringify(p.body), findings: JSON.stringify(p.findings), updated_at: now,
+      // As the board sends it (boardSnapshotJson joins these), in its place on the board.
+      shown: JSON.stringify(p.tile),
+      class_order: p.classOrder,
+      comp_id: p.body.compId,
+    }))
+    const merged = ['seq', 'readiness', 'tile', 'findings', 'updated_at', 'shown', 'class_order', 'comp_id']
+    if (i > 0) {
+      await trx('board_tiles').insert(rows).onConflict(['competition_id', 'day', 'entry_id']).merge(merged)
+      continue
+    }
+    const [taken] = await trx.with('taken', takeSeqSql(trx, competitionId, count))
+      .insert(rows).into('board_tiles').onConflict(['competition_id', 'day', 'entry_id']).merge(merged)
+      .returning(trx.raw('(select seq from taken) as seq')) as { seq: string | number }[]
+    if (Number(taken!.seq) !== Number(lastSeq) + count) throw new Error(`The board of ${competitionId} was numbered by another writer while locked.`)
   }
+  if (!written.length) seq = await takeSeq(trx, competitionId, count)
+
+  const audits: AuditEntry[] = []
   for (const p of written) {
     const tile = p.tile
     result.set(p.entryId, tile)
@@ -342,7 +385,7 @@ export async function refreshTiles(
     if (p.previous) {
       const diff = diffFindings(p.previous.findings, p.findings)
       if (diff.added.length || diff.removed.length) {
-        await audit(trx, {
+        audits.push({
           actorUserId: opts.actorId,
           competitionId,
           action: 'findings.changed',
@@ -357,10 +400,13 @@ export async function refreshTiles(
       await enqueueHeldMail(trx, competitionId, entrant, day, tile)
     }
   }
-  for (const r of leaving) {
-    await trx('board_tiles').where({ competition_id: competitionId, day, entry_id: r.entry_id }).delete()
-    if (!opts.silent) changes.tiles.push({ competitionId, day, seq, cause: opts.cause, entryId: r.entry_id, tile: null })
-    seq++
+  await audit(trx, audits)
+  if (leaving.length) {
+    await trx('board_tiles').where({ competition_id: competitionId, day }).whereIn('entry_id', leaving.map(r => r.entry_id)).delete()
+    for (const r of leaving) {
+      if (!opts.silent) changes.tiles.push({ competitionId, day, seq, cause: opts.cause, entryId: r.entry_id, tile: null })
+      seq++
+    }
   }
   return result
 }

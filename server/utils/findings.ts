@@ -355,7 +355,8 @@ function scopedDossierSql(scope: { acceptedOnly: boolean, day: boolean }): strin
     : `'[]'::json`} as grid_checks`
 }
 
-interface DossierSqlRow {
+/** The row `scopedDossierSql` reads: each part of some entries' dossiers as a JSON value. */
+export interface DossierSqlRow {
   competition: (FindingsCompetitionRow & { name: string }) | null
   classes: FindingsClassRow[]
   firmware: FindingsFirmwareRow[]
@@ -369,11 +370,19 @@ interface DossierSqlRow {
   grid_checks: FindingsGridCheckRow[]
 }
 
-async function loadScopedDossiers(competitionId: string, entryIds: readonly string[], scope: DossierScope, db: Knex): Promise<CompetitionDossiers | undefined> {
+/**
+ * The statement that reads some entries' dossiers (`entryIds`) and its named bindings, for a
+ * caller that reads them beside other parts in one round trip (the grid check): the statement
+ * is a derived table whose one row is a `DossierSqlRow`; `scopedDossiersOf` reads that row.
+ */
+export function scopedDossierStatement(db: Knex, competitionId: string, entryIds: readonly string[], scope: Omit<DossierScope, 'entryIds'> = {}): { sql: string, bindings: Record<string, unknown> } {
   const bindings: Record<string, unknown> = { competitionId, ids: [...entryIds] }
   if (scope.day) bindings.latestChecks = latestGridCheckIds(db, competitionId, scope.day)
-  const sql = scopedDossierSql({ acceptedOnly: Boolean(scope.acceptedOnly), day: Boolean(scope.day) })
-  const { rows: [row] } = await db.raw(sql, bindings) as { rows: DossierSqlRow[] }
+  return { sql: scopedDossierSql({ acceptedOnly: Boolean(scope.acceptedOnly), day: Boolean(scope.day) }), bindings }
+}
+
+/** Some entries' dossiers from the row `scopedDossierStatement` read; undefined when there is no such competition. */
+export function scopedDossiersOf(row: DossierSqlRow | undefined): CompetitionDossiers | undefined {
   const competition = row?.competition
   if (!row || !competition) return undefined
   // As the driver reads a timestamptz column: a Date (to the millisecond).
@@ -386,6 +395,12 @@ async function loadScopedDossiers(competitionId: string, entryIds: readonly stri
     field: toField(row.field_entries, row.field_radio_ids),
     rows: row.entries,
   }
+}
+
+async function loadScopedDossiers(competitionId: string, entryIds: readonly string[], scope: DossierScope, db: Knex): Promise<CompetitionDossiers | undefined> {
+  const { sql, bindings } = scopedDossierStatement(db, competitionId, entryIds, scope)
+  const { rows: [row] } = await db.raw(sql, bindings) as { rows: DossierSqlRow[] }
+  return scopedDossiersOf(row)
 }
 
 /**

@@ -4,7 +4,7 @@
 // its weigh-in, the engine's findings including that weigh-in, the readiness, the audit row,
 // and on an open day the entry's board tile (pushed to the boards once committed).
 // Two scrutineers on one entry both get a row; the later check (by checked_at) counts.
-import { createHash } from 'node:crypto'
+import { createHash, randomUUID } from 'node:crypto'
 import type { Knex } from 'knex'
 import type { H3Event } from 'h3'
 import { addDays, blockingFirst, checkOutcome, dateInZone, evaluate, readiness, weighIn, withWeighIn, type DirectorAction, type Finding, type IsoDate, type Readiness } from '#shared/engine'
@@ -18,7 +18,9 @@ import type { CompetitionRow } from '#shared/types/rows'
 import type { User } from '#auth-utils'
 import { sortedJson } from '#shared/utils/board-tile'
 import { rulesOf } from './competition-setup'
-import { actionsQuery, boardLockKey, boardTransaction, refreshTiles, toTileAction, type BoardActionRow } from './board'
+import { actionsQuery, boardLockKey, boardTransaction, refreshTiles, tileInputsStatement, toTileAction, type BoardActionRow, type CheckRow, type TileInputs } from './board'
+import { scopedDossiersOf, scopedDossierStatement, type CompetitionDossiers, type DossierSqlRow } from './findings'
+import { auditRow } from './audit'
 import type { CompetitionAccess } from './authz'
 
 // ---------------------------------------------------------------------------------------
@@ -222,6 +224,64 @@ function fieldError(field: string, message: string) {
   return httpError(400, `${MESSAGES.invalidInput} ${message}`, { fieldErrors: { [field]: [message] }, formErrors: [] })
 }
 
+/** What a grid check reads under the board's lock (`gridCheckInputs`). */
+interface GridCheckInputs {
+  /** A check stored under the same key. */
+  earlier: { id: string, body_sha256: string } | null
+  /** The entry's dossier, when it is an entry of this competition. */
+  loaded: CompetitionDossiers | undefined
+  /** The director's actions on the entry that count on the check's day. */
+  actionRows: BoardActionRow[]
+  /** Whether the check's day is open on the board. */
+  open: boolean
+  /** The rest of the entry's tile on that day, before this check (refreshTiles). */
+  inputs: TileInputs
+}
+
+/**
+ * Everything a grid check reads, in one statement (each round trip under the board's lock
+ * keeps the other phones waiting): the parts are the statements the findings and the board
+ * read them with, side by side.
+ */
+async function gridCheckInputs(trx: Knex.Transaction, competitionId: string, body: GridCheckBody): Promise<GridCheckInputs> {
+  const dossier = scopedDossierStatement(trx, competitionId, [body.entryId], { day: body.day })
+  const tile = tileInputsStatement(trx, competitionId, body.day, [body.entryId])
+  const { rows: [row] } = await trx.raw(`select d.*, t.*,
+      (select json_build_object('id', x.id, 'body_sha256', x.body_sha256) from grid_checks x where x.idempotency_key = :idempotencyKey) as earlier,
+      exists (select 1 from board_days b where b.competition_id = :competitionId and b.day = :day and b.closed_at is null) as open,
+      (select coalesce(json_agg(a order by a.created_at, a.id), '[]') from :actions as a) as actions
+    from (${dossier.sql}) as d, (${tile.sql}) as t`, {
+    ...dossier.bindings,
+    ...tile.bindings,
+    idempotencyKey: body.idempotencyKey,
+    actions: actionsQuery(trx, competitionId, body.day, [body.entryId]),
+  }) as { rows: (DossierSqlRow & TileInputs & { earlier: GridCheckInputs['earlier'], open: boolean, actions: BoardActionRow[] })[] }
+  const { checks, existing, entrants, class_orders, seq } = row!
+  return {
+    earlier: row!.earlier,
+    loaded: scopedDossiersOf(row),
+    actionRows: row!.actions,
+    open: row!.open,
+    inputs: { checks, existing, entrants, class_orders, seq },
+  }
+}
+
+/**
+ * The tile's inputs once `check` is stored: with it as the entry's latest check of the day
+ * when it is (the later time of checking wins, as `latestGridCheckIds` orders them), the
+ * inputs as they were when an earlier-stored check is later. Undefined when both were checked
+ * at the same instant: then the order falls to the time received and the id, which only the
+ * stored rows tell, so the tile reads them.
+ */
+export function withCheck(inputs: TileInputs, check: CheckRow): TileInputs | undefined {
+  const latest = inputs.checks.find(c => c.entry_id === check.entry_id && c.day === check.day)
+  if (!latest) return { ...inputs, checks: [...inputs.checks, check] }
+  const was = new Date(latest.checked_at).getTime()
+  const now = new Date(check.checked_at).getTime()
+  if (now === was) return undefined
+  return now > was ? { ...inputs, checks: inputs.checks.map(c => (c === latest ? check : c)) } : inputs
+}
+
 export async function recordGridCheck(
   competition: CompetitionRow,
   user: User,
@@ -239,21 +299,19 @@ export async function recordGridCheck(
       `gridmark:grid-check:${body.idempotencyKey.toLowerCase()}`,
       boardLockKey(competition.id),
     ])
-    const earlier = await trx('grid_checks').where({ idempotency_key: body.idempotencyKey }).first('id', 'body_sha256')
-    if (earlier) {
-      if (earlier.body_sha256 !== sha) throw httpError(409, MESSAGES.gridReplayConflict)
-      return { gridCheck: await gridCheckById(trx, earlier.id), replayed: true }
+    // Then, in one statement: a check stored earlier under this key; the entry's dossier (as
+    // the board reads an entry of this competition); the director's actions that count today;
+    // whether the day is open on the board (opening and closing take the lock we hold); and
+    // what the entry's tile is made of besides (its latest check, its tile as it stands).
+    const read = await gridCheckInputs(trx, competition.id, body)
+    if (read.earlier) {
+      if (read.earlier.body_sha256 !== sha) throw httpError(409, MESSAGES.gridReplayConflict)
+      return { gridCheck: await gridCheckById(trx, read.earlier.id), replayed: true }
     }
+    const { loaded, actionRows, open } = read
 
-    // Then: the entry's dossier (as the board reads an entry of this competition), the
-    // director's actions that count today, and whether the day is open on the board (opening
-    // and closing take the lock we hold). The entry is judged first: only an entry that is not
-    // this competition's is looked up on its own, to tell "no such entry" from "another's".
-    const [loaded, actionRows, open] = await together(trx, [
-      () => loadCompetitionDossiers(competition.id, { entryIds: [body.entryId], day: body.day }, trx),
-      () => actionsQuery(trx, competition.id, body.day, [body.entryId]) as Promise<BoardActionRow[]>,
-      () => trx('board_days').where({ competition_id: competition.id, day: body.day }).whereNull('closed_at').first('day'),
-    ] as const)
+    // The entry is judged first: only an entry that is not this competition's is looked up
+    // on its own, to tell "no such entry" from "another's".
     const entry = loaded?.rows[0]
     if (!entry) {
       const elsewhere = await trx('entries').where({ id: body.entryId }).first('id')
@@ -293,14 +351,16 @@ export async function recordGridCheck(
       readiness: ready,
       found_by: body.foundBy ?? null,
     }
-    const [row] = await trx('grid_checks')
-      .insert({ ...columns, answers: JSON.stringify(stored.answers), findings: JSON.stringify(findings) })
-      .returning(['id', 'received_at'])
-    const gridCheckId = row.id as string
     const massKg = weighed ? Math.round(weighed.massKg * 100) / 100 : null
     const cgArmM = weighed && weighed.cgArmM !== null ? Math.round(weighed.cgArmM * 10_000) / 10_000 : null
+    // The check, its weigh-in and its audit row in one statement; then the entry's tile on an
+    // open day (pushed to the boards after commit).
+    const gridCheckId = randomUUID()
+    const writing = trx.with('g', trx('grid_checks')
+      .insert({ ...columns, id: gridCheckId, answers: JSON.stringify(stored.answers), findings: JSON.stringify(findings) })
+      .returning(['received_at']))
     if (body.weighIn && weighed) {
-      await trx('weigh_ins').insert({
+      writing.with('w', trx('weigh_ins').insert({
         competition_id: competition.id,
         entry_id: entry.id,
         grid_check_id: gridCheckId,
@@ -310,13 +370,9 @@ export async function recordGridCheck(
         mass_kg: massKg,
         cg_arm_m: cgArmM,
         weighed_by: user.id,
-      })
+      }))
     }
-    // The check and its weigh-in are written; then the audit row and the entry's tile on an
-    // open day (pushed to the boards after commit). The tile reuses the reads above — the
-    // board's read of an accepted entry, unchanged since — unless this check brought a weigh-in
-    // (then the tile reads the dossier again, with the weigh-in where the stored order puts it).
-    await audit(trx, {
+    writing.with('a', trx('audit_log').insert(auditRow({
       actorUserId: user.id,
       competitionId: competition.id,
       action: 'grid-check.recorded',
@@ -331,20 +387,26 @@ export async function recordGridCheck(
         massKg,
         idempotencyKey: body.idempotencyKey,
       },
-    })
+    })))
+    const [row] = await writing.select('received_at').from('g') as { received_at: Date }[]
     if (open) {
+      // The tile reuses the reads above — the board's read of an accepted entry, unchanged
+      // since — with this check as the entry's latest when it is (see `withCheck`). A check
+      // that brought a weigh-in has the tile read the dossier again, with the weigh-in where
+      // the stored order puts it.
+      const check: CheckRow = { entry_id: entry.id, day: body.day, checked_at: body.checkedAt, outcome, answers: stored.answers, scrutineer_name: user.name }
       await refreshTiles(trx, competition.id, body.day, changes, {
         cause: 'grid-check',
         actorId: user.id,
         entryIds: [entry.id],
-        preloaded: body.weighIn ? undefined : { dossiers: loaded!, actions: actionRows },
+        preloaded: { dossiers: body.weighIn ? undefined : loaded!, actions: actionRows, inputs: withCheck(read.inputs, check) },
       })
     }
     // The check as stored, from what was written (one statement fewer while the lock is held).
     const gridCheck = toGridCheckRecord({
       ...columns,
       id: gridCheckId,
-      received_at: row.received_at,
+      received_at: row!.received_at,
       answers: stored.answers,
       findings,
       comp_id: entry.comp_id,

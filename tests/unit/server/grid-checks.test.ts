@@ -1,13 +1,14 @@
 // The pure parts of recording a grid check: the fingerprint a replay is compared by, the
 // outcome rule, the stored answers against the checklist, the day window, the stored row →
-// the record the API answers.
+// the record the API answers, the entry's tile inputs once the check is stored.
 import { describe, expect, it } from 'vitest'
 import { DEFAULT_CHECKLIST } from '../../../shared/constants/grid'
 import type { GridCheckBody } from '../../../shared/schemas/grid'
 import {
   canonicalJson, checkOutcome, gridCheckBodySha256, gridDayAllowed, initialsOf, storedAnswers, toGridCheckRecord, toGridCheckSummary, todayIn,
-  type GridCheckJoinedRow,
+  withCheck, type GridCheckJoinedRow,
 } from '../../../server/utils/grid-checks'
+import type { CheckRow, TileInputs } from '../../../server/utils/board'
 
 const body: GridCheckBody = {
   idempotencyKey: '0b6f1c1e-6a8e-4a43-9a57-2d4f1c9e7a10',
@@ -110,5 +111,28 @@ describe('the stored row → the API record', () => {
     expect(initialsOf('ada')).toBe('A')
     expect(initialsOf(' Tom Second Scrutineer ')).toBe('TS')
     expect(initialsOf('')).toBe('?')
+  })
+})
+
+describe('the tile’s inputs once a check is stored', () => {
+  const check = (entryId: string, checkedAt: string, outcome: 'pass' | 'fail' = 'pass'): CheckRow =>
+    ({ entry_id: entryId, day: '2027-05-03', checked_at: checkedAt, outcome, answers: [], scrutineer_name: 'Sam Scrutineer' })
+  // The latest stored check as the database reads it inside a JSON value: its text with an offset.
+  const stored = check('e1', '2027-05-03T08:15:00.5+00:00', 'fail')
+  const inputs: TileInputs = { checks: [stored, check('e2', '2027-05-03T07:00:00+00:00')], existing: [], entrants: [], class_orders: {}, seq: 41 }
+
+  it('puts a later check in place of the entry’s latest, and leaves the other entries’ checks', () => {
+    const later = check('e1', '2027-05-03T10:16:00+02:00')
+    expect(withCheck(inputs, later)).toEqual({ ...inputs, checks: [later, inputs.checks[1]] })
+  })
+
+  it('keeps the latest when the check stored now was made earlier (queued offline), and takes the first check of an entry', () => {
+    expect(withCheck(inputs, check('e1', '2027-05-03T08:15:00.499Z'))).toBe(inputs)
+    const first = check('e3', '2027-05-03T06:00:00Z')
+    expect(withCheck(inputs, first)!.checks).toEqual([...inputs.checks, first])
+  })
+
+  it('leaves the order to the stored rows when both were made at the same instant', () => {
+    expect(withCheck(inputs, check('e1', '2027-05-03T10:15:00.500+02:00'))).toBeUndefined()
   })
 })

@@ -118,3 +118,37 @@ describe('the whole day brought up to date', () => {
     expect(pushed.slice(sent).map(e => e.entryId)).toEqual([ids[2]])
   })
 })
+
+describe('checks of one glider arriving out of order', () => {
+  it('keep the later check on the tile when an earlier one arrives last, and change nothing on the board', async () => {
+    const id = await gridEntry(w)
+    const later = checkBody(id, { checkedAt: new Date(Date.now() - 60_000).toISOString() })
+    expect((await w.scrutineer.client.post(`${w.base}/grid-checks`, later)).status).toBe(201)
+    const before = await board()
+    const sent = pushed.length
+    // Made ten minutes before, queued offline on another phone: a failed item.
+    const earlier = checkBody(id, { checkedAt: new Date(Date.now() - 600_000).toISOString(), answers: [{ itemId: 'antennas', result: 'fail' }] })
+    const res = await w.scrutineer2.client.post(`${w.base}/grid-checks`, earlier)
+    expect(res.status).toBe(201)
+    expect(res.body.gridCheck.outcome).toBe('fail')
+    const after = await board()
+    expect(tileOf(after, id)).toEqual(tileOf(before, id))
+    expect(tileOf(after, id)).toMatchObject({ readiness: 'ready', lastCheck: { at: later.checkedAt, outcome: 'pass', initials: 'SS' } })
+    expect(after.seq).toBe(before.seq)
+    // A later change is pushed and numbered next: no number was taken by the check that changed nothing.
+    const next = checkBody(id)
+    expect((await w.scrutineer.client.post(`${w.base}/grid-checks`, next)).status).toBe(201)
+    const event = await pushedTile(id, before.seq)
+    expect(event.seq).toBe(before.seq + 1)
+    expect(pushed.slice(sent).map(e => e.entryId)).toEqual([id])
+  })
+
+  it('show the one received last when two checks were made at the same instant', async () => {
+    const id = await gridEntry(w)
+    const at = new Date(Date.now() - 30_000).toISOString()
+    expect((await w.scrutineer.client.post(`${w.base}/grid-checks`, checkBody(id, { checkedAt: at }))).status).toBe(201)
+    const second = await w.scrutineer2.client.post(`${w.base}/grid-checks`, checkBody(id, { checkedAt: at, answers: [{ itemId: 'antennas', result: 'fail' }] }))
+    expect(second.status).toBe(201)
+    expect(tileOf(await board(), id)).toMatchObject({ readiness: 'held', lastCheck: { at, outcome: 'fail', initials: 'TS' } })
+  })
+})
