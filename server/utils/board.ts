@@ -357,14 +357,14 @@ export async function refreshTiles(
       class_order: p.classOrder,
       comp_id: p.body.compId,
     }))
-    const merged = ['seq', 'readiness', 'tile', 'findings', 'updated_at', 'shown', 'class_order', 'comp_id']
+    const upsert = (i === 0 ? trx.with('taken', takeSeqSql(trx, competitionId, count)) : trx.queryBuilder())
+      .insert(rows).into('board_tiles').onConflict(['competition_id', 'day', 'entry_id'])
+      .merge(['seq', 'readiness', 'tile', 'findings', 'updated_at', 'shown', 'class_order', 'comp_id'])
     if (i > 0) {
-      await trx('board_tiles').insert(rows).onConflict(['competition_id', 'day', 'entry_id']).merge(merged)
+      await upsert
       continue
     }
-    const [taken] = await trx.with('taken', takeSeqSql(trx, competitionId, count))
-      .insert(rows).into('board_tiles').onConflict(['competition_id', 'day', 'entry_id']).merge(merged)
-      .returning(trx.raw('(select seq from taken) as seq')) as { seq: string | number }[]
+    const [taken] = await upsert.returning(trx.raw('(select seq from taken) as seq')) as { seq: string | number }[]
     if (Number(taken!.seq) !== Number(lastSeq) + count) throw new Error(`The board of ${competitionId} was numbered by another writer while locked.`)
   }
   if (!written.length) seq = await takeSeq(trx, competitionId, count)
