@@ -1,5 +1,5 @@
 import type { Role } from '#shared/constants/roles'
-import type { PageAuth } from '~/composables/pageAccess'
+import type { PageAuth } from '~/utils/pageAccess'
 
 // Page access contract (definePageMeta):
 //   auth: 'user' (default) — signed in, else /sign-in?next=<this page>

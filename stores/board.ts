@@ -3,8 +3,8 @@ import type { BoardClass, BoardDay, BoardDayEvent, BoardJoinAck, BoardSeq, Board
 import { hasGap, offer, rebase, sequenceState } from '#shared/utils/board-sequence'
 import { countTiles, emptyCounts, type ReadinessCounts } from '#shared/utils/board-tile'
 import { compareCompIds } from '#shared/utils/comp-id-order'
-import { connectBoardSocket, type BoardSocketConnector, type BoardSocketHandle, type BoardSocketHandlers } from '~/composables/boardSocket'
-import { createBoardChime, type BoardChime } from '~/composables/boardChime'
+import { connectBoardSocket, type BoardSocketConnector, type BoardSocketHandle, type BoardSocketHandlers } from '~/utils/boardSocket'
+import { createBoardChime, type BoardChime } from '~/utils/boardChime'
 
 // The live readiness board of one competition, as the wall screen and the director's laptop
 // show it. The server is the record: a snapshot (GET …/board) at a sequence number, then the

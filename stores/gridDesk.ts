@@ -4,8 +4,8 @@ import type { GridCheckResult, GridPack, GridPackEntry } from '#shared/types/api
 import {
   attentionItems, dismissAttention, enqueueCheck, idbQueueStorage, loadPack, queuedChecks, saveScan, savePack, scansOf,
   type LocalScan,
-} from '~/composables/gridDeskDb'
-import { drainQueue, type AttentionItem, type QueuedCheck } from '~/composables/gridQueue'
+} from '~/utils/gridDeskDb'
+import { drainQueue, type AttentionItem, type QueuedCheck } from '~/utils/gridQueue'
 
 // The scrutineer's desk on the phone: the day's pack (kept in IndexedDB, so the grid works
 // without signal), the outbox of grid checks and its sync state. Client state shared by the

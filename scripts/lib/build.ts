@@ -18,6 +18,7 @@ const BUILD_INPUTS = [
   'components',
   'layouts',
   'composables',
+  'utils',
   'middleware',
   'plugins',
   'stores',

@@ -15,7 +15,8 @@ import type { CompetitionPaymentRow, CompetitionPaymentsResponse, EntryPaymentsR
 import type { PaymentsQuery } from '#shared/schemas/payment'
 import { paymentEventSchema } from '#shared/schemas/payment'
 import { MESSAGES } from '#shared/constants/messages'
-import { formatMoney, PAYMENT_MAIL_TEMPLATES } from '#shared/constants/payments'
+import { PAYMENT_MAIL_TEMPLATES } from '#shared/constants/payments'
+import { formatMoney } from '#shared/utils/money'
 
 let client: { key: string, stripe: Stripe } | undefined
 

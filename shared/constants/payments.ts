@@ -13,13 +13,3 @@ export const PAYMENT_ROW_STATUS_LABELS: Record<PaymentRowStatus, string> = {
 
 /** Mail templates this area queues. */
 export const PAYMENT_MAIL_TEMPLATES = { received: 'payment-received', refund: 'payment-refund' } as const
-
-/** Formats an amount in minor units, e.g. 30000 EUR → "€300.00". */
-export function formatMoney(minor: number, currency: string, locale = 'en-GB'): string {
-  try {
-    return new Intl.NumberFormat(locale, { style: 'currency', currency }).format(minor / 100)
-  }
-  catch {
-    return `${(minor / 100).toFixed(2)} ${currency}`
-  }
-}

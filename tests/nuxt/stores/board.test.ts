@@ -4,7 +4,8 @@ import { setResponseStatus } from 'h3'
 import { createPinia, setActivePinia } from 'pinia'
 import type { Readiness } from '#shared/engine'
 import type { BoardSnapshot, BoardTile, BoardTileEvent } from '#shared/types/api-board'
-import type { BoardSocketConnector, BoardSocketHandlers } from '~/composables/boardSocket'
+import { BOARD_TIMING } from '~/stores/board'
+import type { BoardSocketConnector, BoardSocketHandlers } from '~/utils/boardSocket'
 
 // The board store against a mocked API (snapshot and sequence routes) and a stand-in socket:
 // the tests drive the handlers the store hands to its socket, exactly as socket.io would call them.
@@ -98,6 +99,7 @@ beforeEach(() => {
 })
 afterEach(() => {
   useBoardStore().close()
+  vi.useRealTimers()
   while (cleanups.length) cleanups.pop()!()
 })
 
@@ -111,7 +113,22 @@ async function openLive(timing = {}) {
   return { board, socket }
 }
 
-const sleep = (ms: number) => new Promise(r => setTimeout(r, ms))
+/**
+ * The store's own timers (gap wait, sequence poll, retries) on a clock the test moves, so a
+ * test knows they have fired; promises, and the mocked API, still run for real.
+ */
+function fakeClock() {
+  vi.useFakeTimers({ toFake: ['setTimeout', 'clearTimeout', 'setInterval', 'clearInterval'] })
+}
+
+/**
+ * Nothing fetched the board: no fetch is under way (a fetch marks the board loading at once)
+ * and the server was not asked (one that already ran would have counted).
+ */
+function expectNotFetched(board: ReturnType<typeof useBoardStore>, snapshotsBefore: number) {
+  expect(board.loading).toBe(false)
+  expect(server.snapshots).toBe(snapshotsBefore)
+}
 
 describe('board store', () => {
   it('shows the snapshot, then goes live once it has joined and fetched the board after joining', async () => {
@@ -157,6 +174,7 @@ describe('board store', () => {
   })
 
   it('ignores a change it already shows (at or below its sequence number)', async () => {
+    fakeClock()
     const { board, socket } = await openLive()
     const snapshotsBefore = server.snapshots
     socket.on.tile({ competitionId: cid, day: DAY, seq: 10, cause: 'grid-check', entryId: 'e2', tile: tile('e2', '22', 'held', 10) })
@@ -165,8 +183,9 @@ describe('board store', () => {
     expect(board.tiles.e1!.readiness).toBe('unchecked')
     expect(board.seq).toBe(10)
     expect(board.changed).toEqual([])
-    await sleep(700)
-    expect(server.snapshots).toBe(snapshotsBefore)
+    // Past the wait for a missing change: no gap was seen, so nothing is fetched.
+    await vi.advanceTimersByTimeAsync(BOARD_TIMING.gapWaitMs + 200)
+    expectNotFetched(board, snapshotsBefore)
   })
 
   it('waits for a missing change, then fetches the board when the gap does not fill', async () => {
@@ -188,19 +207,21 @@ describe('board store', () => {
   })
 
   it('applies a late change that fills the gap, in order, without fetching the board', async () => {
+    fakeClock()
     const { board, socket } = await openLive()
     const snapshotsBefore = server.snapshots
     const first = change(tile('e1', '11', 'caution', 0)) // 11
     const second = change(tile('e1', '11', 'ready', 0)) // 12
     socket.on.tile(second)
     expect(board.tiles.e1!.readiness).toBe('unchecked')
-    await sleep(100)
+    await vi.advanceTimersByTimeAsync(100)
     socket.on.tile(first)
     expect(board.seq).toBe(12)
     // Applied in sequence order: the later change wins.
     expect(board.tiles.e1!.readiness).toBe('ready')
-    await sleep(700)
-    expect(server.snapshots).toBe(snapshotsBefore)
+    // Past the time the gap would have been given: filled, it fetched nothing.
+    await vi.advanceTimersByTimeAsync(BOARD_TIMING.gapWaitMs + 200)
+    expectNotFetched(board, snapshotsBefore)
   })
 
   it('after a reconnect fetches the board again and shows what changed while away', async () => {
@@ -248,6 +269,7 @@ describe('board store', () => {
   })
 
   it('fetches the board again when a day is opened or closed', async () => {
+    fakeClock()
     const { board, socket } = await openLive()
     const snapshotsBefore = server.snapshots
     server.seq++
@@ -257,8 +279,8 @@ describe('board store', () => {
     expect(server.snapshots).toBe(snapshotsBefore + 1)
     // A day change it already shows (an old number) is not fetched again.
     socket.on.day({ competitionId: cid, seq: server.seq, day: server.day })
-    await sleep(50)
-    expect(server.snapshots).toBe(snapshotsBefore + 1)
+    await vi.advanceTimersByTimeAsync(BOARD_TIMING.gapWaitMs + 200)
+    expectNotFetched(board, snapshotsBefore + 1)
   })
 
   it('asks for the sequence number while live and fetches the board when the server is ahead', async () => {
@@ -318,11 +340,18 @@ describe('board store', () => {
   })
 
   it('stops the socket and its timers when closed', async () => {
-    const { board, socket } = await openLive({ seqPollMs: 30 })
+    fakeClock()
+    const { board, socket } = await openLive({ seqPollMs: 1_000 })
+    // The poll runs while the board is open…
+    const polled = server.seqChecks
+    await vi.advanceTimersByTimeAsync(1_000)
+    await vi.waitFor(() => expect(server.seqChecks).toBe(polled + 1))
     board.close()
     expect(socket.state.closed).toBe(true)
+    // …and no timer of the board is left once it is closed.
+    expect(vi.getTimerCount()).toBe(0)
     const checks = server.seqChecks
-    await sleep(120)
+    await vi.advanceTimersByTimeAsync(5_000)
     expect(server.seqChecks).toBe(checks)
     // A late event of the closed board changes nothing.
     socket.on.tile(change(tile('e1', '11', 'ready', 0)))

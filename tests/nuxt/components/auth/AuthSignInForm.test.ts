@@ -1,4 +1,4 @@
-import { afterEach, describe, expect, it } from 'vitest'
+import { afterEach, describe, expect, it, vi } from 'vitest'
 import { mountSuspended, registerEndpoint } from '@nuxt/test-utils/runtime'
 import { createError, setResponseHeader, setResponseStatus, type H3Event } from 'h3'
 import { flushPromises } from '@vue/test-utils'
@@ -101,7 +101,7 @@ describe('AuthSignInForm', () => {
   })
 
   it('marks the button busy while the request is out', async () => {
-    let release!: () => void
+    let release: (() => void) | undefined
     cleanups.push(registerEndpoint('/api/auth/login', {
       method: 'POST',
       handler: () => new Promise((resolve) => { release = () => resolve({ user: null }) }),
@@ -111,14 +111,14 @@ describe('AuthSignInForm', () => {
     await form.get('#sign-in-email').setValue('pilot@example.org')
     await form.get('#sign-in-password').setValue('some password')
     await form.get('form').trigger('submit')
-    await new Promise(r => setTimeout(r, 20))
+    // The request has reached the server, which holds it.
+    await vi.waitFor(() => expect(release).toBeDefined())
 
     const button = form.get('button[type="submit"]')
     expect(button.attributes('aria-busy')).toBe('true')
     expect(button.text()).toContain('Signing in…')
-    release()
-    await flushPromises()
-    await new Promise(r => setTimeout(r, 20))
-    expect(form.get('button[type="submit"]').attributes('aria-busy')).toBeUndefined()
+    release!()
+    await vi.waitFor(() => expect(form.get('button[type="submit"]').attributes('aria-busy')).toBeUndefined())
+    expect(form.get('button[type="submit"]').text()).not.toContain('Signing in…')
   })
 })

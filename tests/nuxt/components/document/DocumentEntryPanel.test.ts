@@ -1,4 +1,4 @@
-import { describe, expect, it } from 'vitest'
+import { describe, expect, it, vi } from 'vitest'
 import { flushPromises } from '@vue/test-utils'
 import { mountSuspended, registerEndpoint } from '@nuxt/test-utils/runtime'
 import { setResponseStatus } from 'h3'
@@ -61,11 +61,8 @@ describe('DocumentEntryPanel', () => {
     Object.defineProperty(input.element, 'files', { value: [file], configurable: true })
     await input.trigger('change')
     await panel.get('form').trigger('submit')
-    await flushPromises()
-    await new Promise(r => setTimeout(r, 50))
-    await flushPromises()
-    const fileError = panel.get('[id$="-file-error"]')
-    expect(fileError.text()).toContain('That file is not a PDF, JPEG or PNG.')
+    // The server's sentence, not the earlier "choose a file": the file went out and was refused.
+    await vi.waitFor(() => expect(panel.get('[id$="-file-error"]').text()).toContain('That file is not a PDF, JPEG or PNG.'))
     expect(input.attributes('aria-invalid')).toBe('true')
   })
 })

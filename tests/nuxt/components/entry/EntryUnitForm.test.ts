@@ -1,4 +1,4 @@
-import { afterEach, describe, expect, it } from 'vitest'
+import { afterEach, describe, expect, it, vi } from 'vitest'
 import { mountSuspended, registerEndpoint } from '@nuxt/test-utils/runtime'
 import { getQuery, setResponseStatus } from 'h3'
 import { flushPromises } from '@vue/test-utils'
@@ -9,7 +9,6 @@ afterEach(() => {
   while (cleanups.length) cleanups.pop()!()
 })
 const competitionId = '44444444-4444-4444-8444-444444444444'
-const wait = (ms: number) => new Promise(resolve => setTimeout(resolve, ms))
 
 describe('EntryUnitForm', () => {
   it('offers the firmware catalogue’s expiry for the typed model and version, and fills it in one click', async () => {
@@ -25,8 +24,8 @@ describe('EntryUnitForm', () => {
     expect(form.find('[data-testid="firmware-caution"]').exists()).toBe(true)
     await form.get('#unit-new-collision-warning-model').setValue('Example CW-2 Pro')
     await form.get('#unit-new-collision-warning-firmwareVersion').setValue('7.22')
-    await wait(500)
-    await flushPromises()
+    // Asked a moment after typing stops: wait for the offer to appear.
+    await vi.waitFor(() => expect(form.find('[data-testid="firmware-suggestion"]').exists()).toBe(true))
     const offer = form.get('[data-testid="firmware-suggestion"]')
     expect(offer.text()).toContain('31 March 2028')
     await offer.get('button').trigger('click')

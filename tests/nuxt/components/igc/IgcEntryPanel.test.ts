@@ -1,4 +1,4 @@
-import { describe, expect, it } from 'vitest'
+import { describe, expect, it, vi } from 'vitest'
 import { flushPromises } from '@vue/test-utils'
 import { mountSuspended, registerEndpoint } from '@nuxt/test-utils/runtime'
 import { setResponseStatus } from 'h3'
@@ -47,10 +47,7 @@ describe('IgcEntryPanel', () => {
     const input = form.get('input[type="file"]')
     Object.defineProperty(input.element, 'files', { value: [new File(['shopping list'], 'list.igc')], configurable: true })
     await form.trigger('submit')
-    await flushPromises()
-    await new Promise(r => setTimeout(r, 50))
-    await flushPromises()
-    expect(panel.get('[data-slot="u1"] .field-error').text()).toContain('This is not an IGC file: Missing A record (line 1).')
+    await vi.waitFor(() => expect(panel.get('[data-slot="u1"] .field-error').text()).toContain('This is not an IGC file: Missing A record (line 1).'))
     expect(input.attributes('aria-invalid')).toBe('true')
   })
 })

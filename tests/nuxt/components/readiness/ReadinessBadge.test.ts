@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { mountSuspended } from '@nuxt/test-utils/runtime'
 import ReadinessBadge from '~/components/readiness/ReadinessBadge.vue'
-import { READINESS_STATES } from '~/composables/readiness'
+import { READINESS_STATES } from '~/utils/readiness'
 
 describe('ReadinessBadge', () => {
   it.each([

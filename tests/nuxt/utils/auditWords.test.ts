@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { auditActionWords, auditDescription } from '~/composables/auditWords'
+import { auditActionWords, auditDescription } from '~/utils/auditWords'
 
 describe('audit words', () => {
   it('names known actions in words and shows an unknown one as stored', () => {

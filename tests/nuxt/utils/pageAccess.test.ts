@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import type { Role } from '#shared/constants/roles'
 import { MESSAGES } from '#shared/constants/messages'
-import { decidePageAccess, type PageAccessTarget, type PageViewer } from '~/composables/pageAccess'
+import { decidePageAccess, type PageAccessTarget, type PageViewer } from '~/utils/pageAccess'
 
 const competitionId = 'c1'
 const visitor: PageViewer = { user: null, rolesIn: () => [] }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { safeNextPath } from '~/composables/safeNextPath'
+import { safeNextPath } from '~/utils/safeNextPath'
 
 describe('safeNextPath', () => {
   it('follows same-site paths', () => {

@@ -2,7 +2,7 @@
 import { createHash } from 'node:crypto'
 import { describe, expect, it } from 'vitest'
 import type { GridPack } from '#shared/types/api-grid'
-import { formatShortCode, packEntryByCode, packEntryByToken, tagTokenOf, tokenHash } from '~/composables/gridTag'
+import { formatShortCode, packEntryByCode, packEntryByToken, tagTokenOf, tokenHash } from '~/utils/gridTag'
 
 const TOKEN = 'AbCdEfGhIjKlMnOpQrStUvWxYz0123456789-_abcde'
 

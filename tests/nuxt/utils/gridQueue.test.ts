@@ -1,7 +1,7 @@
 // The outbox of grid checks as pure logic over a storage in memory: oldest first, one at a
 // time, stop at a failure that may pass later, refusals kept for attention (never dropped).
 import { describe, expect, it } from 'vitest'
-import { classifySendFailure, drainQueue, type AttentionItem, type QueuedCheck, type QueueStorage } from '~/composables/gridQueue'
+import { classifySendFailure, drainQueue, type AttentionItem, type QueuedCheck, type QueueStorage } from '~/utils/gridQueue'
 
 function memoryStorage(items: QueuedCheck[]) {
   const queue = new Map(items.map(i => [i.idempotencyKey, i]))

@@ -1,6 +1,6 @@
+// Money in integer minor units: read from forms, shown to people.
 import { describe, expect, it } from 'vitest'
-import { formatMoney, fromMinorUnits, toMinorUnits } from '~/composables/money'
-import { entryExportUrl, entryTableQuery } from '~/composables/useEntryTable'
+import { formatMoney, fromMinorUnits, toMinorUnits } from '../../../../shared/utils/money'
 
 describe('money in forms', () => {
   it('reads major units into minor units, refusing what is not an amount', () => {
@@ -15,9 +15,8 @@ describe('money in forms', () => {
   })
 })
 
-describe('entries table addresses', () => {
-  it('keeps only set parameters, and the export drops paging', () => {
-    expect(entryTableQuery({ q: '', status: 'accepted', page: 2 })).toEqual({ status: 'accepted', page: '2' })
-    expect(entryExportUrl('c1', { q: 'kes', page: 3, pageSize: 25, sort: 'pilot' })).toBe('/api/competitions/c1/entries/export?q=kes&sort=pilot')
+describe('formatMoney', () => {
+  it('falls back to the amount and the code when the currency is not one Intl knows', () => {
+    expect(formatMoney(32050, 'XX')).toBe('320.50 XX')
   })
 })

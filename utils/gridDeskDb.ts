@@ -98,7 +98,7 @@ export async function scansOf(competitionId: string, day: string): Promise<Local
   return all.sort((a, b) => b.checkedAt.localeCompare(a.checkedAt))
 }
 
-/** The outbox as the pure queue logic (composables/gridQueue.ts) reads and writes it. */
+/** The outbox as the pure queue logic (utils/gridQueue.ts) reads and writes it. */
 export const idbQueueStorage: QueueStorage = {
   queued: queuedChecks,
   async update(item) {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { formatContestDates } from '~/composables/contestDates'
+import { formatContestDates } from '~/utils/contestDates'
 
 describe('formatContestDates', () => {
   it('shortens a range within one month', () => {
