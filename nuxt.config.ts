@@ -1,7 +1,15 @@
 // Gridmark — Nuxt configuration. The source folder is the project root (srcDir '.'),
 // so a stray file under app/ cannot silently move it.
+import { fileURLToPath } from 'node:url'
+
 export default defineNuxtConfig({
   srcDir: '.',
+
+  // The server's domain (server/domain/<area>/) is not auto-imported: its modules are
+  // imported by name through this alias (vitest.config.ts declares it too).
+  alias: {
+    '#domain': fileURLToPath(new URL('./server/domain', import.meta.url)),
+  },
   compatibilityDate: '2026-11-01',
   devtools: { enabled: false },
   telemetry: false,

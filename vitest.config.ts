@@ -2,8 +2,12 @@ import { fileURLToPath } from 'node:url'
 import { defineConfig } from 'vitest/config'
 import { defineVitestProject } from '@nuxt/test-utils/config'
 
-// The plain-node layers resolve Nuxt's `#shared` alias themselves.
-const alias = { '#shared': fileURLToPath(new URL('./shared', import.meta.url)) }
+// The plain-node layers resolve Nuxt's `#shared` and `#server` aliases and our `#domain` themselves.
+const alias = {
+  '#shared': fileURLToPath(new URL('./shared', import.meta.url)),
+  '#server': fileURLToPath(new URL('./server', import.meta.url)),
+  '#domain': fileURLToPath(new URL('./server/domain', import.meta.url)),
+}
 
 // Four layers, mirroring the source tree. e2e and browser share one built server and one set
 // of service fakes, started by scripts/test.ts against the throwaway database `npm test`

@@ -6,7 +6,7 @@
 import { createHash } from 'node:crypto'
 import type { Knex } from 'knex'
 import { SHORT_CODE_ALPHABET, SHORT_CODE_LENGTH } from '../shared/constants/grid'
-import { createTagToken, hashTagToken } from '../server/utils/tag-token'
+import { createTagToken, hashTagToken } from '../server/domain/tags/tag-token'
 
 /** A short code from the alphabet, the same for the same seed text. */
 export function demoShortCode(seed: string): string {

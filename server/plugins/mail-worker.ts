@@ -1,6 +1,9 @@
 // The outbox worker: every few seconds it sends the messages that are due and reschedules
 // failures with exponential backoff, so mail queued while SMTP is down goes out later.
-// Without an SMTP URL it says so once and leaves the mail queued.
+// Without an SMTP URL (it is read once, at start) it says so once and leaves the mail queued:
+// it does not poll the outbox at all.
+import { closeMailer, sendDueMail, useMailer } from '#domain/mail/transport'
+
 export default defineNitroPlugin((nitroApp) => {
   const config = useRuntimeConfig()
   const cfg = config.mailWorker
@@ -16,16 +19,15 @@ export default defineNitroPlugin((nitroApp) => {
   let stopped = false
   let timer: ReturnType<typeof setTimeout> | undefined
   let running: Promise<void> | undefined
-  let warnedNoSmtp = false
   let lastError = ''
 
+  if (!useMailer()) {
+    console.warn('[gridmark] no SMTP URL configured (NUXT_SMTP_URL): e-mail stays queued in the outbox')
+    return
+  }
+
   const tick = async () => {
-    const mailer = useMailer()
-    if (!mailer) {
-      if (!warnedNoSmtp) console.warn('[gridmark] no SMTP URL configured (NUXT_SMTP_URL): e-mail stays queued in the outbox')
-      warnedNoSmtp = true
-      return
-    }
+    const mailer = useMailer()!
     try {
       // Keep going while full batches come back, so a backlog drains quickly.
       for (;;) {

@@ -1,5 +1,7 @@
 // Runs the pre-event reminder job on a timer (runtime config reminders.intervalMs; 0 turns it
 // off, as the tests do — they trigger it through POST /api/admin/reminders/run).
+import { runReminders } from '#domain/mail/reminders'
+
 export default defineNitroPlugin((nitroApp) => {
   const intervalMs = Number(useRuntimeConfig().reminders.intervalMs) || 0
   if (intervalMs <= 0) return

@@ -18,6 +18,9 @@ import { STAFF_ROLES } from '#shared/constants/roles'
 import { MESSAGES } from '#shared/constants/messages'
 import { effectiveRoles } from '#shared/utils/access'
 import type { BoardJoinAck } from '#shared/types/api-board'
+import { rolesInCompetition } from '#domain/people/memberships'
+import { userOfSession } from '#domain/people/sessions'
+import { boardRoom, deliverLocally, type Delivery, entrantRoom, RELAY_EVENT, sessionRoom, setRealtime } from '#domain/realtime/realtime'
 
 /** What instances tell each other: changes to push to their own screens. */
 interface InterServerEvents {

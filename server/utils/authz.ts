@@ -1,11 +1,19 @@
-// The one authorization helper of every route: who is asking, and may they act in this
-// competition with one of these roles? The decision itself is shared/utils/access.ts.
+// The one place a route asks who is calling and whether they may act: signed in at all
+// (requireUser, requireAdmin), with a role in a competition (requireRole), on one entry
+// (requireEntryAccess), recording on the grid (requireGridRecorder), or naming a recorder of
+// the entry (requireEntryRecorder). The decisions are shared/utils/access.ts; the session
+// itself is the people area's (server/domain/people/sessions.ts).
 import type { H3Event } from 'h3'
 import type { User } from '#auth-utils'
-import type { Role } from '#shared/constants/roles'
-import type { CompetitionRow } from '#shared/types/rows'
+import { STAFF_ROLES, type Role } from '#shared/constants/roles'
+import type { CompetitionRow, EntryRow } from '#shared/types/rows'
 import { decideAccess } from '#shared/utils/access'
 import { MESSAGES } from '#shared/constants/messages'
+import { sessionUser, sessionUserIn } from '#domain/people/sessions'
+import { rolesInCompetition } from '#domain/people/memberships'
+import { findCompetitionEntry } from '#domain/entries/entries'
+import { isEntryRecorder } from '#domain/files/igc-files'
+import { httpError } from './errors'
 
 export interface CompetitionAccess {
   user: User
@@ -13,19 +21,84 @@ export interface CompetitionAccess {
   competition: CompetitionRow
 }
 
-export async function requireRole(
-  event: H3Event,
-  competitionId: string,
-  allowed: readonly Role[] | 'any',
-): Promise<CompetitionAccess> {
-  const { user, competition, rolesHeld } = await requireUserIn(event, competitionId)
-  const decision = decideAccess({ user, competitionExists: Boolean(competition), rolesHeld }, allowed)
-  if (!decision.allowed) throw httpError(decision.status, decision.message)
-  return { user, roles: decision.roles, competition: competition! }
+export interface EntryAccess extends CompetitionAccess {
+  entry: EntryRow
+  /** The caller is the entry's own entrant. */
+  isOwner: boolean
+  /** The caller holds a staff role (organiser, scrutineer, director; admins count as organisers). */
+  isStaff: boolean
+}
+
+/** The signed-in user, fresh from the database; 401 when there is none or it was revoked. */
+export function requireUser(event: H3Event): Promise<User> {
+  return sessionUser(event)
 }
 
 export async function requireAdmin(event: H3Event): Promise<User> {
   const user = await requireUser(event)
   if (!user.isAdmin) throw httpError(403, MESSAGES.adminRequired)
   return user
+}
+
+export async function requireRole(
+  event: H3Event,
+  competitionId: string,
+  allowed: readonly Role[] | 'any',
+): Promise<CompetitionAccess> {
+  const { user, competition, rolesHeld } = await sessionUserIn(event, competitionId)
+  const decision = decideAccess({ user, competitionExists: Boolean(competition), rolesHeld }, allowed)
+  if (!decision.allowed) throw httpError(decision.status, decision.message)
+  return { user, roles: decision.roles, competition: competition! }
+}
+
+/**
+ * Who may read or act on one entry, the access helper of every entry route: its own entrant,
+ * or the competition's staff. `who`: 'owner-or-staff' (read the dossier, upload for it),
+ * 'owner' (only its entrant, e.g. withdraw, pay), or a list of staff roles (e.g. ['organiser']
+ * to accept, ['organiser', 'scrutineer'] to review documents).
+ * Anyone else learns nothing: 404 as if the entry did not exist. A staff member without the
+ * listed role gets 403 naming it; an owner asking for a staff action also gets 403.
+ */
+export async function requireEntryAccess(
+  event: H3Event,
+  competitionId: string,
+  entryId: string,
+  who: 'owner-or-staff' | 'owner' | readonly Role[] = 'owner-or-staff',
+): Promise<EntryAccess> {
+  const access = await requireRole(event, competitionId, 'any')
+  const entry = await findCompetitionEntry(competitionId, entryId)
+  const isStaff = access.roles.some(r => STAFF_ROLES.includes(r))
+  const isOwner = Boolean(entry && entry.entrant_user_id === access.user.id)
+  if (!entry || (!isOwner && !isStaff)) throw httpError(404, MESSAGES.entryNotFound)
+
+  if (who === 'owner-or-staff') return { ...access, entry, isOwner, isStaff }
+  if (who === 'owner') {
+    if (!isOwner) throw httpError(403, MESSAGES.entrantOnly)
+    return { ...access, entry, isOwner, isStaff }
+  }
+  if (!access.roles.some(r => who.includes(r))) {
+    const names = who.map(r => r === 'director' ? 'contest director' : r).join(' or ')
+    throw httpError(403, MESSAGES.roleRequired(names))
+  }
+  return { ...access, entry, isOwner, isStaff }
+}
+
+/**
+ * Who may record a grid check: a scrutineer, director or organiser of the competition. A site
+ * administrator records only where they hold one of those roles themselves.
+ */
+export async function requireGridRecorder(event: H3Event, competitionId: string): Promise<CompetitionAccess> {
+  const access = await requireRole(event, competitionId, STAFF_ROLES)
+  if (access.user.isAdmin) {
+    const held = await rolesInCompetition(access.user.id, competitionId)
+    if (!held.some(r => STAFF_ROLES.includes(r))) throw httpError(403, MESSAGES.roleRequired('scrutineer, contest director or organiser'))
+  }
+  return access
+}
+
+/** 400 beside the unit field unless the unit is a flight recorder of this entry. */
+export async function requireEntryRecorder(entryId: string, unitId: string): Promise<void> {
+  if (!await isEntryRecorder(entryId, unitId)) {
+    throw httpError(400, MESSAGES.unitNotRecorder, { fieldErrors: { unitId: [MESSAGES.unitNotRecorder] }, formErrors: [] })
+  }
 }

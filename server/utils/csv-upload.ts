@@ -3,6 +3,8 @@
 import type { H3Event } from 'h3'
 import { FIRMWARE_CSV_MAX_BYTES, firmwareImportJsonSchema } from '#shared/schemas/firmware'
 import { MESSAGES } from '#shared/constants/messages'
+import { httpError } from './errors'
+import { validBody } from './validation'
 
 export async function readCatalogueUpload(event: H3Event): Promise<string> {
   const declared = Number(getRequestHeader(event, 'content-length') ?? 0)

@@ -2,7 +2,7 @@
 // → 400 with per-field messages, database constraint errors → 404/409, an unreachable
 // database → 503. Anything else is logged and becomes a plain 500.
 import { z } from 'zod'
-import { H3Error, createError, type H3Event, type EventHandlerRequest } from 'h3'
+import { H3Error, createError, defineEventHandler, type H3Event, type EventHandlerRequest } from 'h3'
 import { MESSAGES } from '#shared/constants/messages'
 
 const DB_DOWN_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE', '57P01', '57P02', '57P03', '08000', '08001', '08003', '08006'])
@@ -16,6 +16,11 @@ const STATUS_TEXT: Record<number, string> = {
 /** An error answer with its proper status text and a message for a person. */
 export function httpError(statusCode: number, message: string, data?: Record<string, unknown>): H3Error {
   return createError({ statusCode, statusMessage: STATUS_TEXT[statusCode] ?? 'Error', message, data })
+}
+
+/** A 400 with one field's message, shaped like a zod failure so forms show it beside the field. */
+export function fieldError(field: string, message: string): H3Error {
+  return httpError(400, `${MESSAGES.invalidInput} ${message}`, { fieldErrors: { [field]: [message] }, formErrors: [] })
 }
 
 export function validationError(error: z.ZodError): H3Error {

@@ -3,6 +3,7 @@
 import type { H3Event } from 'h3'
 import type { z } from 'zod'
 import { MESSAGES } from '#shared/constants/messages'
+import { httpError } from './errors'
 
 export interface Upload<F> {
   filename: string

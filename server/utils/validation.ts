@@ -3,6 +3,7 @@
 import type { H3Event } from 'h3'
 import type { z } from 'zod'
 import { MESSAGES } from '#shared/constants/messages'
+import { httpError } from './errors'
 
 // h3 wraps the ZodError a failed parse throws in a 400; errors.ts turns it into field messages.
 

@@ -43,3 +43,9 @@ export const CATALOGUE: readonly Check[] = [
 export function checkById(id: string): Check | undefined {
   return CATALOGUE.find(c => c.id === id)
 }
+
+/**
+ * The checks that read other entries (the field): a change to one entry's dossier can change
+ * their findings on the entries that share its competition ID or radio ID (see `fieldNeighbours`).
+ */
+export const FIELD_CHECK_IDS: readonly string[] = [competitionIdUnique.id, radioIdUnique.id]

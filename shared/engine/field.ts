@@ -53,3 +53,21 @@ export function fieldIndex(field: Field): FieldIndex {
 export function othersLabel(field: Field, ids: readonly string[], self: string): string[] {
   return ids.filter(id => id !== self).map(id => field.entries[id]?.compId ?? id).sort()
 }
+
+/**
+ * The other entries whose field checks read what the `changed` entries hold now: those that
+ * share a competition ID or a radio ID with them. (Entries that shared one before the change
+ * carry that check's finding; the caller finds those among the findings it stored.)
+ */
+export function fieldNeighbours(field: Field, changed: readonly string[]): string[] {
+  const { byCompId, byRadioId } = fieldIndex(field)
+  const out = new Set<string>()
+  for (const id of changed) {
+    const e = field.entries[id]
+    if (!e) continue
+    for (const other of byCompId.get(normaliseId(e.compId)) ?? []) out.add(other)
+    for (const r of e.radioIds) for (const other of byRadioId.get(normaliseRadioId(r)) ?? []) out.add(other)
+  }
+  for (const id of changed) out.delete(id)
+  return [...out].sort()
+}

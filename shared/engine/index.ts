@@ -1,9 +1,9 @@
 // The check engine's public face: import from here.
 export * from './types'
-export { CATALOGUE, checkById } from './catalogue'
+export { CATALOGUE, checkById, FIELD_CHECK_IDS } from './catalogue'
 export { evaluate, evaluateAll, blockingFirst } from './evaluate'
 export { readiness, applyWaivers, isHeld, type DirectorAction, type Readiness } from './readiness'
-export { buildField } from './field'
+export { buildField, fieldNeighbours } from './field'
 export { checkOutcome, withWeighIn } from './grid-check'
 export { weighIn, massAndArm, twoPointCg, lbToKg, inchToM } from './weigh-in'
 export { nNumberToAddress, isNNumber } from './nnumber'

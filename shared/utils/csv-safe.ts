@@ -6,3 +6,8 @@
 export function csvSafe(value: string): string {
   return /^[=+\-@\t\r]/.test(value) ? `'${value}` : value
 }
+
+/** Every cell of the rows as text, each made safe by `csvSafe`: what a CSV export writes. */
+export function csvSafeRows(rows: readonly (readonly unknown[])[]): string[][] {
+  return rows.map(r => r.map(v => csvSafe(String(v ?? ''))))
+}

@@ -79,8 +79,13 @@ export async function openToday(w: GridWorld): Promise<any> {
   return res.body.day
 }
 
-/** Events of no interest arrive too: wait a moment and return those of one name. */
-export async function eventsAfter(s: BoardSocket, name: string, ms = 300): Promise<any[]> {
-  await new Promise(r => setTimeout(r, ms))
+/**
+ * The events of one name this socket has received once everything the server pushed to it
+ * before now has arrived: a round trip on the same connection (a join the server refuses at
+ * once, changing nothing) is answered after every event it wrote to the socket before, so what
+ * is not here by then was never sent to it.
+ */
+export async function eventsSoFar(s: BoardSocket, name: string): Promise<any[]> {
+  await s.socket.timeout(5000).emitWithAck('board:join', { competitionId: 'fence' })
   return s.received.filter(([n]) => n === name).map(([, p]) => p)
 }

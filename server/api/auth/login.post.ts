@@ -2,6 +2,9 @@
 // 401 alike for an unknown address and a wrong password; 400 bad body; 429 when throttled.
 import { signInSchema } from '#shared/schemas/auth'
 import { MESSAGES } from '#shared/constants/messages'
+import { clearFailedLogins, guardLoginAttempt, recordFailedLogin } from '#domain/people/login-limit'
+import { startSession } from '#domain/people/sessions'
+import { findUserByEmail, toPublicUser, updatePasswordHash } from '#domain/people/users'
 
 // Verified against when the address is unknown, so both failures take the same time.
 let decoyHash: Promise<string> | undefined

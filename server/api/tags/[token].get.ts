@@ -3,6 +3,7 @@
 import { tagTokenParamsSchema } from '#shared/schemas/tags'
 import { MESSAGES } from '#shared/constants/messages'
 import type { ResolvedTag } from '#shared/types/api-tags'
+import { resolveTagToken } from '#domain/tags/tags'
 
 export default defineApiHandler(async (event): Promise<ResolvedTag> => {
   const { token } = await validTagToken(event)

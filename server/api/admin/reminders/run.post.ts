@@ -1,6 +1,7 @@
 // POST /api/admin/reminders/run — site administrators. Runs the pre-event reminder job now
 // (optionally as of a given time, for tests and dry runs of a schedule); returns what it queued.
 import { reminderRunBodySchema } from '#shared/schemas/invitation'
+import { runReminders } from '#domain/mail/reminders'
 
 export default defineApiHandler(async (event) => {
   await requireAdmin(event)

@@ -3,6 +3,7 @@
 import { competitionParamsSchema } from '#shared/schemas/params'
 import { auditQuerySchema } from '#shared/schemas/board'
 import type { AuditPage } from '#shared/types/api-board'
+import { auditPage } from '#domain/audit/audit-log'
 
 export default defineApiHandler(async (event): Promise<AuditPage> => {
   const { competitionId } = await validParams(event, competitionParamsSchema)

@@ -3,6 +3,7 @@
 import { STAFF_ROLES } from '#shared/constants/roles'
 import { competitionParamsSchema } from '#shared/schemas/params'
 import type { CompetitionFindings } from '#shared/types/api-findings'
+import { evaluateCompetition, summariseFindings } from '#domain/findings/findings'
 
 export default defineApiHandler(async (event): Promise<CompetitionFindings> => {
   const { competitionId } = await validParams(event, competitionParamsSchema)

@@ -2,6 +2,7 @@
 // of the set-up fields; the result must hold together as a whole. Answers the full set-up.
 import { competitionParamsSchema } from '#shared/schemas/params'
 import { competitionSetupPatchSchema } from '#shared/schemas/competition'
+import { updateCompetitionSetup } from '#domain/competitions/setup'
 
 export default defineApiHandler(async (event) => {
   const { competitionId } = await validParams(event, competitionParamsSchema)

@@ -2,6 +2,7 @@
 // sign-up or sign-in). Creates the membership; the link then stops working.
 import { invitationTokenParamsSchema } from '#shared/schemas/invitation'
 import { MESSAGES } from '#shared/constants/messages'
+import { acceptInvitation } from '#domain/people/invitations'
 
 export default defineApiHandler(async (event) => {
   const parsed = invitationTokenParamsSchema.safeParse(getRouterParams(event, { decode: true }))

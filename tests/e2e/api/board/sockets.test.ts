@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { ApiClient } from '../../../support/api'
 import { closeTestDb, testDb } from '../../../support/db'
 import { checkBody, gridEntry, gridWorld, type GridWorld } from '../../../support/grid'
-import { boardSocket, eventsAfter, joinBoard, openToday, type BoardSocket } from '../../../support/board'
+import { boardSocket, eventsSoFar, joinBoard, openToday, type BoardSocket } from '../../../support/board'
 import { offer, rebase, sequenceState } from '#shared/utils/board-sequence'
 
 const baseUrl = inject('baseUrl')
@@ -83,14 +83,14 @@ describe('pushes', () => {
 
     expect((await b.scrutineer.client.post(`${b.base}/grid-checks`, checkBody(bEntry))).status).toBe(201)
     await sb.next('board:tile', e => e.entryId === bEntry)
-    const heardInA = (await eventsAfter(s, 'board:tile')).filter(e => e.competitionId === b.competitionId)
+    const heardInA = (await eventsSoFar(s, 'board:tile')).filter(e => e.competitionId === b.competitionId)
     expect(heardInA).toEqual([])
     // An outsider's socket joins nothing and hears nothing.
     const outsider = await connect(a.outsider.client)
     expect(await joinBoard(outsider, a.competitionId)).toMatchObject({ ok: false })
     expect((await a.scrutineer.client.post(`${a.base}/grid-checks`, checkBody(aOther))).status).toBe(201)
     await s.next('board:tile', e => e.entryId === aOther)
-    expect(await eventsAfter(outsider, 'board:tile', 100)).toEqual([])
+    expect(await eventsSoFar(outsider, 'board:tile')).toEqual([])
   })
 
   it('tells an entrant of their own entry only, never the whole board', async () => {
@@ -102,7 +102,7 @@ describe('pushes', () => {
     expect((await a.director.client.post(`${a.base}/entries/${aEntry}/hold`, { reason: 'Tow hook worn' })).status).toBe(201)
     const news = await mine.next('entry:readiness', e => e.entryId === aEntry)
     expect(news).toMatchObject({ competitionId: a.competitionId, entryId: aEntry, readiness: 'held', hold: { reason: 'Tow hook worn' } })
-    await eventsAfter(mine, 'entry:readiness', 200)
+    await Promise.all([eventsSoFar(mine, 'entry:readiness'), eventsSoFar(theirs, 'entry:readiness')])
     expect(theirs.received.filter(([n, e]) => n === 'entry:readiness' && e.entryId === aEntry)).toEqual([])
     expect(mine.received.filter(([n]) => n.startsWith('board:'))).toEqual([])
     expect(theirs.received.filter(([n]) => n.startsWith('board:'))).toEqual([])

@@ -4,7 +4,7 @@
 // (documents, IGC files, the seeded problems, entries in every state) and against a
 // competition with grid checks and weigh-ins on two days.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { loadCompetitionDossiers, type CompetitionDossiers, type DossierScope } from '../../../../server/utils/findings'
+import { loadCompetitionDossiers, type CompetitionDossiers, type DossierScope } from '#domain/read-model/dossiers'
 import { DEMO_COMPETITION } from '../../../../seeds/demo-data'
 import { closeTestDb, testDb } from '../../../support/db'
 import { checkBody, gridEntry, gridWorld, shiftDay, todayIn, type GridWorld } from '../../../support/grid'

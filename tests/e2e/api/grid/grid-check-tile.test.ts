@@ -2,8 +2,8 @@
 // A grid check on an open day brings its entry's tile along, in the check's own transaction:
 // the board (GET …/board) and the pushed tile show the check with the readiness it gave; a
 // weigh-in over the limit holds the tile; the board of the day asked for by date is the same
-// board. When the whole day is brought up to date after a dossier edit elsewhere, the tiles
-// the checks wrote stay as they are (no new number, nothing pushed again).
+// board. When the whole day is brought up to date after a change every dossier reads, the
+// tiles the checks wrote stay as they are (no new number, nothing pushed again).
 import { io, type Socket } from 'socket.io-client'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { closeTestDb, testDb } from '../../../support/db'
@@ -105,10 +105,11 @@ describe('the whole day brought up to date', () => {
   it('renumbers and pushes only the tile that changed, not the ones the checks wrote', async () => {
     const before = await board()
     const sent = pushed.length
-    // A firmware expiring during the contest (1–7 May 2027) on the third glider, then any write
-    // to the competition brings the open day up to date.
+    // A firmware expiring during the contest (1–7 May 2027) on the third glider, written behind
+    // the app's back; then a change every dossier reads (a release added to the firmware
+    // catalogue) brings the whole open day up to date.
     await testDb()('units').where({ entry_id: ids[2], kind: 'collision-warning' }).update({ firmware_expires_on: '2027-05-03' })
-    expect((await w.organiser.client.post(`${w.base}/classes`, { code: 'open' })).status).toBe(201)
+    expect((await w.organiser.client.post(`${w.base}/firmware`, { unitFamily: 'Tile Cup Family', version: '1.0', expiresOn: '2030-01-31' })).status).toBe(201)
     const changed = await pushedTile(ids[2]!, before.seq)
     expect(changed).toMatchObject({ cause: 'dossier' })
     expect(changed.tile.headline).toMatchObject({ kind: 'finding', checkId: 'firmware.valid-through-contest', severity: 'blocking' })

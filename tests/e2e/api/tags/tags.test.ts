@@ -7,7 +7,7 @@ import { ApiClient, signedUpClient } from '../../../support/api'
 import { closeTestDb, createClass, createCompetition, createEntry, testDb } from '../../../support/db'
 import { auditRows, entriesWorld, type EntriesWorld } from '../../../support/entries'
 import { DEMO_COMPETITION, DEMO_PASSWORD } from '../../../../seeds/demo-data'
-import { createTagToken, tagTokenFromNonce } from '../../../../server/utils/tag-token'
+import { createTagToken, tagTokenFromNonce } from '#domain/tags/tag-token'
 import { SHORT_CODE_ALPHABET } from '../../../../shared/constants/grid'
 import { MESSAGES } from '../../../../shared/constants/messages'
 

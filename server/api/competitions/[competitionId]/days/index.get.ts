@@ -3,6 +3,7 @@
 import { STAFF_ROLES } from '#shared/constants/roles'
 import { competitionParamsSchema } from '#shared/schemas/params'
 import type { DayList } from '#shared/types/api-board'
+import { dayList } from '#domain/board/days'
 
 export default defineApiHandler(async (event): Promise<DayList> => {
   const { competitionId } = await validParams(event, competitionParamsSchema)

@@ -3,12 +3,12 @@
 import { competitionParamsSchema } from '#shared/schemas/params'
 import { dayOpenBodySchema } from '#shared/schemas/board'
 import type { BoardDay } from '#shared/types/api-board'
+import { openDay } from '#domain/board/days'
 
 export default defineApiHandler(async (event): Promise<{ day: BoardDay, created: boolean }> => {
   const { competitionId } = await validParams(event, competitionParamsSchema)
   const body = await validBody(event, dayOpenBodySchema)
   const access = await requireRole(event, competitionId, ['director'])
-  event.context.boardHandled = true
   const result = await openDay(access, body)
   setResponseStatus(event, result.created ? 201 : 200)
   return result

@@ -3,6 +3,7 @@
 // clears an optional one. Answers the new dossier; 409 on a taken competition ID.
 import { entryParamsSchema, entryPatchSchema } from '#shared/schemas/entry'
 import type { EntryDossier } from '#shared/types/api-entries'
+import { loadDossier, updateEntry } from '#domain/entries/entries'
 
 export default defineApiHandler(async (event): Promise<EntryDossier> => {
   const { competitionId, entryId } = await validParams(event, entryParamsSchema)

@@ -2,6 +2,7 @@
 // rows under the same filters and sort, as a CSV download (cells safe from formula injection).
 import { competitionParamsSchema } from '#shared/schemas/params'
 import { entryTableFilterSchema } from '#shared/schemas/entry-table'
+import { entryTableCsv } from '#domain/entries/entry-table'
 
 export default defineApiHandler(async (event) => {
   const { competitionId } = await validParams(event, competitionParamsSchema)

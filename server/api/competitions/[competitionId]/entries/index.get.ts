@@ -4,6 +4,7 @@ import { STAFF_ROLES } from '#shared/constants/roles'
 import { competitionParamsSchema } from '#shared/schemas/params'
 import { entryTableQuerySchema } from '#shared/schemas/entry-table'
 import type { EntryTableResponse } from '#shared/types/setup'
+import { entryTablePage } from '#domain/entries/entry-table'
 
 export default defineApiHandler(async (event): Promise<EntryTableResponse> => {
   const { competitionId } = await validParams(event, competitionParamsSchema)

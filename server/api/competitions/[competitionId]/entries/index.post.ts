@@ -2,6 +2,7 @@
 // with an entry in draft (and makes the caller its entrant). 201 {id}; 409 on a taken competition ID.
 import { competitionParamsSchema } from '#shared/schemas/params'
 import { entryBodySchema } from '#shared/schemas/entry'
+import { createEntry } from '#domain/entries/entries'
 
 export default defineApiHandler(async (event) => {
   const { competitionId } = await validParams(event, competitionParamsSchema)

@@ -1,5 +1,6 @@
 // DELETE /api/competitions/:competitionId/firmware/:releaseId — organisers. 204.
 import { firmwareParamsSchema } from '#shared/schemas/firmware'
+import { deleteFirmwareRelease } from '#domain/competitions/firmware-catalogue'
 
 export default defineApiHandler(async (event) => {
   const { competitionId, releaseId } = await validParams(event, firmwareParamsSchema)

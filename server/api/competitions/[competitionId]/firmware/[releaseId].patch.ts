@@ -1,6 +1,7 @@
 // PATCH /api/competitions/:competitionId/firmware/:releaseId — organisers. Changes a
 // release's family, version or expiry date; answers the release.
 import { firmwareParamsSchema, firmwareReleasePatchSchema } from '#shared/schemas/firmware'
+import { updateFirmwareRelease } from '#domain/competitions/firmware-catalogue'
 
 export default defineApiHandler(async (event) => {
   const { competitionId, releaseId } = await validParams(event, firmwareParamsSchema)

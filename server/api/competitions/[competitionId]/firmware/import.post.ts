@@ -3,6 +3,7 @@
 // nothing: 400 lists each bad line by number; otherwise upserts and answers {added, updated, total}.
 import { competitionParamsSchema } from '#shared/schemas/params'
 import type { FirmwareImportResult } from '#shared/types/setup'
+import { importFirmwareCsv } from '#domain/competitions/firmware-catalogue'
 
 export default defineApiHandler(async (event): Promise<FirmwareImportResult> => {
   const { competitionId } = await validParams(event, competitionParamsSchema)

@@ -3,6 +3,7 @@
 import { STAFF_ROLES } from '#shared/constants/roles'
 import { competitionParamsSchema } from '#shared/schemas/params'
 import type { FirmwareCatalogueResponse } from '#shared/types/setup'
+import { listFirmwareReleases } from '#domain/competitions/firmware-catalogue'
 
 export default defineApiHandler(async (event): Promise<FirmwareCatalogueResponse> => {
   const { competitionId } = await validParams(event, competitionParamsSchema)

@@ -2,6 +2,7 @@
 // {unitFamily, version, expiresOn}; 201 with it, 409 when that family and version are listed.
 import { competitionParamsSchema } from '#shared/schemas/params'
 import { firmwareReleaseSchema } from '#shared/schemas/firmware'
+import { addFirmwareRelease } from '#domain/competitions/firmware-catalogue'
 
 export default defineApiHandler(async (event) => {
   const { competitionId } = await validParams(event, competitionParamsSchema)

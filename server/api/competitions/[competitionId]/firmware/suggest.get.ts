@@ -3,6 +3,7 @@
 import { competitionParamsSchema } from '#shared/schemas/params'
 import { firmwareSuggestQuerySchema } from '#shared/schemas/entry'
 import type { FirmwareSuggestion } from '#shared/types/api-entries'
+import { suggestFirmware } from '#domain/competitions/firmware-catalogue'
 
 export default defineApiHandler(async (event): Promise<FirmwareSuggestion> => {
   const { competitionId } = await validParams(event, competitionParamsSchema)

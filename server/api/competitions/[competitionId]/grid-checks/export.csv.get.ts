@@ -3,6 +3,7 @@
 import { STAFF_ROLES } from '#shared/constants/roles'
 import { competitionParamsSchema } from '#shared/schemas/params'
 import { gridLogExportQuerySchema } from '#shared/schemas/board'
+import { gridLogCsv } from '#domain/board/exports'
 
 export default defineApiHandler(async (event) => {
   const { competitionId } = await validParams(event, competitionParamsSchema)

@@ -4,6 +4,7 @@ import { STAFF_ROLES } from '#shared/constants/roles'
 import { competitionParamsSchema } from '#shared/schemas/params'
 import { gridDayQuerySchema } from '#shared/schemas/grid'
 import type { GridCheckList } from '#shared/types/api-grid'
+import { dayGridChecks } from '#domain/grid/grid-checks'
 
 export default defineApiHandler(async (event): Promise<GridCheckList> => {
   const { competitionId } = await validParams(event, competitionParamsSchema)

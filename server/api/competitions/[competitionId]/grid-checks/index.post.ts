@@ -3,12 +3,12 @@
 import { competitionParamsSchema } from '#shared/schemas/params'
 import { gridCheckBodySchema } from '#shared/schemas/grid'
 import type { GridCheckResult } from '#shared/types/api-grid'
+import { recordGridCheck } from '#domain/grid/grid-checks'
 
 export default defineApiHandler(async (event): Promise<GridCheckResult> => {
   const { competitionId } = await validParams(event, competitionParamsSchema)
   const body = await validBody(event, gridCheckBodySchema)
   const { user, competition } = await requireGridRecorder(event, competitionId)
-  event.context.boardHandled = true
   const result = await recordGridCheck(competition, user, body)
   setResponseStatus(event, result.replayed ? 200 : 201)
   return result

@@ -5,6 +5,7 @@ import { MESSAGES } from '#shared/constants/messages'
 import { competitionParamsSchema } from '#shared/schemas/params'
 import { gridPackQuerySchema } from '#shared/schemas/grid'
 import type { GridPack } from '#shared/types/api-grid'
+import { gridPack } from '#domain/grid/grid-pack'
 
 export default defineApiHandler(async (event): Promise<GridPack> => {
   const { competitionId } = await validParams(event, competitionParamsSchema)

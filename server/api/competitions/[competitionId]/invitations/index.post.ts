@@ -2,6 +2,7 @@
 // Invites an e-mail address to a role; the invitation e-mail is queued in the same transaction.
 import { competitionParamsSchema } from '#shared/schemas/params'
 import { invitationBodySchema } from '#shared/schemas/invitation'
+import { createInvitation } from '#domain/people/invitations'
 
 export default defineApiHandler(async (event) => {
   const { competitionId } = await validParams(event, competitionParamsSchema)

@@ -1,6 +1,7 @@
 // DELETE /api/competitions/:competitionId/memberships/:membershipId — organisers (and site
 // administrators). Removes one role of one person; the last organiser cannot be removed.
 import { membershipParamsSchema } from '#shared/schemas/invitation'
+import { removeMembership } from '#domain/people/invitations'
 
 export default defineApiHandler(async (event) => {
   const { competitionId, membershipId } = await validParams(event, membershipParamsSchema)

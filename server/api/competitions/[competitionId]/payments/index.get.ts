@@ -2,6 +2,7 @@
 // Every card payment of the competition with its entry, and the totals collected and refunded.
 import { competitionParamsSchema } from '#shared/schemas/params'
 import { paymentsQuerySchema } from '#shared/schemas/payment'
+import { competitionPayments } from '#domain/payments/payments'
 
 export default defineApiHandler(async (event) => {
   const { competitionId } = await validParams(event, competitionParamsSchema)

@@ -3,6 +3,7 @@
 import { competitionParamsSchema } from '#shared/schemas/params'
 import { tagSelectionSchema } from '#shared/schemas/tags'
 import type { TagList } from '#shared/types/api-tags'
+import { issueTags } from '#domain/tags/tags'
 
 export default defineApiHandler(async (event): Promise<TagList> => {
   const { competitionId } = await validParams(event, competitionParamsSchema)

@@ -4,6 +4,7 @@ import { STAFF_ROLES } from '#shared/constants/roles'
 import { entryParamsSchema } from '#shared/schemas/params'
 import { boardQuerySchema } from '#shared/schemas/board'
 import type { BoardEntryDetail } from '#shared/types/api-board'
+import { boardEntryDetail } from '#domain/board/director'
 
 export default defineApiHandler(async (event): Promise<BoardEntryDetail> => {
   const { competitionId, entryId } = await validParams(event, entryParamsSchema)

@@ -1,6 +1,7 @@
 // POST /api/competitions/:competitionId/documents/:documentId/review — scrutineers and organisers.
 // { decision: 'accept' } or { decision: 'reject', reason }; a rejection e-mails the entrant.
 import { competitionDocumentParamsSchema, reviewBodySchema } from '#shared/schemas/files'
+import { reviewDocument } from '#domain/files/documents'
 
 export default defineApiHandler(async (event) => {
   const { competitionId, documentId } = await validParams(event, competitionDocumentParamsSchema)

@@ -2,6 +2,7 @@
 // accepted; the entrant is e-mailed.
 import { entryParamsSchema } from '#shared/schemas/entry'
 import type { EntryDossier } from '#shared/types/api-entries'
+import { decideEntry, loadDossier } from '#domain/entries/entries'
 
 export default defineApiHandler(async (event): Promise<EntryDossier> => {
   const { competitionId, entryId } = await validParams(event, entryParamsSchema)

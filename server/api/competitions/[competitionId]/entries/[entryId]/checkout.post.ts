@@ -2,6 +2,7 @@
 // Opens a card payment for the fee due and answers the payment page's address { url, paymentId }.
 import { entryParamsSchema } from '#shared/schemas/params'
 import { emptyBodySchema } from '#shared/schemas/payment'
+import { startCheckout } from '#domain/payments/payments'
 
 export default defineApiHandler(async (event) => {
   const { competitionId, entryId } = await validParams(event, entryParamsSchema)

@@ -2,6 +2,7 @@
 // competition's staff. The entry's grid checks, newest day and check first (GridCheckList).
 import { entryParamsSchema } from '#shared/schemas/entry'
 import type { GridCheckList } from '#shared/types/api-grid'
+import { entryGridChecks } from '#domain/grid/grid-checks'
 
 export default defineApiHandler(async (event): Promise<GridCheckList> => {
   const { competitionId, entryId } = await validParams(event, entryParamsSchema)

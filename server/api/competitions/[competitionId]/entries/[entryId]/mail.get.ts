@@ -2,6 +2,7 @@
 // sent or still waiting in the outbox. The organiser only.
 import { entryParamsSchema } from '#shared/schemas/entry'
 import type { EntryMailResponse } from '#shared/types/api-mail'
+import { entryMailLog } from '#domain/mail/outbox'
 
 export default defineApiHandler(async (event): Promise<EntryMailResponse> => {
   const { competitionId, entryId } = await validParams(event, entryParamsSchema)

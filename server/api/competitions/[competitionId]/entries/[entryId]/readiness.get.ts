@@ -2,6 +2,7 @@
 // staff. The entry on the open day's board: readiness, why, the director's hold, the last check.
 import { entryParamsSchema } from '#shared/schemas/params'
 import type { EntryDayReadiness } from '#shared/types/api-board'
+import { entryDayReadiness } from '#domain/board/snapshot'
 
 export default defineApiHandler(async (event): Promise<EntryDayReadiness> => {
   const { competitionId, entryId } = await validParams(event, entryParamsSchema)

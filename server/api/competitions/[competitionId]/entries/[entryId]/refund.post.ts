@@ -2,6 +2,7 @@
 // Refunds the card payment of a withdrawn entry in full; answers the payment as refunded.
 import { entryParamsSchema } from '#shared/schemas/params'
 import { emptyBodySchema } from '#shared/schemas/payment'
+import { refundEntry } from '#domain/payments/payments'
 
 export default defineApiHandler(async (event) => {
   const { competitionId, entryId } = await validParams(event, entryParamsSchema)

@@ -2,6 +2,7 @@
 // {reason}. submitted → rejected; the entrant is e-mailed the reason and may submit again.
 import { entryParamsSchema, entryRejectSchema } from '#shared/schemas/entry'
 import type { EntryDossier } from '#shared/types/api-entries'
+import { decideEntry, loadDossier } from '#domain/entries/entries'
 
 export default defineApiHandler(async (event): Promise<EntryDossier> => {
   const { competitionId, entryId } = await validParams(event, entryParamsSchema)

@@ -4,12 +4,12 @@
 import { entryParamsSchema } from '#shared/schemas/params'
 import { waiverBodySchema } from '#shared/schemas/board'
 import type { DirectorActionResult } from '#shared/types/api-board'
+import { waiveFinding } from '#domain/board/director'
 
 export default defineApiHandler(async (event): Promise<DirectorActionResult> => {
   const { competitionId, entryId } = await validParams(event, entryParamsSchema)
   const body = await validBody(event, waiverBodySchema)
   const access = await requireRole(event, competitionId, ['director'])
-  event.context.boardHandled = true
   setResponseStatus(event, 201)
   return waiveFinding(access, entryId, body)
 })

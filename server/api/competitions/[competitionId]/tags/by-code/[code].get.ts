@@ -2,6 +2,7 @@
 // matter). Staff of the competition ('grid') or the entry's own entrant ('own'); others 404.
 import { shortCodeParamsSchema } from '#shared/schemas/tags'
 import type { ResolvedTag } from '#shared/types/api-tags'
+import { resolveShortCode } from '#domain/tags/tags'
 
 export default defineApiHandler(async (event): Promise<ResolvedTag> => {
   const { competitionId, code } = await validParams(event, shortCodeParamsSchema)

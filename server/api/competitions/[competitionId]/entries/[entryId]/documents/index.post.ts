@@ -3,6 +3,7 @@
 import { DOCUMENT_MAX_BYTES } from '#shared/constants/files'
 import { MESSAGES } from '#shared/constants/messages'
 import { documentUploadSchema, entryParamsSchema } from '#shared/schemas/files'
+import { createDocument, detectDocumentType } from '#domain/files/documents'
 
 export default defineApiHandler(async (event) => {
   const { competitionId, entryId } = await validParams(event, entryParamsSchema)

@@ -3,6 +3,8 @@
 import { IGC_MAX_BYTES } from '#shared/constants/files'
 import { MESSAGES } from '#shared/constants/messages'
 import { entryParamsSchema, igcUploadSchema } from '#shared/schemas/files'
+import { createIgcFile, decodeIgcText } from '#domain/files/igc-files'
+import { parseIgc } from '#domain/files/igc-header'
 
 export default defineApiHandler(async (event) => {
   const { competitionId, entryId } = await validParams(event, entryParamsSchema)

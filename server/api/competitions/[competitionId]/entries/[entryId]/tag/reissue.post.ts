@@ -2,6 +2,7 @@
 // tag revoked (its sticker stops working) and a new one issued. The organiser.
 import { entryParamsSchema } from '#shared/schemas/params'
 import type { TagListEntry } from '#shared/types/api-tags'
+import { reissueTag } from '#domain/tags/tags'
 
 export default defineApiHandler(async (event): Promise<TagListEntry> => {
   const { competitionId, entryId } = await validParams(event, entryParamsSchema)

@@ -2,6 +2,7 @@
 // the current tag stops working, no new one is issued. The organiser.
 import { entryParamsSchema } from '#shared/schemas/params'
 import type { TagListEntry } from '#shared/types/api-tags'
+import { revokeTag } from '#domain/tags/tags'
 
 export default defineApiHandler(async (event): Promise<TagListEntry> => {
   const { competitionId, entryId } = await validParams(event, entryParamsSchema)

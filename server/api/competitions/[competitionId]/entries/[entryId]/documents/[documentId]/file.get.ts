@@ -2,6 +2,8 @@
 // The stored file, shown inline with its detected type; nosniff so a browser never guesses another.
 import { MESSAGES } from '#shared/constants/messages'
 import { entryDocumentParamsSchema } from '#shared/schemas/files'
+import { findEntryDocument } from '#domain/files/documents'
+import { readFile } from '#domain/files/storage'
 
 export default defineApiHandler(async (event) => {
   const { competitionId, entryId, documentId } = await validParams(event, entryDocumentParamsSchema)

@@ -2,6 +2,8 @@
 // The stored IGC file exactly as uploaded, as a plain-text download.
 import { MESSAGES } from '#shared/constants/messages'
 import { entryIgcParamsSchema } from '#shared/schemas/files'
+import { findEntryIgcFile } from '#domain/files/igc-files'
+import { readFile } from '#domain/files/storage'
 
 export default defineApiHandler(async (event) => {
   const { competitionId, entryId, igcFileId } = await validParams(event, entryIgcParamsSchema)

@@ -1,0 +1,142 @@
+// Reading the audit log: the organiser's and director's audit page (filter by day, entry,
+// actor and action; paged back by id) and an entry's timeline (every grid check, finding
+// change, hold, release and waiver, with who and when). The log itself is written by
+// `audit()` in the transaction of each change (audit.ts) and is append-only.
+import type { Knex } from 'knex'
+import type { IsoDate } from '#shared/engine'
+import { AUDIT_PAGE_SIZE, type AuditQuery } from '#shared/schemas/board'
+import type { AuditPage, AuditLogItem, EntryTimeline, TimelineItem, TimelineKind } from '#shared/types/api-board'
+import { READINESS_LABELS, type Readiness } from '#shared/constants/readiness'
+import { useDb } from '#server/utils/db'
+import { iso } from '#domain/read-model/values'
+
+export interface AuditJoinedRow {
+  id: string | number
+  at: Date
+  action: string
+  actor_user_id: string | null
+  actor_name: string | null
+  subject_type: string
+  subject_id: string | null
+  details: Record<string, unknown>
+  entry_id: string | null
+  comp_id: string | null
+}
+
+/** The entry an audit row speaks of: its subject, or the entry named in its details. */
+const ENTRY_OF_ROW = `coalesce(a.details->>'entryId', case when a.subject_type = 'entry' then a.subject_id end)`
+
+function auditQuery(db: Knex, competitionId: string): Knex.QueryBuilder {
+  return db('audit_log as a')
+    .leftJoin('users as u', 'u.id', 'a.actor_user_id')
+    .leftJoin('entries as e', j => j.on(db.raw(`e.id::text = ${ENTRY_OF_ROW}`)))
+    .where('a.competition_id', competitionId)
+    .select('a.id', 'a.at', 'a.action', 'a.actor_user_id', 'a.subject_type', 'a.subject_id', 'a.details', 'u.name as actor_name', 'e.id as entry_id', 'e.comp_id')
+}
+
+function forEntry(q: Knex.QueryBuilder, entryId: string) {
+  return q.where(w => w.whereRaw(`a.details->>'entryId' = ?`, [entryId]).orWhere(x => x.where('a.subject_type', 'entry').where('a.subject_id', entryId)))
+}
+
+export function toAuditRow(r: AuditJoinedRow): AuditLogItem {
+  return {
+    id: Number(r.id),
+    at: iso(r.at),
+    action: r.action,
+    actor: r.actor_user_id ? { id: r.actor_user_id, name: r.actor_name ?? 'Someone' } : null,
+    subjectType: r.subject_type,
+    subjectId: r.subject_id,
+    entry: r.entry_id ? { id: r.entry_id, compId: r.comp_id ?? '' } : null,
+    details: r.details ?? {},
+  }
+}
+
+/** A page of the competition's audit log, newest first, with the facets of its filters. */
+export async function auditPage(competition: { id: string, time_zone: string }, query: AuditQuery, db: Knex = useDb()): Promise<AuditPage> {
+  const limit = query.limit ?? AUDIT_PAGE_SIZE
+  const q = auditQuery(db, competition.id)
+  if (query.day) {
+    // The day of the event in the competition's time zone, or the contest day it was about.
+    const day = query.day
+    q.where(w => w.whereRaw(`(a.at at time zone ?)::date = ?::date`, [competition.time_zone, day]).orWhereRaw(`a.details->>'day' = ?`, [day]))
+  }
+  if (query.entryId) forEntry(q, query.entryId)
+  if (query.actorId) q.where('a.actor_user_id', query.actorId)
+  if (query.action) q.where('a.action', query.action)
+  if (query.before) q.where('a.id', '<', query.before)
+  const [rows, actors, actions] = await Promise.all([
+    q.orderBy('a.id', 'desc').limit(limit + 1) as Promise<AuditJoinedRow[]>,
+    db('audit_log as a').join('users as u', 'u.id', 'a.actor_user_id').where('a.competition_id', competition.id)
+      .distinct('u.id', 'u.name').orderBy('u.name') as Promise<{ id: string, name: string }[]>,
+    db('audit_log').where({ competition_id: competition.id }).distinct('action').orderBy('action') as Promise<{ action: string }[]>,
+  ])
+  const page = rows.slice(0, limit)
+  return {
+    rows: page.map(toAuditRow),
+    nextBefore: rows.length > limit ? Number(page[page.length - 1]!.id) : null,
+    actors: actors.map(a => ({ id: a.id, name: a.name })),
+    actions: actions.map(a => a.action),
+  }
+}
+
+// ---------------------------------------------------------------------------------------
+// An entry's timeline
+
+export const TIMELINE_ACTIONS: Record<string, TimelineKind> = {
+  'grid-check.recorded': 'grid-check',
+  'findings.changed': 'findings',
+  'director.hold': 'hold',
+  'director.release': 'release',
+  'director.waiver': 'waiver',
+}
+
+interface Change { checkId: string, severity: string, reason?: string }
+
+const word = (r: unknown) => (typeof r === 'string' && r in READINESS_LABELS ? READINESS_LABELS[r as Readiness] : String(r ?? ''))
+
+/** One line in words for a timeline row (pure; the details are what `audit()` stored). */
+export function timelineSummary(kind: TimelineKind, d: Record<string, unknown>): string {
+  switch (kind) {
+    case 'grid-check': {
+      const blocking = Array.isArray(d.blocking) && d.blocking.length ? ` — blocking: ${(d.blocking as string[]).join(', ')}` : ''
+      const mass = typeof d.massKg === 'number' ? `, weighed ${d.massKg} kg` : ''
+      return `Grid check: ${d.outcome === 'fail' ? 'failed' : 'passed'}${mass}; ${word(d.readiness).toLowerCase()}${blocking}`
+    }
+    case 'findings': {
+      const added = (d.added as Change[] | undefined) ?? []
+      const removed = (d.removed as Change[] | undefined) ?? []
+      const parts: string[] = []
+      if (added.length) parts.push(`new: ${added.map(c => `${c.checkId} (${c.severity})`).join(', ')}`)
+      if (removed.length) parts.push(`cleared: ${removed.map(c => `${c.checkId} (${c.severity})`).join(', ')}`)
+      const r = d.readiness as { from?: string, to?: string } | undefined
+      const moved = r && r.from !== r.to ? ` — ${word(r.from)} → ${word(r.to)}` : ''
+      return `Findings changed: ${parts.join('; ') || 'details only'}${moved}`
+    }
+    case 'hold': return `Held by the director: ${String(d.reason ?? '')}`
+    case 'release': return `Released by the director: ${String(d.reason ?? '')}`
+    case 'waiver': return `Waived ${String(d.checkId ?? '')} ${d.scope === 'competition' ? 'for the whole competition' : `for ${String(d.day ?? 'the day')}`}: ${String(d.reason ?? '')}`
+    case 'day': return String(d.day ?? '')
+  }
+}
+
+export function toTimelineItem(r: AuditJoinedRow): TimelineItem {
+  const kind = TIMELINE_ACTIONS[r.action] ?? 'day'
+  const details = r.details ?? {}
+  return {
+    id: String(r.id),
+    kind,
+    at: iso(r.at),
+    day: typeof details.day === 'string' ? details.day as IsoDate : null,
+    actor: r.actor_user_id ? { id: r.actor_user_id, name: r.actor_name ?? 'Someone' } : null,
+    summary: timelineSummary(kind, details),
+    details,
+  }
+}
+
+/** Every grid check, finding change, hold, release and waiver of one entry, newest first. */
+export async function entryTimeline(competitionId: string, entry: { id: string, comp_id: string }, db: Knex = useDb()): Promise<EntryTimeline> {
+  const rows = await forEntry(auditQuery(db, competitionId), entry.id)
+    .whereIn('a.action', Object.keys(TIMELINE_ACTIONS))
+    .orderBy('a.id', 'desc') as AuditJoinedRow[]
+  return { entryId: entry.id, compId: entry.comp_id, items: rows.map(toTimelineItem) }
+}

@@ -1,0 +1,215 @@
+// The contest director's desk: hold a glider (with a reason), release it (with a reason), and
+// waive one finding for the day or for the whole competition (with a reason). Each action is
+// a row of `director_actions` and a row of the audit log, changes the entry's tile in the same
+// transaction (pushed to the boards once committed), and a hold or release is e-mailed to the
+// entrant. The engine's `readiness` reads these actions: a hold wins over everything, a
+// release ends the day's hold, a waiver lifts only its own finding.
+import type { Knex } from 'knex'
+import { blockingFirst, evaluate, type IsoDate } from '#shared/engine'
+import { MESSAGES } from '#shared/constants/messages'
+import type { HoldBody, WaiverBody } from '#shared/schemas/board'
+import type { BoardEntryDetail, BoardFinding, DirectorActionRecord, DirectorActionResult } from '#shared/types/api-board'
+import type { DirectorActionRow } from '#shared/types/rows-board'
+import { activeHold } from '#shared/utils/board-tile'
+import { audit } from '#domain/audit/audit'
+import { enqueueMail } from '#domain/mail/outbox'
+import { renderMail } from '#domain/mail/templates'
+import { actionsQuery } from '#domain/read-model/day-inputs'
+import { loadCompetitionDossiers } from '#domain/read-model/dossiers'
+import type { CompetitionAccess } from '#server/utils/authz'
+import { useDb } from '#server/utils/db'
+import { httpError } from '#server/utils/errors'
+import { siteUrl } from '#server/utils/site-url'
+import { boardDayOf, boardTileOf } from './snapshot'
+import { refreshTiles, toTileAction } from './tiles'
+import { boardTransaction, lockBoard, openDate } from './transaction'
+import { iso } from '#domain/read-model/values'
+
+type ActionRowWithActor = DirectorActionRow & { actor_name: string, day: string | null }
+
+function actionQuery(db: Knex) {
+  return db('director_actions as a').join('users as u', 'u.id', 'a.actor_id')
+    .select('a.id', 'a.competition_id', 'a.entry_id', 'a.kind', 'a.check_id', 'a.unit_id', 'a.subject', 'a.reason', 'a.finding', 'a.actor_id', 'a.created_at',
+      'u.name as actor_name', 'a.day')
+}
+
+export function toDirectorActionRecord(r: ActionRowWithActor): DirectorActionRecord {
+  return {
+    id: r.id,
+    kind: r.kind,
+    day: r.day,
+    scope: r.kind === 'waiver' ? (r.day === null ? 'competition' : 'day') : null,
+    checkId: r.check_id,
+    unitId: r.unit_id,
+    subject: r.subject,
+    reason: r.reason,
+    finding: r.finding,
+    actor: { id: r.actor_id, name: r.actor_name },
+    at: iso(r.created_at),
+  }
+}
+
+/** The open day the action is for: the named one must be the open day; none named takes it. */
+async function actionDay(trx: Knex, competitionId: string, day: IsoDate | undefined): Promise<IsoDate> {
+  const open = await openDate(trx, competitionId)
+  if (!open) throw httpError(409, MESSAGES.noOpenDay)
+  if (day && day !== open) throw httpError(409, MESSAGES.dayNotOpen(day))
+  return open
+}
+
+async function boardEntry(trx: Knex, competitionId: string, entryId: string) {
+  const entry = await trx('entries as e').join('users as u', 'u.id', 'e.entrant_user_id')
+    .where({ 'e.id': entryId, 'e.competition_id': competitionId })
+    .first('e.id', 'e.comp_id', 'e.status', 'u.email as entrant_email', 'u.name as entrant_name')
+  if (!entry) throw httpError(404, MESSAGES.entryNotFound)
+  if (entry.status !== 'accepted') throw httpError(409, MESSAGES.entryNotOnBoard)
+  return entry as { id: string, comp_id: string, status: string, entrant_email: string, entrant_name: string }
+}
+
+async function dayActions(trx: Knex, competitionId: string, day: IsoDate, entryId: string) {
+  return (await actionsQuery(trx, competitionId, day, [entryId])).map(toTileAction)
+}
+
+/** Hold or release a glider for the open day. */
+export async function holdOrRelease(access: CompetitionAccess, entryId: string, kind: 'hold' | 'release', body: HoldBody): Promise<DirectorActionResult> {
+  const { competition, user } = access
+  return boardTransaction(async (trx, changes) => {
+    await lockBoard(trx, competition.id)
+    const day = await actionDay(trx, competition.id, body.day)
+    const entry = await boardEntry(trx, competition.id, entryId)
+    const held = activeHold(await dayActions(trx, competition.id, day, entryId), day)
+    if (kind === 'hold' && held) throw httpError(409, MESSAGES.alreadyHeld)
+    if (kind === 'release' && !held) throw httpError(409, MESSAGES.notHeld)
+
+    const [row] = await trx('director_actions').insert({
+      competition_id: competition.id, entry_id: entryId, kind, day, reason: body.reason, actor_id: user.id,
+    }).returning('id')
+    await audit(trx, {
+      actorUserId: user.id,
+      competitionId: competition.id,
+      action: `director.${kind}`,
+      subjectType: 'entry',
+      subjectId: entryId,
+      details: { entryId, day, reason: body.reason, actionId: row.id },
+    })
+    const tiles = await refreshTiles(trx, competition.id, day, changes, { cause: kind, actorId: user.id, entryIds: [entryId], quietHold: true })
+    const tile = tiles.get(entryId) ?? null
+    const mail = renderMail({
+      greeting: `Hello ${entry.entrant_name},`,
+      paragraphs: kind === 'hold'
+        ? [
+            `the contest director holds your glider ${entry.comp_id} on ${day} at ${competition.name}: it may not launch until released.`,
+            `The director’s reason: ${body.reason}`,
+            'Talk to the contest director or the scrutineers on the grid. Where the fix touches hardware (firmware, antennas, ballast), follow the manufacturer’s instructions and the competition’s rules.',
+          ]
+        : [
+            `the contest director released your glider ${entry.comp_id} on ${day} at ${competition.name}.`,
+            `The director’s reason: ${body.reason}`,
+            tile && tile.readiness === 'held'
+              ? `It is still held by a finding: ${tile.headline?.text ?? 'see your entry'}.`
+              : 'It may launch once it is ready on the grid.',
+          ],
+      action: { label: 'Open your entry', url: `${siteUrl()}/competitions/${competition.id}/entries/${entryId}` },
+    })
+    await enqueueMail(trx, {
+      to: entry.entrant_email,
+      subject: `${entry.comp_id} ${kind === 'hold' ? 'is held' : 'is released'} on ${day} — ${competition.name}`,
+      text: mail.text,
+      html: mail.html,
+      template: kind === 'hold' ? 'director-hold' : 'director-release',
+      competitionId: competition.id,
+      entryId,
+    })
+    const record = await actionQuery(trx).where('a.id', row.id).first() as ActionRowWithActor
+    return { action: toDirectorActionRecord(record), tile }
+  })
+}
+
+/** Waive one open finding of an entry, for the open day or for the whole competition. */
+export async function waiveFinding(access: CompetitionAccess, entryId: string, body: WaiverBody): Promise<DirectorActionResult> {
+  const { competition, user } = access
+  return boardTransaction(async (trx, changes) => {
+    await lockBoard(trx, competition.id)
+    const open = await openDate(trx, competition.id)
+    const day = body.scope === 'day' ? await actionDay(trx, competition.id, body.day) : null
+    await boardEntry(trx, competition.id, entryId)
+
+    // The finding must stand now (on the open day, if any): a waiver names what it lifts.
+    const evalDay: IsoDate | undefined = day ?? open ?? undefined
+    const loaded = await loadCompetitionDossiers(competition.id, { entryIds: [entryId], day: evalDay }, trx)
+    const dossier = loaded?.dossiers[0]
+    const findings = loaded?.competition && dossier ? evaluate(dossier, loaded.competition, loaded.field, evalDay) : []
+    // Unit and subject narrow the choice when given; the waiver stores those of the finding found.
+    const finding = findings.find(f => f.checkId === body.checkId
+      && (body.unitId === undefined || f.unitId === body.unitId)
+      && (body.subject === undefined || f.subject === body.subject))
+    if (!finding) throw httpError(409, MESSAGES.findingNotFound)
+
+    const [row] = await trx('director_actions').insert({
+      competition_id: competition.id,
+      entry_id: entryId,
+      kind: 'waiver',
+      day,
+      check_id: finding.checkId,
+      unit_id: finding.unitId ?? null,
+      subject: finding.subject ?? null,
+      reason: body.reason,
+      finding: JSON.stringify({ severity: finding.severity, reason: finding.reason }),
+      actor_id: user.id,
+    }).returning('id')
+    await audit(trx, {
+      actorUserId: user.id,
+      competitionId: competition.id,
+      action: 'director.waiver',
+      subjectType: 'entry',
+      subjectId: entryId,
+      details: { entryId, day, scope: body.scope, checkId: finding.checkId, unitId: finding.unitId ?? null, subject: finding.subject ?? null, severity: finding.severity, finding: finding.reason, reason: body.reason, actionId: row.id },
+    })
+    let tile = null
+    if (open) {
+      const tiles = await refreshTiles(trx, competition.id, open, changes, { cause: 'waiver', actorId: user.id, entryIds: [entryId] })
+      tile = tiles.get(entryId) ?? null
+    }
+    const record = await actionQuery(trx).where('a.id', row.id).first() as ActionRowWithActor
+    return { action: toDirectorActionRecord(record), tile }
+  })
+}
+
+/**
+ * One entry on the board of a day (the open day, else the latest): its tile, every finding
+ * the engine gives now with the waiver that lifts it, and the director's actions of the day
+ * and of the whole competition.
+ */
+export async function boardEntryDetail(access: CompetitionAccess, entryId: string, day?: IsoDate, db: Knex = useDb()): Promise<BoardEntryDetail> {
+  const { competition } = access
+  const entry = await db('entries').where({ id: entryId, competition_id: competition.id }).first('id')
+  if (!entry) throw httpError(404, MESSAGES.entryNotFound)
+  const shown = await boardDayOf(competition.id, day, db)
+  const evalDay = shown?.day
+  const [loaded, tile, actionRows] = await Promise.all([
+    loadCompetitionDossiers(competition.id, { entryIds: [entryId], day: evalDay }, db),
+    evalDay ? boardTileOf(competition.id, evalDay, entryId, db) : Promise.resolve(null),
+    (() => {
+      const q = actionQuery(db).where({ 'a.competition_id': competition.id, 'a.entry_id': entryId }).orderBy([{ column: 'a.created_at' }, { column: 'a.id' }])
+      if (evalDay) q.where(w => w.where('a.day', evalDay).orWhereNull('a.day'))
+      return q
+    })() as Promise<ActionRowWithActor[]>,
+  ])
+  const dossier = loaded?.dossiers[0]
+  const findings = loaded?.competition && dossier ? blockingFirst(evaluate(dossier, loaded.competition, loaded.field, evalDay)) : []
+  const actions = actionRows.map(toDirectorActionRecord)
+  const waivers = actions.filter(a => a.kind === 'waiver')
+  const withWaivers: BoardFinding[] = findings.map((f) => {
+    const w = waivers.findLast(a => a.checkId === f.checkId
+      && (a.unitId === null || a.unitId === (f.unitId ?? null))
+      && (a.subject === null || a.subject === (f.subject ?? null)))
+    return { ...f, waiver: w ? { id: w.id, scope: w.scope!, reason: w.reason, by: w.actor.name, at: w.at } : null }
+  })
+  return {
+    day: shown,
+    tile,
+    findings: withWaivers,
+    actions,
+    canDirect: access.roles.includes('director') && shown?.status === 'open',
+  }
+}

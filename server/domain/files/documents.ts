@@ -1,0 +1,197 @@
+// Documents of an entry: upload (file first, then rows; see file-store.ts), the list with
+// history, the scrutineers' review queue and their decision. Routes call these; the entry
+// or competition access is decided before, by requireEntryAccess / requireRole.
+import type { Knex } from 'knex'
+import { fileTypeFromBuffer } from 'file-type'
+import type { DocumentKind } from '#shared/constants/entries'
+import { DOCUMENT_KIND_LABELS } from '#shared/constants/entries'
+import { DOCUMENT_MEDIA_TYPES, type DocumentMediaType } from '#shared/constants/files'
+import { MESSAGES } from '#shared/constants/messages'
+import type { DocumentRow } from '#shared/types/rows'
+import type { DocumentListResponse, DocumentQueueResponse, DocumentView, QueueDocumentView } from '#shared/types/files'
+import type { ReviewBody } from '#shared/schemas/files'
+import { audit } from '#domain/audit/audit'
+import { dossierChanged } from '#domain/board/dossier-changed'
+import { enqueueMail } from '#domain/mail/outbox'
+import { useDb } from '#server/utils/db'
+import { httpError } from '#server/utils/errors'
+import { newStorageKey, sha256Hex, storeThenCommit } from './storage'
+import { iso } from '#domain/read-model/values'
+
+type DocumentSelect = DocumentRow & { expires_on_text: string, uploaded_by_name: string, reviewed_by_name: string | null }
+
+function selectDocuments(db: Knex) {
+  return db('documents as d')
+    .leftJoin('users as up', 'up.id', 'd.uploaded_by')
+    .leftJoin('users as rv', 'rv.id', 'd.reviewed_by')
+    .select('d.*', 'd.expires_on as expires_on_text', 'up.name as uploaded_by_name', 'rv.name as reviewed_by_name')
+}
+
+function toView(r: DocumentSelect): DocumentView {
+  return {
+    id: r.id,
+    entryId: r.entry_id,
+    kind: r.kind,
+    originalFilename: r.original_filename,
+    mediaType: r.media_type,
+    sizeBytes: r.size_bytes,
+    sha256: r.sha256,
+    expiresOn: r.expires_on_text,
+    status: r.status,
+    reviewReason: r.review_reason,
+    reviewedAt: iso(r.reviewed_at),
+    reviewedByName: r.reviewed_by_name,
+    uploadedAt: iso(r.uploaded_at),
+    uploadedByName: r.uploaded_by_name ?? '',
+    superseded: r.superseded,
+    replacedBy: r.replaced_by,
+  }
+}
+
+/** The media type from the file's first bytes, or null when it is none we accept. */
+export async function detectDocumentType(data: Uint8Array): Promise<DocumentMediaType | null> {
+  const found = await fileTypeFromBuffer(data)
+  return found && (DOCUMENT_MEDIA_TYPES as readonly string[]).includes(found.mime) ? found.mime as DocumentMediaType : null
+}
+
+export async function listDocuments(entryId: string): Promise<DocumentListResponse> {
+  const rows = await selectDocuments(useDb()).where('d.entry_id', entryId).orderBy('d.uploaded_at', 'desc').orderBy('d.id') as DocumentSelect[]
+  const views = rows.map(toView)
+  const order = Object.keys(DOCUMENT_KIND_LABELS)
+  return {
+    current: views.filter(v => !v.superseded).sort((a, b) => order.indexOf(a.kind) - order.indexOf(b.kind)),
+    history: views.filter(v => v.superseded),
+  }
+}
+
+export async function findEntryDocument(entryId: string, documentId: string): Promise<DocumentRow | undefined> {
+  return useDb()<DocumentRow>('documents').where({ id: documentId, entry_id: entryId }).first()
+}
+
+export async function createDocument(input: {
+  competitionId: string
+  entryId: string
+  actorUserId: string
+  kind: DocumentKind
+  expiresOn: string
+  filename: string
+  mediaType: DocumentMediaType
+  data: Uint8Array
+}): Promise<DocumentView> {
+  const key = newStorageKey('documents', input.entryId)
+  const sha256 = sha256Hex(input.data)
+  const id = await storeThenCommit(key, input.data, () => useDb().transaction(async (trx) => {
+    // Supersede the current one of this kind first: one current document per kind (index).
+    const previous = await trx('documents')
+      .where({ entry_id: input.entryId, kind: input.kind, superseded: false })
+      .update({ superseded: true })
+      .returning('id') as { id: string }[]
+    const [row] = await trx('documents').insert({
+      entry_id: input.entryId,
+      competition_id: input.competitionId,
+      kind: input.kind,
+      original_filename: input.filename,
+      media_type: input.mediaType,
+      size_bytes: input.data.byteLength,
+      sha256,
+      storage_key: key,
+      expires_on: input.expiresOn,
+      uploaded_by: input.actorUserId,
+    }).returning('id') as { id: string }[]
+    if (previous.length) {
+      await trx('documents').whereIn('id', previous.map(p => p.id)).update({ replaced_by: row!.id })
+    }
+    await audit(trx, {
+      actorUserId: input.actorUserId,
+      competitionId: input.competitionId,
+      action: previous.length ? 'document.replaced' : 'document.uploaded',
+      subjectType: 'document',
+      subjectId: row!.id,
+      details: { entryId: input.entryId, kind: input.kind, sha256, sizeBytes: input.data.byteLength, mediaType: input.mediaType, replaces: previous.map(p => p.id) },
+    })
+    await dossierChanged(trx, input.competitionId, [input.entryId], input.actorUserId)
+    return row!.id
+  }))
+  const created = await selectDocuments(useDb()).where('d.id', id).first() as DocumentSelect
+  return toView(created)
+}
+
+export async function documentQueue(competitionId: string): Promise<DocumentQueueResponse> {
+  const rows = await selectDocuments(useDb())
+    .join('entries as e', 'e.id', 'd.entry_id')
+    .select('e.comp_id', 'e.pilot_name', 'e.glider_type', 'e.registration')
+    .where({ 'd.competition_id': competitionId, 'd.status': 'pending', 'd.superseded': false })
+    .orderBy('d.uploaded_at', 'asc')
+    .orderBy('d.id') as (DocumentSelect & { comp_id: string, pilot_name: string, glider_type: string, registration: string })[]
+  return {
+    documents: rows.map((r): QueueDocumentView => ({
+      ...toView(r),
+      compId: r.comp_id,
+      pilotName: r.pilot_name,
+      gliderType: r.glider_type,
+      registration: r.registration,
+    })),
+  }
+}
+
+export async function findCompetitionDocument(competitionId: string, documentId: string): Promise<DocumentRow | undefined> {
+  return useDb()<DocumentRow>('documents').where({ id: documentId, competition_id: competitionId }).first()
+}
+
+/** Accepts or rejects a current, pending document; a rejection e-mails the entrant. */
+export async function reviewDocument(input: {
+  competitionId: string
+  competitionName: string
+  documentId: string
+  actorUserId: string
+  body: ReviewBody
+}): Promise<DocumentView> {
+  await useDb().transaction(async (trx) => {
+    const doc = await trx<DocumentRow>('documents')
+      .where({ id: input.documentId, competition_id: input.competitionId })
+      .forUpdate()
+      .first()
+    if (!doc) throw httpError(404, MESSAGES.queueDocumentNotFound)
+    if (doc.status !== 'pending' || doc.superseded) throw httpError(409, MESSAGES.alreadyReviewed)
+    const accepted = input.body.decision === 'accept'
+    const reason = input.body.decision === 'reject' ? input.body.reason : null
+    await trx('documents').where({ id: doc.id }).update({
+      status: accepted ? 'accepted' : 'rejected',
+      review_reason: reason,
+      reviewed_by: input.actorUserId,
+      reviewed_at: trx.fn.now(),
+    })
+    await audit(trx, {
+      actorUserId: input.actorUserId,
+      competitionId: input.competitionId,
+      action: accepted ? 'document.accepted' : 'document.rejected',
+      subjectType: 'document',
+      subjectId: doc.id,
+      details: { entryId: doc.entry_id, kind: doc.kind, ...(reason ? { reason } : {}) },
+    })
+    if (!accepted) {
+      const entrant = await trx('entries as e').join('users as u', 'u.id', 'e.entrant_user_id')
+        .where('e.id', doc.entry_id).first('u.email', 'u.name', 'e.comp_id', 'e.pilot_name') as { email: string, name: string, comp_id: string }
+      const label = DOCUMENT_KIND_LABELS[doc.kind]
+      await enqueueMail(trx, {
+        to: entrant.email,
+        subject: `${label} not accepted — ${input.competitionName}`,
+        text: [
+          `Hello ${entrant.name},`,
+          '',
+          `A scrutineer of ${input.competitionName} could not accept the ${label.toLowerCase()} you uploaded for entry ${entrant.comp_id} (${doc.original_filename}).`,
+          '',
+          `Reason: ${reason}`,
+          '',
+          'Please upload a corrected document from your entry in Gridmark; it replaces the rejected one and goes back to the review queue.',
+        ].join('\n'),
+        template: 'document-rejected',
+        competitionId: input.competitionId,
+        entryId: doc.entry_id,
+      })
+    }
+    await dossierChanged(trx, input.competitionId, [doc.entry_id], input.actorUserId)
+  })
+  const row = await selectDocuments(useDb()).where('d.id', input.documentId).first() as DocumentSelect
+  return toView(row)
+}

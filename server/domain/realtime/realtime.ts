@@ -1,0 +1,59 @@
+// The socket.io server of this instance (created once by server/plugins/socket-io.ts) and the
+// rooms the board pushes to. Several instances share their events through PostgreSQL (the
+// adapter), so an emit here reaches screens connected to any instance.
+//   board:<competitionId>               staff of the competition: every tile, every day change
+//   entrant:<competitionId>:<userId>    an entrant: their own entries' readiness only
+//   session:<sessionId>                 every socket of one sign-in, closed at sign-out
+import type { Server } from 'socket.io'
+import type { BoardChanges } from './changes'
+
+let io: Server | null = null
+
+export function setRealtime(server: Server | null): void {
+  io = server
+}
+
+export function useRealtime(): Server | null {
+  return io
+}
+
+export const boardRoom = (competitionId: string) => `board:${competitionId}`
+export const entrantRoom = (competitionId: string, userId: string) => `entrant:${competitionId}:${userId}`
+export const sessionRoom = (sessionId: string) => `session:${sessionId}`
+
+export interface Delivery {
+  room: string
+  name: string
+  payload: object
+}
+
+/** The name other instances are told what to push under (server to server, never to screens). */
+export const RELAY_EVENT = 'gridmark:deliver'
+
+/** Pushes to this instance's own screens. */
+export function deliverLocally(deliveries: readonly Delivery[]): void {
+  if (!io) return
+  for (const d of deliveries) io.local.to(d.room).emit(d.name, d.payload)
+}
+
+/**
+ * Pushes what a committed transaction changed: board changes in sequence order, then entrants'
+ * news. This instance's screens get them at once; the other instances are told through the
+ * adapter and push to theirs (an ordinary broadcast would first wait for PostgreSQL to take
+ * the notification before reaching even the local screens).
+ */
+export function publishBoardChanges(changes: BoardChanges): void {
+  if (!io) return
+  const deliveries: Delivery[] = [
+    ...changes.days.map(e => ({ seq: e.seq, room: boardRoom(e.competitionId), name: 'board:day', payload: e as object })),
+    ...changes.tiles.map(e => ({ seq: e.seq, room: boardRoom(e.competitionId), name: 'board:tile', payload: e as object })),
+  ].sort((a, b) => a.seq - b.seq).map(({ room, name, payload }) => ({ room, name, payload }))
+  for (const n of changes.entrants) deliveries.push({ room: entrantRoom(n.event.competitionId, n.userId), name: 'entry:readiness', payload: n.event })
+  deliverLocally(deliveries)
+  io.serverSideEmit(RELAY_EVENT, deliveries)
+}
+
+/** Closes the live connections of one sign-in (on every instance). */
+export function disconnectSessionSockets(sessionId: string): void {
+  io?.in(sessionRoom(sessionId)).disconnectSockets(true)
+}
