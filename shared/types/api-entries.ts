@@ -92,7 +92,7 @@ export interface EntryDossier {
   igcFiles: DossierIgcFile[]
   payments: DossierPayment[]
   progress: EntryProgress
-  /** The check engine's findings, blocking first (shared/engine; server/utils/findings.ts). */
+  /** The check engine's findings, blocking first (shared/engine; server/domain/findings/findings.ts). */
   findings: Finding[]
   can: EntryPermissions
   /** The caller's roles in the competition (site administrators count as organisers). */

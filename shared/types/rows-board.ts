@@ -6,7 +6,7 @@ import type { BoardTile } from './api-board'
 
 export interface BoardDayRow {
   competition_id: string
-  /** YYYY-MM-DD (read with to_char) */
+  /** YYYY-MM-DD (a `date` column, read as its text by the type parser in knexfile.ts) */
   day: string
   kind: DayKind
   opened_at: Date

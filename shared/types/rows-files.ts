@@ -12,7 +12,7 @@ export interface DocumentRow {
   size_bytes: number
   sha256: string
   storage_key: string
-  /** YYYY-MM-DD (read with to_char) */
+  /** YYYY-MM-DD (a `date` column, read as its text by the type parser in knexfile.ts) */
   expires_on: string
   status: DocumentStatus
   review_reason: string | null

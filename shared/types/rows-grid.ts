@@ -14,7 +14,7 @@ export interface GridCheckRow {
   id: string
   competition_id: string
   entry_id: string
-  /** YYYY-MM-DD (read with to_char) */
+  /** YYYY-MM-DD (a `date` column, read as its text by the type parser in knexfile.ts) */
   day: string
   idempotency_key: string
   body_sha256: string
@@ -34,7 +34,7 @@ export interface WeighInRow {
   competition_id: string
   entry_id: string
   grid_check_id: string | null
-  /** YYYY-MM-DD (read with to_char) */
+  /** YYYY-MM-DD (a `date` column, read as its text by the type parser in knexfile.ts) */
   weighed_on: string
   units: WeighUnits
   readings: ScaleReading[]

@@ -2,7 +2,7 @@
 
 export interface CompetitionDayRow {
   competition_id: string
-  /** read as YYYY-MM-DD text (to_char) */
+  /** read as YYYY-MM-DD text (the type parser in knexfile.ts) */
   day: string
   kind: 'practice' | 'contest'
 }

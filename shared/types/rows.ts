@@ -121,7 +121,7 @@ export interface UnitRow {
   serial: string
   firmware_version: string | null
   radio_id: string | null
-  /** date columns read as YYYY-MM-DD text (to_char) */
+  /** date columns read as YYYY-MM-DD text (the type parser in knexfile.ts) */
   firmware_expires_on: string | null
   firmware_updated_on: string | null
   obstacle_db_version: string | null

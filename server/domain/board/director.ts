@@ -20,10 +20,10 @@ import type { CompetitionAccess } from '#server/utils/authz'
 import { useDb } from '#server/utils/db'
 import { httpError } from '#server/utils/errors'
 import { siteUrl } from '#server/utils/site-url'
+import { iso } from '#domain/read-model/values'
 import { boardDayOf, boardTileOf } from './snapshot'
 import { refreshTiles, toTileAction } from './tiles'
 import { boardTransaction, lockBoard, openDate } from './transaction'
-import { iso } from '#domain/read-model/values'
 
 type ActionRowWithActor = DirectorActionRow & { actor_name: string, day: string | null }
 

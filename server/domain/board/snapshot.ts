@@ -41,7 +41,6 @@ export function toBoardDay(r: Omit<BoardDayJoinedRow, 'opened_at' | 'closed_at'>
   }
 }
 
-
 /** The day the board shows: the one asked for, else the open day, else the latest opened. */
 export async function boardDayOf(competitionId: string, day: IsoDate | undefined, db: Knex = useDb()): Promise<BoardDay | null> {
   const q = dayQuery(db, competitionId)

@@ -16,10 +16,9 @@ import { renderMail } from '#domain/mail/templates'
 import type { BoardChanges } from '#domain/realtime/changes'
 import { loadCompetitionDossiers, type CompetitionDossiers } from '#domain/read-model/dossiers'
 import { actionsQuery, tileInputs, type BoardActionRow, type CheckRow, type EntrantRow, type TileInputs } from '#domain/read-model/day-inputs'
+import { iso } from '#domain/read-model/values'
 import { takeSeq, takeSeqSql } from './transaction'
 import { toBoardTile } from './snapshot'
-import { iso } from '#domain/read-model/values'
-
 
 export function toTileCheck(r: CheckRow): TileCheck {
   return {
@@ -46,8 +45,6 @@ export function toTileAction(r: BoardActionRow): TileAction {
   }
   return { kind: r.kind, day: r.day!, ...common }
 }
-
-
 
 function groupBy<T extends { entry_id: string }>(rows: T[]): Map<string, T[]> {
   const out = new Map<string, T[]>()
@@ -206,7 +203,6 @@ export async function refreshTiles(
   }
   return result
 }
-
 
 // ---------------------------------------------------------------------------------------
 // E-mail to the entrant

@@ -1,7 +1,7 @@
 // The staff entries table of a competition: sorting, filters, a case-insensitive search over
 // pilot name, registration and competition ID, offset paging; and the same list as CSV.
 // Indexes: migrations/20261203000500_entry_table_indexes.ts. The findings column and filter
-// come from evaluating the whole competition once per request (server/utils/findings.ts).
+// come from evaluating the whole competition once per request (server/domain/findings/findings.ts).
 import type { Knex } from 'knex'
 import { stringify } from 'csv-stringify/sync'
 import type { Finding } from '#shared/engine'

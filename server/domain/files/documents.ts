@@ -1,4 +1,4 @@
-// Documents of an entry: upload (file first, then rows; see file-store.ts), the list with
+// Documents of an entry: upload (file first, then rows; see storage.ts), the list with
 // history, the scrutineers' review queue and their decision. Routes call these; the entry
 // or competition access is decided before, by requireEntryAccess / requireRole.
 import type { Knex } from 'knex'
@@ -15,8 +15,8 @@ import { dossierChanged } from '#domain/board/dossier-changed'
 import { enqueueMail } from '#domain/mail/outbox'
 import { useDb } from '#server/utils/db'
 import { httpError } from '#server/utils/errors'
-import { newStorageKey, sha256Hex, storeThenCommit } from './storage'
 import { iso } from '#domain/read-model/values'
+import { newStorageKey, sha256Hex, storeThenCommit } from './storage'
 
 type DocumentSelect = DocumentRow & { expires_on_text: string, uploaded_by_name: string, reviewed_by_name: string | null }
 

@@ -4,12 +4,12 @@
 import type { Knex } from 'knex'
 import type { IgcFileRow } from '#shared/types/rows'
 import type { IgcFileListResponse, IgcFileView } from '#shared/types/files'
-import type { IgcHeader, IgcLineError } from './igc-header'
 import { audit } from '#domain/audit/audit'
 import { dossierChanged } from '#domain/board/dossier-changed'
 import { useDb } from '#server/utils/db'
-import { newStorageKey, sha256Hex, storeThenCommit } from './storage'
 import { iso } from '#domain/read-model/values'
+import type { IgcHeader, IgcLineError } from './igc-header'
+import { newStorageKey, sha256Hex, storeThenCommit } from './storage'
 
 type IgcSelect = IgcFileRow & { flight_date_text: string | null, uploaded_by_name: string }
 

@@ -19,7 +19,7 @@ import { auditRow } from '#domain/audit/audit'
 import { refreshTiles, toTileAction } from '#domain/board/tiles'
 import { boardLockKey, boardTransaction } from '#domain/board/transaction'
 import { actionsQuery, type BoardActionRow, type CheckRow, latestGridCheckIds, type TileInputs, tileInputsStatement } from '#domain/read-model/day-inputs'
-import { type CompetitionDossiers, dossiersOf, type DossierSqlRow, dossierStatement } from '#domain/read-model/dossiers'
+import { type CompetitionDossiers, type DossierPartRow, dossiersOf, dossierStatement } from '#domain/read-model/dossiers'
 import { iso, num } from '#domain/read-model/values'
 import { useDb } from '#server/utils/db'
 import { fieldError, httpError } from '#server/utils/errors'
@@ -202,23 +202,25 @@ interface GridCheckInputs {
 async function gridCheckInputs(trx: Knex.Transaction, competitionId: string, body: GridCheckBody): Promise<GridCheckInputs> {
   const dossier = dossierStatement(trx, competitionId, { entryIds: [body.entryId], day: body.day })
   const tile = tileInputsStatement(trx, competitionId, body.day, [body.entryId])
-  const { rows: [row] } = await trx.raw(`select d.*, t.*,
-      (select json_build_object('id', x.id, 'body_sha256', x.body_sha256) from grid_checks x where x.idempotency_key = :idempotencyKey) as earlier,
-      exists (select 1 from board_days b where b.competition_id = :competitionId and b.day = :day and b.closed_at is null) as open,
-      (select coalesce(json_agg(a order by a.created_at, a.id), '[]') from :actions as a) as actions
-    from (${dossier.sql}) as d, (${tile.sql}) as t`, {
+  // The dossier's rows, and one row of the grid check's own: [earlier, open, actions, inputs].
+  const { rows } = await trx.raw(`${dossier.sql}
+    union all select 'grid-check', 0, json_build_array(
+      (select json_build_object('id', x.id, 'body_sha256', x.body_sha256) from grid_checks x where x.idempotency_key = :idempotencyKey),
+      exists (select 1 from board_days b where b.competition_id = :competitionId and b.day = :day and b.closed_at is null),
+      (select coalesce(json_agg(a order by a.created_at, a.id), '[]') from :actions as a),
+      (select row_to_json(t) from (${tile.sql}) as t))`, {
     ...dossier.bindings,
     ...tile.bindings,
     idempotencyKey: body.idempotencyKey,
     actions: actionsQuery(trx, competitionId, body.day, [body.entryId]),
-  }) as { rows: (DossierSqlRow & TileInputs & { earlier: GridCheckInputs['earlier'], open: boolean, actions: BoardActionRow[] })[] }
-  const { checks, existing, entrants, class_orders, seq } = row!
+  }) as { rows: DossierPartRow[] }
+  const own = rows.find(r => r.part === 'grid-check')!.r as [GridCheckInputs['earlier'], boolean, BoardActionRow[], TileInputs]
   return {
-    earlier: row!.earlier,
-    loaded: dossiersOf(row),
-    actionRows: row!.actions,
-    open: row!.open,
-    inputs: { checks, existing, entrants, class_orders, seq },
+    earlier: own[0],
+    loaded: dossiersOf(rows),
+    actionRows: own[2],
+    open: own[1],
+    inputs: own[3],
   }
 }
 
@@ -247,7 +249,7 @@ export async function recordGridCheck(
   const sha = gridCheckBodySha256(body, competition.id, user.id)
   return boardTransaction(async (trx, changes) => {
     // One sender at a time per key — a second copy of the check waits here, then finds the
-    // first — and one writer at a time on the competition's board (board.ts), as a new check
+    // first — and one writer at a time on the competition's board (transaction.ts), as a new check
     // changes it: both locks in one round trip, the key's first (no other writer takes a key's
     // lock, so the order cannot deadlock; a replay holds the board's lock for a moment).
     // Every round trip from here to the commit keeps the other phones waiting: few statements.

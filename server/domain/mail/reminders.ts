@@ -1,6 +1,6 @@
 // The pre-event reminder: N days (competition setting reminderDaysBefore, default 14) before
 // the first contest day, one e-mail per submitted or accepted entry listing what is still open:
-// the check engine's findings (server/utils/findings.ts), with fix hints and cautions.
+// the check engine's findings (server/domain/findings/findings.ts), with fix hints and cautions.
 // mail_reminders keeps it to exactly once per entry, however often the job runs.
 import type { ReminderRunResult } from '#shared/types/api-mail'
 import { reminderOpenItems } from '#shared/utils/reminder-items'

@@ -61,7 +61,6 @@ export function actionsQuery(db: Knex, competitionId: string, day: IsoDate, entr
   return q
 }
 
-
 export type ExistingTileRow = Pick<BoardTileRow, 'entry_id' | 'readiness' | 'tile' | 'findings' | 'class_order'> & { seq: string | number, updated_at: Instant }
 
 /** What refreshTiles reads besides the dossiers and the director's actions (see `tileInputsStatement`). */

@@ -265,7 +265,7 @@ export type FindingsFieldRadioId = [entryId: string, radioId: string]
 /**
  * The field of a competition from what it reads of each entry: the engine's own buildField,
  * over dossiers that hold only the entry's id, competition ID and status and its
- * collision-warning units' radio IDs (tests/unit/server/findings.test.ts holds the result
+ * collision-warning units' radio IDs (tests/unit/server/domain/read-model/dossiers.test.ts holds the result
  * equal to buildField over the full dossiers), so a few entries' dossiers need no other entry
  * read in full.
  */
@@ -282,81 +282,158 @@ export function toField(entries: readonly FindingsFieldEntry[], radioIds: readon
   }) as unknown as Dossier))
 }
 
+// ---------------------------------------------------------------------------------------
+// The statement
+
+/** One column of a part: the SQL that reads it, and the key its row type names it by. */
+type Column = readonly [sql: string, key: string]
+
 /**
- * The statement that reads the dossiers of a competition's entries in `scope`, each part a
- * JSON value with the columns the row types above name (numerics as their text, dates as
- * YYYY-MM-DD): one round trip, whatever the scope — what a grid check, a director's action or
- * an entry's page waits for. The field always covers the whole competition, from two slim lists.
+ * The parts of a dossier read, each with its columns (numerics as their text, dates as
+ * YYYY-MM-DD, timestamps as ISO text), the table it reads and the order the engine reads its
+ * rows in. Each row travels as a small JSON array of these columns, in this order, and becomes
+ * an object with the keys named here: one definition for the SQL and the row types above.
  */
-function dossierSql(scope: { ids: boolean, acceptedOnly: boolean, day: boolean }): string {
-  const inScope = (column: string) => [
-    scope.ids ? `and ${column} = any(:ids::uuid[])` : '',
-    scope.acceptedOnly ? `and ${column} in (select id from entries where competition_id = :competitionId and status = 'accepted')` : '',
-  ].join(' ')
-  return `select
-  (select json_build_object('name', c.name, 'time_zone', c.time_zone, 'settings', c.settings,
-      'first_contest_day', c.first_contest_day, 'last_contest_day', c.last_contest_day)
-    from competitions c where c.id = :competitionId) as competition,
-  (select coalesce(json_agg(json_build_object('id', k.id, 'code', k.code, 'max_mtom_kg', k.max_mtom_kg::text)), '[]')
-    from classes k where k.competition_id = :competitionId) as classes,
-  (select coalesce(json_agg(json_build_object('unit_family', f.unit_family, 'version', f.version, 'expires_on', f.expires_on)), '[]')
-    from firmware_releases f where f.competition_id = :competitionId) as firmware,
-  (select coalesce(json_agg(json_build_array(e.id, e.comp_id, e.status)), '[]')
-    from entries e where e.competition_id = :competitionId) as field_entries,
-  (select coalesce(json_agg(json_build_array(u.entry_id, u.radio_id)), '[]')
-    from units u where u.competition_id = :competitionId and u.kind = 'collision-warning' and u.radio_id is not null) as field_radio_ids,
-  (select coalesce(json_agg(json_build_object(
-      'id', e.id, 'comp_id', e.comp_id, 'registration', e.registration, 'glider_type', e.glider_type, 'pilot_name', e.pilot_name,
-      'copilot_name', e.copilot_name, 'status', e.status, 'payment_status', e.payment_status, 'mtom_kg', e.mtom_kg::text,
-      'cg_forward_limit_m', e.cg_forward_limit_m::text, 'cg_aft_limit_m', e.cg_aft_limit_m::text,
-      'class_id', e.class_id, 'class_name', k.name, 'class_code', k.code) order by e.comp_id, e.id), '[]')
-    from entries e join classes k on k.id = e.class_id
-    where e.competition_id = :competitionId ${inScope('e.id')}) as entries,
-  (select coalesce(json_agg(json_build_object(
-      'id', u.id, 'entry_id', u.entry_id, 'kind', u.kind, 'model', u.model, 'serial', u.serial, 'radio_id', u.radio_id,
-      'firmware_version', u.firmware_version, 'approval_level', u.approval_level, 'firmware_expires_on', u.firmware_expires_on,
-      'firmware_updated_on', u.firmware_updated_on, 'obstacle_db_expires_on', u.obstacle_db_expires_on) order by u.kind, u.created_at, u.id), '[]')
-    from units u where u.competition_id = :competitionId ${inScope('u.entry_id')}) as units,
-  (select coalesce(json_agg(json_build_object(
-      'id', d.id, 'entry_id', d.entry_id, 'kind', d.kind, 'status', d.status, 'expires_on', d.expires_on) order by d.uploaded_at), '[]')
-    from documents d where d.competition_id = :competitionId and not d.superseded ${inScope('d.entry_id')}) as documents,
-  (select coalesce(json_agg(json_build_object(
-      'id', i.id, 'entry_id', i.entry_id, 'unit_id', i.unit_id, 'pilot', i.pilot, 'copilot', i.copilot, 'glider_type', i.glider_type,
-      'glider_id', i.glider_id, 'declared_comp_id', i.declared_comp_id, 'declared_class', i.declared_class, 'has_g_record', i.has_g_record,
-      'uploaded_at', i.uploaded_at, 'flight_date', i.flight_date) order by i.uploaded_at), '[]')
-    from igc_files i where i.competition_id = :competitionId and not i.superseded ${inScope('i.entry_id')}) as igc_files,
-  -- Within a day the engine takes the last weigh-in it is given: order by the time of the grid
-  -- check it came with, so the later check's weighing counts.
-  (select coalesce(json_agg(json_build_object(
-      'id', w.id, 'entry_id', w.entry_id, 'units', w.units, 'readings', w.readings, 'weighed_on', w.weighed_on)
-      order by w.weighed_on, g.checked_at, w.created_at, w.id), '[]')
-    from weigh_ins w left join grid_checks g on g.id = w.grid_check_id
-    where w.competition_id = :competitionId ${inScope('w.entry_id')}) as weigh_ins,
-  ${scope.day
-    ? `(select coalesce(json_agg(json_build_object('entry_id', g.entry_id, 'outcome', g.outcome, 'day', g.day)), '[]')
-      from grid_checks g where g.id in (:latestChecks) ${inScope('g.entry_id')})`
-    : `'[]'::json`} as grid_checks`
+const PARTS = {
+  competition: {
+    columns: [['c.name', 'name'], ['c.time_zone', 'time_zone'], ['c.settings', 'settings'], ['c.first_contest_day', 'first_contest_day'], ['c.last_contest_day', 'last_contest_day']],
+    from: 'competitions c where c.id = :competitionId',
+  },
+  class: {
+    columns: [['k.id', 'id'], ['k.code', 'code'], ['k.max_mtom_kg::text', 'max_mtom_kg']],
+    from: 'classes k where k.competition_id = :competitionId',
+  },
+  firmware: {
+    columns: [['f.unit_family', 'unit_family'], ['f.version', 'version'], ['f.expires_on', 'expires_on']],
+    from: 'firmware_releases f where f.competition_id = :competitionId',
+  },
+  entry: {
+    columns: [['e.id', 'id'], ['e.comp_id', 'comp_id'], ['e.registration', 'registration'], ['e.glider_type', 'glider_type'],
+      ['e.pilot_name', 'pilot_name'], ['e.copilot_name', 'copilot_name'], ['e.status', 'status'], ['e.payment_status', 'payment_status'],
+      ['e.mtom_kg::text', 'mtom_kg'], ['e.cg_forward_limit_m::text', 'cg_forward_limit_m'], ['e.cg_aft_limit_m::text', 'cg_aft_limit_m'],
+      ['e.class_id', 'class_id'], ['k.name', 'class_name'], ['k.code', 'class_code']],
+    from: 'entries e join classes k on k.id = e.class_id where e.competition_id = :competitionId',
+    order: 'e.comp_id, e.id',
+    entry: 'e.id',
+  },
+  unit: {
+    columns: [['u.id', 'id'], ['u.entry_id', 'entry_id'], ['u.kind', 'kind'], ['u.model', 'model'], ['u.serial', 'serial'],
+      ['u.radio_id', 'radio_id'], ['u.firmware_version', 'firmware_version'], ['u.approval_level', 'approval_level'],
+      ['u.firmware_expires_on', 'firmware_expires_on'], ['u.firmware_updated_on', 'firmware_updated_on'], ['u.obstacle_db_expires_on', 'obstacle_db_expires_on']],
+    from: 'units u where u.competition_id = :competitionId',
+    order: 'u.kind, u.created_at, u.id',
+    entry: 'u.entry_id',
+  },
+  document: {
+    columns: [['d.id', 'id'], ['d.entry_id', 'entry_id'], ['d.kind', 'kind'], ['d.status', 'status'], ['d.expires_on', 'expires_on']],
+    from: 'documents d where d.competition_id = :competitionId and not d.superseded',
+    order: 'd.uploaded_at, d.id',
+    entry: 'd.entry_id',
+  },
+  igc: {
+    columns: [['i.id', 'id'], ['i.entry_id', 'entry_id'], ['i.unit_id', 'unit_id'], ['i.pilot', 'pilot'], ['i.copilot', 'copilot'],
+      ['i.glider_type', 'glider_type'], ['i.glider_id', 'glider_id'], ['i.declared_comp_id', 'declared_comp_id'],
+      ['i.declared_class', 'declared_class'], ['i.has_g_record', 'has_g_record'], ['i.uploaded_at', 'uploaded_at'], ['i.flight_date', 'flight_date']],
+    from: 'igc_files i where i.competition_id = :competitionId and not i.superseded',
+    order: 'i.uploaded_at, i.id',
+    entry: 'i.entry_id',
+  },
+  // Within a day the engine takes the last weigh-in it is given: in the order of the time of
+  // the grid check it came with, so the later check's weighing counts.
+  weighIn: {
+    columns: [['w.id', 'id'], ['w.entry_id', 'entry_id'], ['w.units', 'units'], ['w.readings', 'readings'], ['w.weighed_on', 'weighed_on']],
+    from: 'weigh_ins w left join grid_checks g on g.id = w.grid_check_id where w.competition_id = :competitionId',
+    order: 'w.weighed_on, g.checked_at, w.created_at, w.id',
+    entry: 'w.entry_id',
+  },
+  gridCheck: {
+    columns: [['g.entry_id', 'entry_id'], ['g.outcome', 'outcome'], ['g.day', 'day']],
+    from: 'grid_checks g where g.id in (:latestChecks)',
+    entry: 'g.entry_id',
+  },
+  // The field, of every entry whatever the scope: [id, competition ID, status] and [entry id,
+  // radio ID]. Slim, and as long as the competition even when one entry is read: each comes in
+  // one row, as a list.
+  fieldEntry: {
+    columns: [['e.id', '0'], ['e.comp_id', '1'], ['e.status', '2']],
+    from: 'entries e where e.competition_id = :competitionId',
+    list: true,
+  },
+  fieldRadioId: {
+    columns: [['u.entry_id', '0'], ['u.radio_id', '1']],
+    from: `units u where u.competition_id = :competitionId and u.kind = 'collision-warning' and u.radio_id is not null`,
+    list: true,
+  },
+} satisfies Record<string, PartSpec>
+
+interface PartSpec {
+  columns: readonly Column[]
+  from: string
+  /** The order the engine reads the part's rows in. */
+  order?: string
+  /** The entry a row belongs to, for the scope. */
+  entry?: string
+  /** The part comes as one row holding the list of its rows. */
+  list?: boolean
 }
 
-/** The row `dossierStatement` reads: each part of the dossiers in scope as a JSON value. */
-export interface DossierSqlRow {
-  competition: (FindingsCompetitionRow & { name: string }) | null
-  classes: FindingsClassRow[]
-  firmware: FindingsFirmwareRow[]
-  field_entries: FindingsFieldEntry[]
-  field_radio_ids: FindingsFieldRadioId[]
-  entries: FindingsEntryRow[]
-  units: FindingsUnitRow[]
-  documents: FindingsDocumentRow[]
-  igc_files: (Omit<FindingsIgcRow, 'uploaded_at'> & { uploaded_at: string })[]
-  weigh_ins: FindingsWeighInRow[]
-  grid_checks: FindingsGridCheckRow[]
+type PartName = keyof typeof PARTS
+
+/** A row of the dossier statement: its part, its place in the part's order, its columns. */
+export interface DossierPartRow {
+  part: string
+  n: string | number
+  r: unknown[]
+}
+
+/**
+ * The statement that reads the dossiers of a competition's entries in `scope` — every entry, or
+ * `entryIds`; accepted ones only; with a day's latest grid check — as rows of `DossierPartRow`:
+ * one round trip whatever the scope (what a grid check, a director's action or an entry's page
+ * waits for), many small rows rather than one large value (which the driver reads several times
+ * slower). The field always covers the whole competition.
+ */
+function dossierSql(scope: { ids: boolean, acceptedOnly: boolean, day: boolean }): string {
+  const branch = (name: PartName) => {
+    const part: PartSpec = PARTS[name]
+    const filters: string[] = []
+    if (part.entry && scope.ids) filters.push(`${part.entry} = any(:ids::uuid[])`)
+    // Accepted only: a look-up of each row's entry by its key. (An `in (select …)` over the
+    // competition's entries is planned as a loop over them for every row: ten times slower.)
+    if (part.entry && scope.acceptedOnly) {
+      filters.push(name === 'entry' ? `e.status = 'accepted'` : `exists (select 1 from entries x where x.id = ${part.entry} and x.status = 'accepted')`)
+    }
+    const columns = `json_build_array(${part.columns.map(c => c[0]).join(', ')})`
+    const where = `${part.from}${filters.map(f => ` and ${f}`).join('')}`
+    if (part.list) return `select '${name}' as part, 0 as n, json_build_array(coalesce(json_agg(${columns}), '[]')) as r from ${where}`
+    const n = part.order ? `row_number() over (order by ${part.order})` : '0'
+    return `select '${name}' as part, ${n} as n, ${columns} as r from ${where}`
+  }
+  const names = (Object.keys(PARTS) as PartName[]).filter(name => name !== 'gridCheck' || scope.day)
+  return names.map(branch).join('\nunion all ')
+}
+
+/** The rows of each part, as objects with the keys PARTS names, in the part's order. */
+function partsOf(rows: readonly DossierPartRow[]): Record<PartName, Record<string, unknown>[]> {
+  const out = Object.fromEntries(Object.keys(PARTS).map(name => [name, []])) as unknown as Record<PartName, { n: number, row: Record<string, unknown> }[]>
+  const add = (spec: PartSpec, list: { n: number, row: Record<string, unknown> }[], n: number, r: unknown[]) => {
+    const row: Record<string, unknown> = {}
+    spec.columns.forEach(([, key], i) => { row[key] = r[i] })
+    list.push({ n, row })
+  }
+  for (const { part, n, r } of rows) {
+    const spec: PartSpec | undefined = PARTS[part as PartName]
+    if (!spec) continue
+    if (spec.list) (r[0] as unknown[][]).forEach((item, i) => add(spec, out[part as PartName], i, item))
+    else add(spec, out[part as PartName], Number(n), r)
+  }
+  return Object.fromEntries(Object.entries(out).map(([name, list]) => [name, list.sort((a, b) => a.n - b.n).map(x => x.row)])) as Record<PartName, Record<string, unknown>[]>
 }
 
 /**
  * The statement that reads the dossiers in `scope` and its named bindings, for a caller that
- * reads them beside other parts in one round trip (the grid check): the statement is a derived
- * table whose one row is a `DossierSqlRow`; `dossiersOf` reads that row.
+ * reads them beside other rows in one round trip (the grid check adds rows of parts of its
+ * own); `dossiersOf` reads the dossier rows among them.
  */
 export function dossierStatement(db: Knex, competitionId: string, scope: DossierScope = {}): { sql: string, bindings: Record<string, unknown> } {
   const bindings: Record<string, unknown> = { competitionId }
@@ -365,19 +442,24 @@ export function dossierStatement(db: Knex, competitionId: string, scope: Dossier
   return { sql: dossierSql({ ids: Boolean(scope.entryIds), acceptedOnly: Boolean(scope.acceptedOnly), day: Boolean(scope.day) }), bindings }
 }
 
-/** The dossiers from the row `dossierStatement` read; undefined when there is no such competition. */
-export function dossiersOf(row: DossierSqlRow | undefined): CompetitionDossiers | undefined {
-  const competition = row?.competition
-  if (!row || !competition) return undefined
+/** The dossiers from the rows `dossierStatement` read; undefined when there is no such competition. */
+export function dossiersOf(rows: readonly DossierPartRow[]): CompetitionDossiers | undefined {
+  const parts = partsOf(rows)
+  const competition = parts.competition[0] as (FindingsCompetitionRow & { name: string }) | undefined
+  if (!competition) return undefined
+  const entries = parts.entry as unknown as FindingsEntryRow[]
   // As the driver reads a timestamptz column: a Date (to the millisecond).
-  const igcFiles: FindingsIgcRow[] = row.igc_files.map(f => ({ ...f, uploaded_at: new Date(f.uploaded_at) }))
-  const dossiers = toDossiers(row.entries, row.units, row.documents, igcFiles, row.weigh_ins, row.grid_checks)
+  const igcFiles = (parts.igc as unknown as FindingsIgcRow[]).map(f => ({ ...f, uploaded_at: new Date(f.uploaded_at) }))
+  const dossiers = toDossiers(entries, parts.unit as unknown as FindingsUnitRow[], parts.document as unknown as FindingsDocumentRow[],
+    igcFiles, parts.weighIn as unknown as FindingsWeighInRow[], parts.gridCheck as unknown as FindingsGridCheckRow[])
+  const fieldEntries = parts.fieldEntry.map(x => [x[0], x[1], x[2]] as FindingsFieldEntry)
+  const fieldRadioIds = parts.fieldRadioId.map(x => [x[0], x[1]] as FindingsFieldRadioId)
   return {
     competitionRow: competition,
-    competition: toEngineCompetition(competition, row.classes, row.firmware),
+    competition: toEngineCompetition(competition, parts.class as unknown as FindingsClassRow[], parts.firmware as unknown as FindingsFirmwareRow[]),
     dossiers,
-    field: toField(row.field_entries, row.field_radio_ids),
-    rows: row.entries,
+    field: toField(fieldEntries, fieldRadioIds),
+    rows: entries,
   }
 }
 
@@ -388,6 +470,6 @@ export function dossiersOf(row: DossierSqlRow | undefined): CompetitionDossiers 
  */
 export async function loadCompetitionDossiers(competitionId: string, scope: DossierScope = {}, db: Knex = useDb()): Promise<CompetitionDossiers | undefined> {
   const { sql, bindings } = dossierStatement(db, competitionId, scope)
-  const { rows: [row] } = await db.raw(sql, bindings) as { rows: DossierSqlRow[] }
-  return dossiersOf(row)
+  const { rows } = await db.raw(sql, bindings) as { rows: DossierPartRow[] }
+  return dossiersOf(rows)
 }

@@ -10,13 +10,13 @@ import { MESSAGES } from '#shared/constants/messages'
 import type { TagSelection } from '#shared/schemas/tags'
 import type { PrintableTag, ResolvedTag, TagListEntry } from '#shared/types/api-tags'
 import { effectiveRoles } from '#shared/utils/access'
-import { createTagToken, hashTagToken, tagTokenFromNonce, verifyTagToken } from './tag-token'
-import { randomShortCode, ShortCodeExhaustedError, withFreshShortCode, type ShortCodeGenerator } from './short-code'
 import { audit } from '#domain/audit/audit'
 import { rolesInCompetition } from '#domain/people/memberships'
 import { requireRole, requireUser } from '#server/utils/authz'
 import { useDb } from '#server/utils/db'
 import { httpError } from '#server/utils/errors'
+import { createTagToken, hashTagToken, tagTokenFromNonce, verifyTagToken } from './tag-token'
+import { randomShortCode, ShortCodeExhaustedError, withFreshShortCode, type ShortCodeGenerator } from './short-code'
 
 /** The key that signs tags: NUXT_TAG_SECRET, else the session password. */
 export function tagSecret(): string {

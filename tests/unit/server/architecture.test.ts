@@ -47,8 +47,8 @@ function exportsOf(path: string): Map<string, 'callable' | 'other'> {
 // The domain's areas, lowest first: an area may import the areas of lower layers, never its
 // own layer's other areas nor a higher one.
 const LAYERS: readonly (readonly string[])[] = [
-  ['read-model', 'audit', 'realtime'],
-  ['findings'],
+  ['read-model'],
+  ['audit', 'realtime', 'findings'],
   ['mail'],
   ['board'],
   ['competitions'],

@@ -1,6 +1,6 @@
 // loadCompetitionDossiers reads some entries' dossiers (a grid check's, a director's action's,
-// an entry page's) in one statement, and a whole competition's in a few queries: the two must
-// give the same rows, dossiers and field. Read in PostgreSQL against the demo competition
+// an entry page's) or a whole competition's in one statement, scoped in SQL: a few entries'
+// must be the whole competition's narrowed to them — the same rows, dossiers and field. Read in PostgreSQL against the demo competition
 // (documents, IGC files, the seeded problems, entries in every state) and against a
 // competition with grid checks and weigh-ins on two days.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
