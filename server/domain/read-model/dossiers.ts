@@ -379,7 +379,10 @@ interface PartSpec {
 
 type PartName = keyof typeof PARTS
 
-/** A row of the dossier statement: its part, its place in the part's order, its columns. */
+/**
+ * A row of the dossier statement: its part, its place in the part's order, its columns — or,
+ * for a few entries' dossiers, part 'packed' holding every part as a list, in PARTS' order.
+ */
 export interface DossierPartRow {
   part: string
   n: string | number
@@ -389,12 +392,14 @@ export interface DossierPartRow {
 /**
  * The statement that reads the dossiers of a competition's entries in `scope` — every entry, or
  * `entryIds`; accepted ones only; with a day's latest grid check — as rows of `DossierPartRow`:
- * one round trip whatever the scope (what a grid check, a director's action or an entry's page
- * waits for), many small rows rather than one large value (which the driver reads several times
- * slower). The field always covers the whole competition.
+ * one round trip whatever the scope. A few entries' (what a grid check, a director's action or
+ * an entry's page waits for) come in one row, each part a short list; the whole competition's
+ * as a row per row, since one large value is read several times slower by the driver. The
+ * field always covers the whole competition.
  */
 function dossierSql(scope: { ids: boolean, acceptedOnly: boolean, day: boolean }): string {
-  const branch = (name: PartName) => {
+  const names = Object.keys(PARTS) as PartName[]
+  const read = (name: PartName) => {
     const part: PartSpec = PARTS[name]
     const filters: string[] = []
     if (part.entry && scope.ids) filters.push(`${part.entry} = any(:ids::uuid[])`)
@@ -403,29 +408,44 @@ function dossierSql(scope: { ids: boolean, acceptedOnly: boolean, day: boolean }
     if (part.entry && scope.acceptedOnly) {
       filters.push(name === 'entry' ? `e.status = 'accepted'` : `exists (select 1 from entries x where x.id = ${part.entry} and x.status = 'accepted')`)
     }
-    const columns = `json_build_array(${part.columns.map(c => c[0]).join(', ')})`
-    const where = `${part.from}${filters.map(f => ` and ${f}`).join('')}`
-    if (part.list) return `select '${name}' as part, 0 as n, json_build_array(coalesce(json_agg(${columns}), '[]')) as r from ${where}`
-    const n = part.order ? `row_number() over (order by ${part.order})` : '0'
-    return `select '${name}' as part, ${n} as n, ${columns} as r from ${where}`
+    return {
+      part,
+      columns: `json_build_array(${part.columns.map(c => c[0]).join(', ')})`,
+      where: `${part.from}${filters.map(f => ` and ${f}`).join('')}`,
+      wanted: name !== 'gridCheck' || scope.day,
+    }
   }
-  const names = (Object.keys(PARTS) as PartName[]).filter(name => name !== 'gridCheck' || scope.day)
-  return names.map(branch).join('\nunion all ')
+  const list = ({ part, columns, where, wanted }: ReturnType<typeof read>) => (wanted
+    ? `(select coalesce(json_agg(${columns}${part.order ? ` order by ${part.order}` : ''}), '[]') from ${where})`
+    : `'[]'::json`)
+  // A few entries (a grid check's, an entry page's): every part as a list, in one row.
+  if (scope.ids) return `select 'packed' as part, 0 as n, json_build_array(${names.map(name => list(read(name))).join(', ')}) as r`
+  // The whole competition: a row per row of each part (the field's slim lists in one row each).
+  return names.flatMap((name) => {
+    const x = read(name)
+    if (!x.wanted) return []
+    if (x.part.list) return [`select '${name}' as part, 0 as n, json_build_array(${list(x)}) as r`]
+    const n = x.part.order ? `row_number() over (order by ${x.part.order})` : '0'
+    return [`select '${name}' as part, ${n} as n, ${x.columns} as r from ${x.where}`]
+  }).join('\nunion all ')
 }
 
 /** The rows of each part, as objects with the keys PARTS names, in the part's order. */
 function partsOf(rows: readonly DossierPartRow[]): Record<PartName, Record<string, unknown>[]> {
-  const out = Object.fromEntries(Object.keys(PARTS).map(name => [name, []])) as unknown as Record<PartName, { n: number, row: Record<string, unknown> }[]>
-  const add = (spec: PartSpec, list: { n: number, row: Record<string, unknown> }[], n: number, r: unknown[]) => {
+  const names = Object.keys(PARTS) as PartName[]
+  const out = Object.fromEntries(names.map(name => [name, []])) as unknown as Record<PartName, { n: number, row: Record<string, unknown> }[]>
+  const add = (name: PartName, n: number, r: unknown[]) => {
     const row: Record<string, unknown> = {}
-    spec.columns.forEach(([, key], i) => { row[key] = r[i] })
-    list.push({ n, row })
+    PARTS[name].columns.forEach(([, key], i) => { row[key] = r[i] })
+    out[name].push({ n, row })
   }
   for (const { part, n, r } of rows) {
-    const spec: PartSpec | undefined = PARTS[part as PartName]
-    if (!spec) continue
-    if (spec.list) (r[0] as unknown[][]).forEach((item, i) => add(spec, out[part as PartName], i, item))
-    else add(spec, out[part as PartName], Number(n), r)
+    if (part === 'packed') names.forEach((name, i) => (r[i] as unknown[][]).forEach((item, j) => add(name, j, item)))
+    else if (part in PARTS) {
+      const spec: PartSpec = PARTS[part as PartName]
+      if (spec.list) (r[0] as unknown[][]).forEach((item, j) => add(part as PartName, j, item))
+      else add(part as PartName, Number(n), r)
+    }
   }
   return Object.fromEntries(Object.entries(out).map(([name, list]) => [name, list.sort((a, b) => a.n - b.n).map(x => x.row)])) as Record<PartName, Record<string, unknown>[]>
 }
