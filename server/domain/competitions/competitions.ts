@@ -33,16 +33,21 @@ export function prefixedCompetition(row: object, prefix: string): CompetitionRow
   return out as unknown as CompetitionRow
 }
 
-export async function listClasses(competitionId: string, db: Knex = useDb()): Promise<CompetitionClassSummary[]> {
-  const rows: ClassRow[] = await db('classes').where({ competition_id: competitionId }).orderBy(['sort_order', 'name'])
-  return rows.map(c => ({
+/** A class as entrants and screens see it (the set-up adds its fee and order). */
+export function toClassSummary(c: ClassRow): CompetitionClassSummary {
+  return {
     id: c.id,
     name: c.name,
     code: c.code,
     maxSpanM: num(c.max_span_m),
     maxMtomKg: num(c.max_mtom_kg),
     waterBallast: c.water_ballast,
-  }))
+  }
+}
+
+export async function listClasses(competitionId: string, db: Knex = useDb()): Promise<CompetitionClassSummary[]> {
+  const rows: ClassRow[] = await db('classes').where({ competition_id: competitionId }).orderBy(['sort_order', 'name'])
+  return rows.map(toClassSummary)
 }
 
 export async function competitionDetail(row: CompetitionRow, roles: Role[], db: Knex = useDb()): Promise<CompetitionDetail> {

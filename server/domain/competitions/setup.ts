@@ -21,7 +21,7 @@ import { dossierChanged } from '#domain/board/dossier-changed'
 import { useDb } from '#server/utils/db'
 import { fieldError, httpError } from '#server/utils/errors'
 import { rulesOf } from '#shared/utils/rules'
-import { num } from '#domain/read-model/values'
+import { toClassSummary } from './competitions'
 
 function slugFor(name: string): string {
   const base = name.toLowerCase().normalize('NFKD').replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 60) || 'competition'
@@ -83,12 +83,7 @@ export async function listSetupClasses(competitionId: string, db: Knex = useDb()
 
 function toSetupClass(c: ClassRow & { entry_count?: string | number }): SetupClass {
   return {
-    id: c.id,
-    name: c.name,
-    code: c.code,
-    maxSpanM: num(c.max_span_m),
-    maxMtomKg: num(c.max_mtom_kg),
-    waterBallast: c.water_ballast,
+    ...toClassSummary(c),
     entryFeeMinor: c.entry_fee_minor,
     sortOrder: c.sort_order,
     entryCount: Number(c.entry_count ?? 0),

@@ -24,6 +24,7 @@ function code(path: string): string {
     .replace(/\/\*[\s\S]*?\*\//g, ' ')
     .replace(/\/\/[^\n]*/g, ' ')
     .replace(/'(?:\\.|[^'\\\n])*'/g, '\'\'')
+    .replace(/\.\.\./g, '   ') // a spread is not a property access: `...f(x)` calls f
 }
 
 /** Import specifiers of a file, with whether the import is of types only. */
