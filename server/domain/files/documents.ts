@@ -134,10 +134,6 @@ export async function documentQueue(competitionId: string): Promise<DocumentQueu
   }
 }
 
-export async function findCompetitionDocument(competitionId: string, documentId: string): Promise<DocumentRow | undefined> {
-  return useDb()<DocumentRow>('documents').where({ id: documentId, competition_id: competitionId }).first()
-}
-
 /** Accepts or rejects a current, pending document; a rejection e-mails the entrant. */
 export async function reviewDocument(input: {
   competitionId: string

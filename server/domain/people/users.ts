@@ -15,10 +15,6 @@ export async function findUserByEmail(email: string, db: Knex = useDb()): Promis
   return db<UserRow>('users').whereRaw('lower(email) = lower(?)', [email]).first()
 }
 
-export async function findUserById(id: string, db: Knex = useDb()): Promise<UserRow | undefined> {
-  return db<UserRow>('users').where({ id }).first()
-}
-
 export async function createUser(
   input: { email: string, name: string, passwordHash: string },
   db: Knex = useDb(),

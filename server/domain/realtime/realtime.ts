@@ -13,10 +13,6 @@ export function setRealtime(server: Server | null): void {
   io = server
 }
 
-export function useRealtime(): Server | null {
-  return io
-}
-
 export const boardRoom = (competitionId: string) => `board:${competitionId}`
 export const entrantRoom = (competitionId: string, userId: string) => `entrant:${competitionId}:${userId}`
 export const sessionRoom = (sessionId: string) => `session:${sessionId}`
