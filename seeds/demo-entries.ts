@@ -42,6 +42,10 @@ export interface DemoUnit {
   firmwareExpiresOn?: string
   firmwareUpdatedOn?: string
   approvalLevel?: string
+  /** A flight recorder's IGC recorder ID: the invented manufacturer code XKM and a serial id. */
+  igcRecorderId?: string
+  /** A flight recorder whose IGC file is not uploaded (seeds/demo-files.ts skips it). */
+  noIgcFile?: boolean
 }
 
 export interface DemoEntry {
@@ -63,6 +67,10 @@ export interface DemoEntry {
   spanM: number
   mtomKg: number
   emptyMassKg: number
+  motorGlider: 'none' | 'self-launching' | 'sustainer' | 'electric'
+  /** The pilot's and co-pilot's mass with parachute from the registration weighing (accepted entries). */
+  pilotMassKg?: number
+  copilotMassKg?: number
   paymentStatus: PaymentStatus
   units: DemoUnit[]
 }
@@ -78,7 +86,18 @@ export const SEEDED_PROBLEMS: Record<string, string> = {
   H8: 'firmware last updated more than a year before the contest',
   C4: 'insurance rejected by a scrutineer (seeds/demo-files.ts)',
   G5: 'the IGC file declares another glider ID and competition ID (seeds/demo-files.ts)',
+  D6: 'an 18 m span entered in the Standard class (15 m)',
+  E2: 'a sustainer motor glider whose IGC file records no engine use',
+  S2: 'its second flight recorder has no IGC file',
+  N1: 'no collision-warning unit declared',
+  P6: 'overweight at the registration weigh-in with the pilot aboard (452 kg on the scales + pilot 91 kg = 543 kg; Standard allows 525 kg)',
 }
+
+/** Motor gliders of the demo: E2 without engine recording (a seeded problem), L8 recording it. */
+export const DEMO_MOTOR_GLIDERS: Record<string, DemoEntry['motorGlider']> = { E2: 'sustainer', L8: 'self-launching' }
+
+/** The registration weigh-in of P6 (seeds/demo-files.ts): the glider alone on the scales, kg and m. */
+export const DEMO_WEIGH_IN = { compId: 'P6', readings: [{ point: 'main-wheel', weight: 420, arm: 0.21 }, { point: 'tail-wheel', weight: 32, arm: 4.6 }] } as const
 
 const ENTRY_COUNT = 40
 const DEMO_ENTRANTS = DEMO_PEOPLE.filter(p => p.roles.includes('entrant'))
@@ -120,21 +139,25 @@ function collisionWarning(i: number, compId: string): DemoUnit {
 
 function recorders(i: number, compId: string): DemoUnit[] {
   if (compId === 'R4') return []
+  const serial = `FR${String(7300 + i * 11)}`
   const first: DemoUnit = {
     kind: 'flight-recorder',
     model: i % 3 === 0 ? 'Plover FR-2' : 'Dotterel Logger',
-    serial: `FR${String(7300 + i * 11)}`,
+    serial,
     firmwareVersion: i % 3 === 0 ? '2.08' : '5.1',
     approvalLevel: 'all-flights',
+    igcRecorderId: `XKM${serial.slice(-3)}`,
   }
   if (i % 4 !== 1) return [first]
-  return [first, { kind: 'flight-recorder', model: 'Dotterel Logger', serial: `FR${String(9100 + i * 7)}`, firmwareVersion: '5.1', approvalLevel: 'badges-up-to-diamonds' }]
+  const second = `FR${String(9100 + i * 7)}`
+  return [first, { kind: 'flight-recorder', model: 'Dotterel Logger', serial: second, firmwareVersion: '5.1', approvalLevel: 'badges-up-to-diamonds', igcRecorderId: `XKM${second.slice(-3)}`, noIgcFile: compId === 'S2' }]
 }
 
 export const DEMO_ENTRIES: DemoEntry[] = Array.from({ length: ENTRY_COUNT }, (_, i) => {
   const compId = COMP_IDS[i]!
   const classCode = CLASS_CYCLE[i % CLASS_CYCLE.length]!
-  const glider = GLIDERS[classCode][i % 2]!
+  // D6 entered an 18 m glider in the Standard class (a seeded problem).
+  const glider = compId === 'D6' ? GLIDERS['18m'][0] : GLIDERS[classCode][i % 2]!
   // The first nine entries belong to the demo entrant sign-ins entrant@ … entrant9@; the
   // tenth sign-in (entrant10@) has no entry, to register one from scratch.
   const account = i < 9 ? DEMO_ENTRANTS[i]! : { email: extraPilotEmail(i - 9), name: `${FIRST_NAMES[i % FIRST_NAMES.length]} ${LAST_NAMES[(i * 7) % LAST_NAMES.length]}` }
@@ -160,8 +183,11 @@ export const DEMO_ENTRIES: DemoEntry[] = Array.from({ length: ENTRY_COUNT }, (_,
     spanM: glider.spanM,
     mtomKg: glider.mtomKg,
     emptyMassKg: glider.emptyMassKg + (i % 5),
+    motorGlider: DEMO_MOTOR_GLIDERS[compId] ?? 'none',
+    pilotMassKg: entryStatus === 'accepted' ? (compId === 'P6' ? 91 : 68 + ((i * 7) % 27)) : undefined,
+    copilotMassKg: entryStatus === 'accepted' && classCode === '18m' && i % 6 === 1 ? 64 + ((i * 5) % 20) : undefined,
     paymentStatus: entryStatus === 'withdrawn' ? 'refunded' : paid ? 'paid' : 'unpaid',
-    units: [collisionWarning(i, compId), ...recorders(i, compId)],
+    units: compId === 'N1' ? recorders(i, compId) : [collisionWarning(i, compId), ...recorders(i, compId)],
   }
 })
 

@@ -8,6 +8,9 @@ import { dirname, join, resolve } from 'node:path'
 import { fileURLToPath } from 'node:url'
 import type { Knex } from 'knex'
 import { DOCUMENT_KIND_LABELS, type DocumentKind } from '../shared/constants/entries'
+import { takeOffMass } from '../shared/engine/weigh-in'
+import { DEMO_COMPETITION } from './demo-data'
+import { DEMO_ENTRIES, DEMO_WEIGH_IN } from './demo-entries'
 
 const uploadsDir = () => process.env.NUXT_UPLOADS_DIR ?? resolve(dirname(fileURLToPath(import.meta.url)), '../.data/uploads')
 
@@ -92,21 +95,27 @@ export async function seedDemoDocuments(trx: Knex, competitionId: string): Promi
 }
 
 /**
- * Demo IGC files, one from the first flight recorder of every entry past its draft, laid out
- * as the app stores them (igc/<entry id>/<uuid>). G5's declaration names another glider ID
- * and competition ID than its entry — the seeded declaration mismatch; the others match.
+ * Demo IGC files, one from every flight recorder of every entry past its draft (S2's second
+ * recorder has none: a seeded problem), laid out as the app stores them (igc/<entry id>/<uuid>).
+ * G5's declaration names another glider ID and competition ID than its entry — the seeded
+ * declaration mismatch; the others match. The A record carries the recorder's IGC identity (the
+ * invented manufacturer code XKM); the I record declares fix accuracy and satellites, and for
+ * L8, a self-launching motor glider, engine noise (ENL). E2, a sustainer, records none.
  */
 const IGC_PLAN: Record<string, { gliderId?: string, compId?: string, flightDate?: string }> = {
   G5: { gliderId: 'KM-ZZQ', compId: 'G6', flightDate: '2027-05-29' },
 }
+const ENGINE_RECORDED = new Set(['L8'])
 
-function demoIgc(input: { pilot: string, gliderType: string, gliderId: string, compId: string, className: string, flightDate: string, recorder: string, firmware: string }): string {
+function demoIgc(input: { pilot: string, copilot: string | null, gliderType: string, gliderId: string, compId: string, className: string, flightDate: string, recorder: string, recorderId: string, firmware: string, enl: boolean }): string {
   const [y, m, d] = input.flightDate.split('-')
+  // B records carry the extensions the I record declares: FXA (bytes 36–38), SIU (39–40), ENL (41–43).
+  const ext = input.enl ? ['03512005', '03512006', '03512004'] : ['03512', '03512', '03512']
   const lines = [
-    'AXKMDEMOFLIGHT:1',
+    `A${input.recorderId}FLIGHT:1`,
     `HFDTEDATE:${d}${m}${y!.slice(2)},01`,
     `HFPLTPILOTINCHARGE:${input.pilot}`,
-    'HFCM2CREW2:NIL',
+    `HFCM2CREW2:${input.copilot ?? 'NIL'}`,
     `HFGTYGLIDERTYPE:${input.gliderType}`,
     `HFGIDGLIDERID:${input.gliderId}`,
     'HFDTM100GPSDATUM:WGS-1984',
@@ -114,9 +123,10 @@ function demoIgc(input: { pilot: string, gliderType: string, gliderId: string, c
     `HFFTYFRTYPE:${input.recorder}`,
     `HFCIDCOMPETITIONID:${input.compId}`,
     `HFCCLCOMPETITIONCLASS:${input.className}`,
-    'B1201005130000N00745000EA0050000600',
-    'B1201105130020N00745030EA0050500605',
-    'B1201205130040N00745060EA0051000610',
+    input.enl ? 'I033638FXA3940SIU4143ENL' : 'I023638FXA3940SIU',
+    `B1201005130000N00745000EA0050000600${ext[0]}`,
+    `B1201105130020N00745030EA0050500605${ext[1]}`,
+    `B1201205130040N00745060EA0051000610${ext[2]}`,
     // An invented security record: present, but no real signature (it cannot be validated here).
     'G3F2A91C07B44D1E8A5F60C2B9137E4D',
   ]
@@ -127,47 +137,83 @@ export async function seedDemoIgcFiles(trx: Knex, competitionId: string): Promis
   const rows = await trx('entries as e')
     .join('classes as c', 'c.id', 'e.class_id')
     .where('e.competition_id', competitionId).whereNot('e.status', 'draft').orderBy('e.comp_id')
-    .select('e.id', 'e.comp_id', 'e.pilot_name', 'e.glider_type', 'e.registration', 'e.entrant_user_id', 'c.name as class_name') as
-    { id: string, comp_id: string, pilot_name: string, glider_type: string, registration: string, entrant_user_id: string, class_name: string }[]
+    .select('e.id', 'e.comp_id', 'e.pilot_name', 'e.copilot_name', 'e.glider_type', 'e.registration', 'e.entrant_user_id', 'c.name as class_name') as
+    { id: string, comp_id: string, pilot_name: string, copilot_name: string | null, glider_type: string, registration: string, entrant_user_id: string, class_name: string }[]
+  const withoutFile = new Set(DEMO_ENTRIES.flatMap(e => e.units.filter(u => u.noIgcFile).map(u => u.serial)))
   for (const entry of rows) {
-    const recorder = await trx('units').where({ entry_id: entry.id, kind: 'flight-recorder' }).orderBy('created_at').first('id', 'model', 'firmware_version')
-    if (!recorder) continue
-    const plan = IGC_PLAN[entry.comp_id] ?? {}
-    const header = {
-      pilot: entry.pilot_name,
-      gliderType: entry.glider_type,
-      gliderId: plan.gliderId ?? entry.registration,
-      compId: plan.compId ?? entry.comp_id,
-      className: entry.class_name,
-      flightDate: plan.flightDate ?? '2027-05-14',
-      recorder: recorder.model,
-      firmware: recorder.firmware_version ?? '1.0',
+    const recorders = await trx('units').where({ entry_id: entry.id, kind: 'flight-recorder' }).orderBy('created_at')
+      .select('id', 'model', 'serial', 'firmware_version', 'igc_recorder_id') as { id: string, model: string, serial: string, firmware_version: string | null, igc_recorder_id: string | null }[]
+    for (const recorder of recorders) {
+      if (withoutFile.has(recorder.serial)) continue
+      const plan = IGC_PLAN[entry.comp_id] ?? {}
+      const header = {
+        pilot: entry.pilot_name,
+        copilot: entry.copilot_name,
+        gliderType: entry.glider_type,
+        gliderId: plan.gliderId ?? entry.registration,
+        compId: plan.compId ?? entry.comp_id,
+        className: entry.class_name,
+        flightDate: plan.flightDate ?? '2027-05-14',
+        recorder: recorder.model,
+        recorderId: recorder.igc_recorder_id ?? 'XKMDEM',
+        firmware: recorder.firmware_version ?? '1.0',
+        enl: ENGINE_RECORDED.has(entry.comp_id),
+      }
+      const data = Buffer.from(demoIgc(header), 'latin1')
+      const id = randomUUID()
+      const file = join(uploadsDir(), 'igc', entry.id, id)
+      mkdirSync(dirname(file), { recursive: true })
+      writeFileSync(file, data)
+      await trx('igc_files').insert({
+        entry_id: entry.id,
+        competition_id: competitionId,
+        unit_id: recorder.id,
+        original_filename: `${entry.comp_id.toLowerCase()}-${recorder.serial.toLowerCase()}-${header.flightDate}.igc`,
+        storage_key: `igc:${entry.id}:${id}`,
+        sha256: createHash('sha256').update(data).digest('hex'),
+        size_bytes: data.length,
+        flight_date: header.flightDate,
+        pilot: header.pilot,
+        copilot: header.copilot,
+        glider_type: header.gliderType,
+        glider_id: header.gliderId,
+        declared_comp_id: header.compId,
+        declared_class: header.className,
+        recorder_type: header.recorder,
+        firmware_version: header.firmware,
+        recorder_id: header.recorderId,
+        extensions: header.enl ? ['FXA', 'SIU', 'ENL'] : ['FXA', 'SIU'],
+        has_g_record: true,
+        parse_errors: JSON.stringify([]),
+        uploaded_by: entry.entrant_user_id,
+      })
     }
-    const data = Buffer.from(demoIgc(header), 'latin1')
-    const id = randomUUID()
-    const file = join(uploadsDir(), 'igc', entry.id, id)
-    mkdirSync(dirname(file), { recursive: true })
-    writeFileSync(file, data)
-    await trx('igc_files').insert({
-      entry_id: entry.id,
-      competition_id: competitionId,
-      unit_id: recorder.id,
-      original_filename: `${entry.comp_id.toLowerCase()}-${header.flightDate}.igc`,
-      storage_key: `igc:${entry.id}:${id}`,
-      sha256: createHash('sha256').update(data).digest('hex'),
-      size_bytes: data.length,
-      flight_date: header.flightDate,
-      pilot: header.pilot,
-      copilot: null,
-      glider_type: header.gliderType,
-      glider_id: header.gliderId,
-      declared_comp_id: header.compId,
-      declared_class: header.className,
-      recorder_type: header.recorder,
-      firmware_version: header.firmware,
-      has_g_record: true,
-      parse_errors: JSON.stringify([]),
-      uploaded_by: entry.entrant_user_id,
-    })
   }
+}
+
+/**
+ * P6's registration weigh-in on the first practice day, by the demo scrutineer: the glider alone
+ * on the scales; with the pilot's recorded mass the take-off mass is over the Standard class's
+ * limit (a seeded problem). Stored as the app stores a weigh-in: readings, take-off mass and CG.
+ */
+export async function seedDemoWeighIn(trx: Knex, competitionId: string, scrutineerId: string): Promise<void> {
+  const entry = await trx('entries').where({ competition_id: competitionId, comp_id: DEMO_WEIGH_IN.compId }).first('id', 'pilot_mass_kg', 'copilot_mass_kg')
+  if (!entry) return
+  const readings = DEMO_WEIGH_IN.readings.map(r => ({ ...r }))
+  const t = takeOffMass({ readings, units: 'kg-m' }, { pilotMassKg: num(entry.pilot_mass_kg), copilotMassKg: num(entry.copilot_mass_kg) })
+  await trx('weigh_ins').insert({
+    competition_id: competitionId,
+    entry_id: entry.id,
+    weighed_on: DEMO_COMPETITION.practiceDays[0],
+    units: 'kg-m',
+    readings: JSON.stringify(readings),
+    mass_kg: Math.round(t.massKg * 100) / 100,
+    cg_arm_m: t.cgArmM === null ? null : Math.round(t.cgArmM * 10_000) / 10_000,
+    declared_ballast_kg: 0,
+    weighed_by: scrutineerId,
+  })
+}
+
+function num(v: string | number | null | undefined): number | null {
+  return v === null || v === undefined ? null : Number(v)
 }

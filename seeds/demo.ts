@@ -7,7 +7,7 @@ import { faiClass } from '../shared/constants/classes'
 import { DEMO_COMPETITION, DEMO_PASSWORD, DEMO_PEOPLE } from './demo-data'
 import { DEMO_ENTRIES, DEMO_EXTRA_PILOTS, DEMO_FIRMWARE } from './demo-entries'
 import { seedDemoPayments } from './demo-payments'
-import { seedDemoDocuments, seedDemoIgcFiles } from './demo-files'
+import { seedDemoDocuments, seedDemoIgcFiles, seedDemoWeighIn } from './demo-files'
 import { seedDemoTags } from './demo-tags'
 
 export { DEMO_SIGN_INS, DEMO_PASSWORD } from './demo-data'
@@ -129,6 +129,9 @@ export async function seedDemo(knex: Knex, opts: { reset?: boolean, tagSecret?: 
         span_m: e.spanM,
         mtom_kg: e.mtomKg,
         empty_mass_kg: e.emptyMassKg,
+        motor_glider: e.motorGlider,
+        pilot_mass_kg: e.pilotMassKg ?? null,
+        copilot_mass_kg: e.copilotMassKg ?? null,
         submitted_at: submittedAt,
         decided_at: decided ? trx.raw(`?::timestamptz + interval '3 days'`, [submittedAt]) : null,
         decided_by: decided ? organiser : null,
@@ -147,6 +150,7 @@ export async function seedDemo(knex: Knex, opts: { reset?: boolean, tagSecret?: 
         firmware_expires_on: u.firmwareExpiresOn ?? null,
         firmware_updated_on: u.firmwareUpdatedOn ?? null,
         approval_level: u.approvalLevel ?? null,
+        igc_recorder_id: u.igcRecorderId ?? null,
       })))
       await trx('memberships').insert({ user_id: entrantId, competition_id: competition.id, role: 'entrant', granted_by: null })
         .onConflict(['user_id', 'competition_id', 'role']).ignore()
@@ -154,6 +158,7 @@ export async function seedDemo(knex: Knex, opts: { reset?: boolean, tagSecret?: 
 
     await seedDemoDocuments(trx, competition.id)
     await seedDemoIgcFiles(trx, competition.id)
+    await seedDemoWeighIn(trx, competition.id, idByEmail.get('scrutineer@gridmark.example')!)
     await seedDemoPayments(trx, competition.id)
     await seedDemoTags(trx, competition.id, tagSecret)
 

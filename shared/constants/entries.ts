@@ -33,3 +33,13 @@ export const APPROVAL_LEVEL_LABELS: Record<ApprovalLevel, string> = {
   'badges-up-to-gold': 'Badges up to gold',
   'not-approved': 'Not IGC-approved',
 }
+
+/** A motor glider's means of propulsion (none for a pure glider). */
+export const MOTOR_GLIDER_KINDS = ['none', 'self-launching', 'sustainer', 'electric'] as const
+export type MotorGliderKindValue = (typeof MOTOR_GLIDER_KINDS)[number]
+export const MOTOR_GLIDER_LABELS: Record<MotorGliderKindValue, string> = {
+  'none': 'No engine (pure glider)',
+  'self-launching': 'Self-launching engine',
+  'sustainer': 'Sustainer engine',
+  'electric': 'Electric motor',
+}

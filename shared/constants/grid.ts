@@ -30,6 +30,17 @@ export const DEFAULT_CHECKLIST: readonly ChecklistItem[] = [
   { id: 'tag-readable', label: 'Tag readable', hint: 'The QR sticker scans and the competition ID on it is legible.' },
 ]
 
+/**
+ * The item a class without water ballast adds to the day's checklist by itself (FAI Sporting
+ * Code Section 3: the Club class flies without water ballast). Failing it raises the finding
+ * `ballast.class-rule`.
+ */
+export const WATER_BALLAST_EMPTY_ITEM: ChecklistItem = {
+  id: 'water-ballast-empty',
+  label: 'Water ballast tanks empty',
+  hint: 'This class flies without water ballast: tanks and bags drained, as the competition’s rules say.',
+}
+
 /** How a scrutineer reached an entry on the grid. */
 export const FOUND_BY = ['scan', 'code', 'list'] as const
 export type FoundBy = (typeof FOUND_BY)[number]

@@ -8,6 +8,7 @@ export const FILES_MESSAGES = {
   notIgc: (firstError: string, line: number) => `This is not an IGC file: ${firstError} (line ${line}).`,
   documentNotFound: 'No such document for this entry, or it is not yours.',
   queueDocumentNotFound: 'No such document in this competition.',
+  igcFileNotCurrent: 'That IGC file has been replaced; name the recorder of the current file instead.',
   igcFileNotFound: 'No such IGC file for this entry, or it is not yours.',
   unitNotRecorder: 'That unit is not a flight recorder of this entry.',
   alreadyReviewed: 'This document has already been reviewed or replaced; reload the queue.',

@@ -1,16 +1,20 @@
 // The rulebook: every check in the order findings are listed. Add a check here and in its
 // family's file under checks/; DEVELOPERS.md, "Add a check".
+import { ballastClassRule } from './checks/ballast'
 import { cgWithinLimits } from './checks/cg'
+import { collisionWarningPresent } from './checks/collision-warning'
 import { competitionIdUnique } from './checks/competition-id'
 import { declarationMatchesEntry, declarationRecent } from './checks/declaration'
 import { documentsRequired } from './checks/documents'
 import { firmwareCatalogueMismatch, firmwareExpiresSoon, firmwareValidThroughContest, firmwareYearlyUpdate } from './checks/firmware'
 import { igcSecurityRecord } from './checks/igc'
 import { massClassLimit, massFlightManual } from './checks/mass'
+import { motorGliderEngineRecording } from './checks/motor-glider'
 import { obstaclesCurrent } from './checks/obstacles'
 import { entryPaid } from './checks/payment'
 import { radioIdFormat, radioIdRegistration, radioIdUnique } from './checks/radio-id'
-import { recorderPresent } from './checks/recorders'
+import { recorderIdentity, recorderIgcFile, recorderPresent } from './checks/recorders'
+import { spanClassLimit } from './checks/span'
 import type { Check } from './types'
 
 export const CATALOGUE: readonly Check[] = [
@@ -38,6 +42,13 @@ export const CATALOGUE: readonly Check[] = [
   cgWithinLimits,
   // The office
   entryPaid,
+  // The checks a scrutineering team adds (DESIGN.md's table, in its order)
+  spanClassLimit,
+  ballastClassRule,
+  recorderIgcFile,
+  recorderIdentity,
+  collisionWarningPresent,
+  motorGliderEngineRecording,
 ]
 
 export function checkById(id: string): Check | undefined {

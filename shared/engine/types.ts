@@ -25,7 +25,21 @@ export interface EngineEntry {
   /** CG limits as lever arms from the datum, metres, aft positive. */
   cgForwardLimitM?: number | null
   cgAftLimitM?: number | null
+  /** The wing span, metres. */
+  spanM?: number | null
+  /** A motor glider's means of propulsion; 'none' (or absent) for a pure glider. */
+  motorGlider?: MotorGliderKind | null
+  /** The pilot's and co-pilot's mass with parachute, kg, from the registration weighing (staff). */
+  pilotMassKg?: number | null
+  copilotMassKg?: number | null
+  /** Lever arms from the flight manual, metres from the datum (aft positive): seats and water ballast. */
+  pilotArmM?: number | null
+  copilotArmM?: number | null
+  ballastArmM?: number | null
 }
+
+/** How a glider is propelled besides soaring: none, a self-launching or sustainer engine, an electric motor. */
+export type MotorGliderKind = 'none' | 'self-launching' | 'sustainer' | 'electric'
 
 export interface CollisionWarningUnit {
   id: string
@@ -48,6 +62,11 @@ export interface FlightRecorderUnit {
   serial: string
   firmwareVersion?: string | null
   approvalLevel: ApprovalLevel | string | null
+  /**
+   * The recorder's IGC identity as its A record writes it: the three-character manufacturer
+   * code and the three-character serial id ("XXXABC"), or the serial id alone ("ABC").
+   */
+  igcRecorderId?: string | null
 }
 
 export type EngineUnit = CollisionWarningUnit | FlightRecorderUnit
@@ -63,8 +82,16 @@ export interface EngineDocument {
 /** The header of one uploaded IGC file, as parsed on upload (H records and G record presence). */
 export interface EngineIgcFile {
   id?: string
-  /** The flight recorder it came from. */
-  unitId: string
+  /** The flight recorder it came from; null while the entrant has not said which. */
+  unitId: string | null
+  /** The name the file was uploaded under. */
+  filename?: string | null
+  /** The A record's manufacturer code and serial id, six characters ("XXXABC"). */
+  recorderId?: string | null
+  /** HFRFW: the recorder's firmware version. */
+  firmwareVersion?: string | null
+  /** The three-letter codes the I record declares (extensions of every fix: "FXA", "ENL", "MOP" …). */
+  extensions?: string[]
   flightDate: IsoDate | null
   pilot: string | null
   copilot?: string | null
@@ -94,11 +121,15 @@ export interface WeighInRecord {
   weighedOn: IsoDate
   units: WeighUnits
   readings: ScaleReading[]
+  /** Water ballast declared but not in the tanks on the scales (weighed dry), kg. */
+  declaredBallastKg?: number | null
 }
 
 export interface GridCheck {
   day: IsoDate
   outcome?: 'pass' | 'fail'
+  /** The checklist answers of the check (the class's own items among them). */
+  answers?: { itemId: string, result: string }[]
 }
 
 export interface Dossier {
@@ -120,6 +151,10 @@ export interface FirmwareRelease {
 export interface ClassLimit {
   /** Maximum take-off mass of the class; null where the class sets none. */
   maxMtomKg: number | null
+  /** Maximum wing span of the class; null where the class sets none. */
+  maxSpanM?: number | null
+  /** Whether the class carries water ballast (the Club class does not). */
+  waterBallast?: boolean
   /** Other spellings of the class name, beside the FAI ones. */
   aliases?: string[]
 }

@@ -41,6 +41,8 @@ const ruleFields = {
   acceptedApprovalLevels: z.array(z.enum(APPROVAL_LEVELS, { error: 'Choose approval levels from the list.' })).min(1, { error: 'Accept at least one recorder approval level.' }),
   /** The day's checklist on the launch grid. */
   gridChecklist: checklistSchema,
+  /** Every glider carries a collision-warning unit (check collision-warning.present). */
+  collisionWarningRequired: z.boolean({ error: 'Say whether a collision-warning unit is required (true or false).' }),
 }
 
 /** The rule settings a competition stores in competitions.settings. */
@@ -52,6 +54,7 @@ export const competitionRulesSchema = z.object({
   recordersRequired: ruleFields.recordersRequired.default(1),
   acceptedApprovalLevels: ruleFields.acceptedApprovalLevels.default(['all-flights', 'badges-up-to-diamonds']),
   gridChecklist: ruleFields.gridChecklist.default(() => DEFAULT_CHECKLIST.map(i => ({ ...i }))),
+  collisionWarningRequired: ruleFields.collisionWarningRequired.default(true),
 })
 /** A change to some rules (PATCH): what is left out keeps its stored value. */
 export const competitionRulesPatchSchema = z.object(ruleFields, { error: 'Send the rules as an object.' }).partial().strict()

@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { entryParamsSchema } from './params'
-import { APPROVAL_LEVELS } from '../constants/entries'
+import { APPROVAL_LEVELS, MOTOR_GLIDER_KINDS } from '../constants/entries'
 import { isoDate } from './competition'
 
 const text = (label: string, max = 120) =>
@@ -9,6 +9,38 @@ const optionalText = (max = 120) =>
   z.string().trim().max(max, { error: `Keep it under ${max} characters.` }).optional().transform(v => (v ? v : undefined))
 const positive = (label: string, max: number) =>
   z.number({ error: `Enter the ${label} as a number.` }).positive({ error: `The ${label} must be more than 0.` }).max(max, { error: `The ${label} looks too large.` })
+
+const motorGlider = z.enum(MOTOR_GLIDER_KINDS, { error: 'Choose whether the glider has an engine: none, self-launching, sustainer or electric.' })
+/** A lever arm from the flight manual: metres from the datum, aft positive. */
+const arm = (label: string) => z.number({ error: `Enter the ${label} as a number of metres.` }).min(-5, { error: `The ${label} is between -5 and 5 m from the datum.` }).max(5, { error: `The ${label} is between -5 and 5 m from the datum.` })
+const clearableArmOf = (label: string) => z.union([z.null(), z.literal(''), arm(label)], { error: `Enter the ${label} as a number of metres.` })
+  .optional()
+  .transform(v => (v === '' ? null : v))
+
+/**
+ * The IGC recorder ID as the A record writes it: the manufacturer's three-character code and the
+ * recorder's three-character serial id ("XXX-ABC", kept as "XXXABC"), or the serial id alone.
+ */
+export const igcRecorderIdSchema = z
+  .string({ error: 'Enter the IGC recorder ID.' })
+  .trim()
+  .toUpperCase()
+  .transform(s => s.replace(/[\s-]/g, ''))
+  .refine(s => /^[A-Z0-9]{3}([A-Z0-9]{3})?$/.test(s), { error: 'An IGC recorder ID is the three-character manufacturer code and three-character serial id from the file’s first line, e.g. XXX-ABC (or the serial id alone).' })
+
+/** A person's mass with parachute, weighed at registration. */
+const occupantMass = (label: string) => z.union([
+  z.null(),
+  z.number({ error: `Enter the ${label} in kg.` }).min(30, { error: `The ${label} is at least 30 kg.` }).max(200, { error: `The ${label} is at most 200 kg.` }),
+], { error: `Enter the ${label} in kg, or null to clear it.` })
+
+/** Staff record the pilot's and co-pilot's weighed mass with parachute (registration weighing). */
+export const occupantMassesSchema = z.object({
+  pilotMassKg: occupantMass('pilot’s mass with parachute').optional(),
+  copilotMassKg: occupantMass('co-pilot’s mass with parachute').optional(),
+}, { error: 'Send the masses as a JSON object.' }).strict()
+  .refine(b => b.pilotMassKg !== undefined || b.copilotMassKg !== undefined, { error: 'Send the pilot’s or the co-pilot’s mass.' })
+export type OccupantMasses = z.infer<typeof occupantMassesSchema>
 
 /** The competition ID painted on the glider: 1–3 letters or digits, kept in upper case. */
 export const compIdSchema = z
@@ -42,6 +74,10 @@ export const entryBodySchema = z.object({
   cgForwardLimitM: z.number().min(-5).max(5).optional(),
   cgAftLimitM: z.number().min(-5).max(5).optional(),
   datumDescription: optionalText(300),
+  motorGlider: motorGlider.default('none'),
+  pilotArmM: arm('pilot seat’s lever arm').optional(),
+  copilotArmM: arm('co-pilot seat’s lever arm').optional(),
+  ballastArmM: arm('water ballast’s lever arm').optional(),
 }, { error: 'Send the fields as a JSON object.' }).refine(
   e => e.cgForwardLimitM === undefined || e.cgAftLimitM === undefined || e.cgForwardLimitM < e.cgAftLimitM,
   { error: 'The forward CG limit must lie ahead of the aft limit.', path: ['cgAftLimitM'] },
@@ -66,6 +102,7 @@ export const flightRecorderUnitSchema = z.object({
   serial: text('serial number', 40),
   firmwareVersion: optionalText(40),
   approvalLevel: z.enum(APPROVAL_LEVELS, { error: 'Choose the recorder’s IGC approval level.' }),
+  igcRecorderId: z.union([z.literal(''), igcRecorderIdSchema]).optional().transform(v => (v ? v : undefined)),
 })
 
 export const unitBodySchema = z.discriminatedUnion('kind', [collisionWarningUnitSchema, flightRecorderUnitSchema], {
@@ -111,6 +148,10 @@ export const entryPatchSchema = z.object({
   cgForwardLimitM: clearableArm,
   cgAftLimitM: clearableArm,
   datumDescription: clearableText(300),
+  motorGlider: motorGlider.optional(),
+  pilotArmM: clearableArmOf('pilot seat’s lever arm'),
+  copilotArmM: clearableArmOf('co-pilot seat’s lever arm'),
+  ballastArmM: clearableArmOf('water ballast’s lever arm'),
 }, { error: 'Send the fields as a JSON object.' })
 export type EntryPatch = z.infer<typeof entryPatchSchema>
 

@@ -22,6 +22,11 @@ export const igcUploadSchema = z.object({
 })
 export type IgcUpload = z.infer<typeof igcUploadSchema>
 
+/** Which flight recorder an IGC file came from, said after the upload. */
+export const igcRecorderBodySchema = z.object({
+  unitId: uuid,
+}, { error: 'Send the flight recorder as { unitId }.' }).strict()
+
 export const reviewBodySchema = z.discriminatedUnion('decision', [
   z.object({ decision: z.literal('accept') }),
   z.object({

@@ -21,6 +21,8 @@ const reading = z.object({
 export const weighInInputSchema = z.object({
   units: z.enum(['kg-m', 'lb-in'], { error: 'Choose kg and metres, or lb and inches.' }),
   readings: z.array(reading).min(1, { error: 'Enter at least one scale reading.' }).max(4, { error: 'Enter at most four scale readings.' }),
+  /** Water ballast declared but not in the tanks on the scales (weighed dry), kg; 0 or left out when the tanks are as flown. */
+  declaredBallastKg: z.number({ error: 'Enter the declared water ballast in kg.' }).min(0, { error: 'Declared water ballast cannot be negative.' }).max(400, { error: 'Declared water ballast above 400 kg is not a glider’s.' }).optional(),
 }, { error: 'Send the weigh-in as an object.' })
 export type WeighInInput = z.infer<typeof weighInInputSchema>
 

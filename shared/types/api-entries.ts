@@ -31,6 +31,14 @@ export interface EntryView {
   cgForwardLimitM: number | null
   cgAftLimitM: number | null
   datumDescription: string | null
+  motorGlider: 'none' | 'self-launching' | 'sustainer' | 'electric'
+  /** The pilot's and co-pilot's mass with parachute, kg (registration weighing, staff). */
+  pilotMassKg: number | null
+  copilotMassKg: number | null
+  /** The flight manual's lever arms, m from the datum. */
+  pilotArmM: number | null
+  copilotArmM: number | null
+  ballastArmM: number | null
   paymentStatus: PaymentStatus
   submittedAt: string | null
   decidedAt: string | null
@@ -51,6 +59,8 @@ export interface UnitView {
   obstacleDbVersion: string | null
   obstacleDbExpiresOn: string | null
   approvalLevel: ApprovalLevel | null
+  /** A flight recorder's IGC recorder ID ("XXXABC"). */
+  igcRecorderId: string | null
 }
 
 /** Documents, IGC files and payments of an entry, as other areas' tables provide them. */

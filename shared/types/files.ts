@@ -57,6 +57,10 @@ export interface IgcFileView {
   competitionClass: string | null
   recorderType: string | null
   firmwareVersion: string | null
+  /** The A record's manufacturer code and serial id ("XXXABC"). */
+  recorderId: string | null
+  /** The I record's extension codes. */
+  extensions: string[]
   hasGRecord: boolean
   parseErrors: { line: number, message: string }[]
   uploadedAt: string

@@ -44,6 +44,8 @@ export interface IgcFileRow {
   declared_class: string | null
   recorder_type: string | null
   firmware_version: string | null
+  recorder_id: string | null
+  extensions: string[]
   has_g_record: boolean
   parse_errors: { line: number, message: string }[]
   uploaded_by: string

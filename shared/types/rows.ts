@@ -102,6 +102,12 @@ export interface EntryRow {
   cg_forward_limit_m: string | null
   cg_aft_limit_m: string | null
   datum_description: string | null
+  motor_glider: string
+  pilot_mass_kg: string | null
+  copilot_mass_kg: string | null
+  pilot_arm_m: string | null
+  copilot_arm_m: string | null
+  ballast_arm_m: string | null
   submitted_at: Date | null
   decided_at: Date | null
   decided_by: string | null
@@ -127,6 +133,7 @@ export interface UnitRow {
   obstacle_db_version: string | null
   obstacle_db_expires_on: string | null
   approval_level: string | null
+  igc_recorder_id: string | null
   created_at: Date
   updated_at: Date
 }

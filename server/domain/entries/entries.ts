@@ -9,7 +9,7 @@ import type { Knex } from 'knex'
 import type { User } from '#auth-utils'
 import type { EntryStatus } from '#shared/constants/entries'
 import { MESSAGES } from '#shared/constants/messages'
-import type { EntryBody, EntryPatch, UnitBody } from '#shared/schemas/entry'
+import type { EntryBody, EntryPatch, OccupantMasses, UnitBody } from '#shared/schemas/entry'
 import type { CompetitionClassSummary } from '#shared/types/api'
 import type {
   DossierDocument, DossierIgcFile, DossierPayment, EntryCompetitionInfo, EntryDossier, EntryPermissions,
@@ -59,6 +59,12 @@ export function toEntryView(row: EntryRow & { entrant_name?: string }): EntryVie
     cgForwardLimitM: num(row.cg_forward_limit_m),
     cgAftLimitM: num(row.cg_aft_limit_m),
     datumDescription: row.datum_description,
+    motorGlider: (row.motor_glider ?? 'none') as EntryView['motorGlider'],
+    pilotMassKg: num(row.pilot_mass_kg),
+    copilotMassKg: num(row.copilot_mass_kg),
+    pilotArmM: num(row.pilot_arm_m),
+    copilotArmM: num(row.copilot_arm_m),
+    ballastArmM: num(row.ballast_arm_m),
     paymentStatus: row.payment_status,
     submittedAt: iso(row.submitted_at),
     decidedAt: iso(row.decided_at),
@@ -81,13 +87,14 @@ export function toUnitView(row: UnitRow): UnitView {
     obstacleDbVersion: row.obstacle_db_version,
     obstacleDbExpiresOn: row.obstacle_db_expires_on,
     approvalLevel: row.approval_level as UnitView['approvalLevel'],
+    igcRecorderId: row.igc_recorder_id ?? null,
   }
 }
 
 const UNIT_COLUMNS = [
   'id', 'entry_id', 'competition_id', 'kind', 'model', 'serial', 'firmware_version', 'radio_id',
   'obstacle_db_version', 'approval_level', 'created_at', 'updated_at',
-  'firmware_expires_on', 'firmware_updated_on', 'obstacle_db_expires_on',
+  'firmware_expires_on', 'firmware_updated_on', 'obstacle_db_expires_on', 'igc_recorder_id',
 ]
 
 export async function listUnits(entryIds: string[], db: Knex = useDb()): Promise<UnitRow[]> {
@@ -269,9 +276,13 @@ const ENTRY_FIELDS = {
   cgForwardLimitM: 'cg_forward_limit_m',
   cgAftLimitM: 'cg_aft_limit_m',
   datumDescription: 'datum_description',
+  motorGlider: 'motor_glider',
+  pilotArmM: 'pilot_arm_m',
+  copilotArmM: 'copilot_arm_m',
+  ballastArmM: 'ballast_arm_m',
 } as const satisfies Record<keyof EntryBody, keyof EntryRow>
 type EntryField = keyof typeof ENTRY_FIELDS
-const NUMERIC_FIELDS = new Set<EntryField>(['spanM', 'mtomKg', 'emptyMassKg', 'cgForwardLimitM', 'cgAftLimitM'])
+const NUMERIC_FIELDS = new Set<EntryField>(['spanM', 'mtomKg', 'emptyMassKg', 'cgForwardLimitM', 'cgAftLimitM', 'pilotArmM', 'copilotArmM', 'ballastArmM'])
 
 function fieldValue(row: EntryRow, field: EntryField): unknown {
   const v = row[ENTRY_FIELDS[field]]
@@ -288,6 +299,7 @@ const UNIT_FIELDS = {
   obstacleDbVersion: 'obstacle_db_version',
   obstacleDbExpiresOn: 'obstacle_db_expires_on',
   approvalLevel: 'approval_level',
+  igcRecorderId: 'igc_recorder_id',
 } as const satisfies Record<string, keyof UnitRow>
 type UnitField = keyof typeof UNIT_FIELDS
 
@@ -696,3 +708,37 @@ export async function myEntries(userId: string, db: Knex = useDb()): Promise<MyE
   })
 }
 
+
+// ---------------------------------------------------------------------------------------
+// The registration weighing
+
+/**
+ * Staff record the pilot's and co-pilot's weighed mass with parachute (the registration
+ * weighing); whatever the entry's status. One audit row per changed mass (numbers only).
+ */
+export async function recordOccupantMasses(access: EntryAccess, body: OccupantMasses): Promise<void> {
+  const { competition, user } = access
+  await useDb().transaction(async (trx) => {
+    const current: EntryRow = await trx('entries').where({ id: access.entry.id }).forUpdate().first()
+    if (current.status === 'withdrawn') throw httpError(409, MESSAGES.alreadyWithdrawn)
+    const changes: Record<string, number | null> = {}
+    const changed: { field: string, from: number | null, to: number | null }[] = []
+    for (const [field, column] of [['pilotMassKg', 'pilot_mass_kg'], ['copilotMassKg', 'copilot_mass_kg']] as const) {
+      const next = body[field]
+      if (next === undefined) continue
+      const from = num(current[column])
+      if (from === next) continue
+      changes[column] = next
+      changed.push({ field, from, to: next })
+    }
+    if (!changed.length) return
+    await trx('entries').where({ id: current.id }).update({ ...changes, updated_at: trx.fn.now() })
+    for (const c of changed) {
+      await audit(trx, {
+        actorUserId: user.id, competitionId: competition.id, action: 'entry.occupant-mass-recorded', subjectType: 'entry', subjectId: current.id,
+        details: c,
+      })
+    }
+    await dossierChanged(trx, competition.id, [current.id], user.id)
+  })
+}

@@ -8,6 +8,8 @@ import { audit } from '#domain/audit/audit'
 import { dossierChanged } from '#domain/board/dossier-changed'
 import { useDb } from '#server/utils/db'
 import { iso } from '#domain/read-model/values'
+import { httpError } from '#server/utils/errors'
+import { MESSAGES } from '#shared/constants/messages'
 import type { IgcHeader, IgcLineError } from './igc-header'
 import { newStorageKey, sha256Hex, storeThenCommit } from './storage'
 
@@ -36,6 +38,8 @@ function toView(r: IgcSelect): IgcFileView {
     competitionClass: r.declared_class,
     recorderType: r.recorder_type,
     firmwareVersion: r.firmware_version,
+    recorderId: r.recorder_id ?? null,
+    extensions: r.extensions ?? [],
     hasGRecord: r.has_g_record,
     parseErrors: r.parse_errors ?? [],
     uploadedAt: iso(r.uploaded_at),
@@ -106,6 +110,8 @@ export async function createIgcFile(input: {
       declared_class: h.competitionClass,
       recorder_type: h.recorderType,
       firmware_version: h.firmwareVersion,
+      recorder_id: h.recorderId,
+      extensions: h.extensions,
       has_g_record: h.hasGRecord,
       parse_errors: JSON.stringify(input.errors.slice(0, 100)),
       uploaded_by: input.actorUserId,
@@ -125,4 +131,32 @@ export async function createIgcFile(input: {
     return row!.id
   }))
   return toView(await selectIgc(useDb()).where('f.id', id).first() as IgcSelect)
+}
+
+/**
+ * The entrant (or staff) says which flight recorder a current IGC file came from. The file
+ * becomes that recorder's current one; a file that recorder had before is kept as history.
+ */
+export async function nameIgcRecorder(input: { competitionId: string, entryId: string, igcFileId: string, unitId: string, actorUserId: string }): Promise<IgcFileView> {
+  await useDb().transaction(async (trx) => {
+    const file = await trx('igc_files').where({ id: input.igcFileId, entry_id: input.entryId }).forUpdate().first('id', 'unit_id', 'superseded') as { id: string, unit_id: string | null, superseded: boolean } | undefined
+    if (!file) throw httpError(404, MESSAGES.igcFileNotFound)
+    if (file.superseded) throw httpError(409, MESSAGES.igcFileNotCurrent)
+    if (file.unit_id === input.unitId) return
+    const previous = await trx('igc_files')
+      .where({ entry_id: input.entryId, unit_id: input.unitId, superseded: false })
+      .update({ superseded: true, replaced_by: file.id })
+      .returning('id') as { id: string }[]
+    await trx('igc_files').where({ id: file.id }).update({ unit_id: input.unitId })
+    await audit(trx, {
+      actorUserId: input.actorUserId,
+      competitionId: input.competitionId,
+      action: 'igc-file.recorder-named',
+      subjectType: 'igc_file',
+      subjectId: file.id,
+      details: { entryId: input.entryId, unitId: input.unitId, from: file.unit_id, replaces: previous.map(p => p.id) },
+    })
+    await dossierChanged(trx, input.competitionId, [input.entryId], input.actorUserId)
+  })
+  return toView(await selectIgc(useDb()).where('f.id', input.igcFileId).first() as IgcSelect)
 }

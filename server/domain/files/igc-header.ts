@@ -14,6 +14,10 @@ export interface IgcHeader {
   competitionClass: string | null
   recorderType: string | null
   firmwareVersion: string | null
+  /** The A record's manufacturer code and serial id, six characters ("XXXABC"). */
+  recorderId: string | null
+  /** The three-letter codes the I record declares, in its order ("FXA", "SIU", "ENL"). */
+  extensions: string[]
   hasGRecord: boolean
 }
 
@@ -42,8 +46,42 @@ function clean(value: string | null | undefined): string | null {
   return v ? v : null
 }
 
+/** A crew header of "NIL" (any case) names nobody (common practice of recorders' declarations). */
+function crew(value: string | null | undefined): string | null {
+  const v = clean(value)
+  return v && /^nil$/i.test(v) ? null : v
+}
+
+/**
+ * The A record: "A" + the manufacturer's three-character code + the recorder's three-character
+ * serial id + free text (IGC GNSS FR specification Appendix A, A3.1: "AXXXABC…").
+ */
+export function recorderIdOf(lines: readonly string[]): string | null {
+  const a = lines.find(l => l.startsWith('A'))
+  const m = a?.match(/^A([A-Z0-9]{3})([A-Z0-9]{3})/i)
+  return m ? `${m[1]}${m[2]}`.toUpperCase() : null
+}
+
+/**
+ * The I record: "I" + the number of extensions (2 digits), then for each its start and finish
+ * byte (2 digits each) and three-letter code (Appendix A, A3.4: "I033638FXA3940SIU4143ENL").
+ */
+export function extensionsOf(lines: readonly string[]): string[] {
+  const i = lines.find(l => l.startsWith('I'))
+  const m = i?.match(/^I(\d{2})/)
+  if (!i || !m) return []
+  const out: string[] = []
+  for (let k = 0; k < Number(m[1]); k++) {
+    const part = i.slice(3 + k * 7, 10 + k * 7)
+    if (!/^\d{4}[A-Z0-9]{3}$/i.test(part)) break
+    out.push(part.slice(4).toUpperCase())
+  }
+  return out
+}
+
 export function parseIgc(text: string): IgcParseResult {
   const lines = text.split('\n')
+  const trimmed = lines.map(l => l.trim())
   // The same loop as IGCParser.parse in lenient mode, but keeping each error's line number.
   const parser = new IGCParser({ lenient: true }) as unknown as LineParser
   const errors: IgcLineError[] = []
@@ -78,13 +116,15 @@ export function parseIgc(text: string): IgcParseResult {
     header: {
       flightDate: clean(result.date),
       pilot: clean(result.pilot),
-      copilot: clean(result.copilot),
+      copilot: crew(result.copilot),
       gliderType: clean(result.gliderType),
       gliderId: clean(result.registration),
       competitionId: clean(result.callsign),
       competitionClass: clean(result.competitionClass),
       recorderType: clean(result.loggerType),
       firmwareVersion: clean(result.firmwareVersion),
+      recorderId: recorderIdOf(trimmed),
+      extensions: extensionsOf(trimmed),
       hasGRecord: Boolean(result.security),
     },
   }

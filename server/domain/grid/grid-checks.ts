@@ -6,7 +6,7 @@
 // Two scrutineers on one entry both get a row; the later check (by checked_at) counts.
 import { createHash, randomUUID } from 'node:crypto'
 import type { Knex } from 'knex'
-import { blockingFirst, checkOutcome, evaluate, readiness, weighIn, withWeighIn, type DirectorAction, type Finding, type IsoDate, type Readiness } from '#shared/engine'
+import { blockingFirst, checkOutcome, evaluate, readiness, takeOffMass, withGridCheck, type DirectorAction, type Finding, type IsoDate, type Readiness } from '#shared/engine'
 import type { ChecklistItem } from '#shared/constants/grid'
 import { MESSAGES } from '#shared/constants/messages'
 import type { GridCheckBody } from '#shared/schemas/grid'
@@ -26,6 +26,7 @@ import { fieldError, httpError } from '#server/utils/errors'
 import { gridDayAllowed, todayIn } from '#shared/utils/grid-days'
 import { initialsOf } from '#shared/utils/initials'
 import { rulesOf } from '#shared/utils/rules'
+import { checklistFor } from '#shared/utils/checklist'
 
 // ---------------------------------------------------------------------------------------
 // Pure parts
@@ -278,19 +279,22 @@ export async function recordGridCheck(
     if (entry.status !== 'accepted') throw httpError(409, MESSAGES.gridEntryNotAccepted)
     if (!gridDayAllowed(body.day, todayIn(competition.time_zone, now))) throw fieldError('day', MESSAGES.gridDayOutOfRange)
 
-    const stored = storedAnswers(rulesOf(competition.settings).gridChecklist, body.answers)
+    const dossier = loaded?.dossiers[0]
+    const classBallast = dossier && loaded?.competition ? loaded.competition.classLimits[dossier.entry.classCode]?.waterBallast : undefined
+    const stored = storedAnswers(checklistFor(rulesOf(competition.settings).gridChecklist, classBallast), body.answers)
     if ('problem' in stored) {
       const { kind, itemId } = stored.problem
       throw fieldError('answers', kind === 'unknown' ? MESSAGES.gridUnknownItem(itemId) : MESSAGES.gridDuplicateItem(itemId))
     }
     const outcome = checkOutcome(stored.answers)
-    const weighed = body.weighIn ? weighIn(body.weighIn.readings, body.weighIn.units) : null
+    // The take-off mass and CG the checks read: the readings, declared ballast and occupants.
+    const weighed = body.weighIn && dossier ? takeOffMass(body.weighIn, dossier.entry) : null
 
-    // The engine over the dossier as it stands, with this check's weigh-in as the day's last.
-    const dossier = loaded?.dossiers[0]
+    // The engine over the dossier as this check leaves it: the check as the day's latest, its
+    // weigh-in as the day's last.
     let findings: Finding[] = []
     if (loaded?.competition && dossier) {
-      findings = blockingFirst(evaluate(withWeighIn(dossier, body.day, body.weighIn), loaded.competition, loaded.field, body.day))
+      findings = blockingFirst(evaluate(withGridCheck(dossier, { day: body.day, answers: stored.answers, weighIn: body.weighIn }), loaded.competition, loaded.field, body.day))
     }
     const actions: DirectorAction[] = actionRows.map(toTileAction)
     const ready: Readiness = readiness(findings, { day: body.day, outcome }, actions, body.day)
@@ -327,6 +331,7 @@ export async function recordGridCheck(
         readings: JSON.stringify(body.weighIn.readings),
         mass_kg: massKg,
         cg_arm_m: cgArmM,
+        declared_ballast_kg: body.weighIn.declaredBallastKg ?? 0,
         weighed_by: user.id,
       }))
     }
@@ -352,12 +357,19 @@ export async function recordGridCheck(
       // since — with this check as the entry's latest when it is (see `withCheck`). A check
       // that brought a weigh-in has the tile read the dossier again, with the weigh-in where
       // the stored order puts it.
+      // The dossier read carries the day's latest check before this one: with this check as the
+      // latest, its answers (the class's ballast item) count.
       const check: CheckRow = { entry_id: entry.id, day: body.day, checked_at: body.checkedAt, outcome, answers: stored.answers, scrutineer_name: user.name }
+      const inputs = withCheck(read.inputs, check)
+      const latest = inputs?.checks.includes(check) ?? false
+      const dossiers = body.weighIn || !inputs
+        ? undefined
+        : latest ? { ...loaded!, dossiers: loaded!.dossiers.map(d => (d.entry.id === entry.id ? { ...d, gridCheck: { day: body.day, outcome, answers: stored.answers } } : d)) } : loaded!
       await refreshTiles(trx, competition.id, body.day, changes, {
         cause: 'grid-check',
         actorId: user.id,
         entryIds: [entry.id],
-        preloaded: { dossiers: body.weighIn ? undefined : loaded!, actions: actionRows, inputs: withCheck(read.inputs, check) },
+        preloaded: { dossiers, actions: actionRows, inputs },
       })
     }
     // The check as stored, from what was written (one statement fewer while the lock is held).

@@ -5,7 +5,7 @@
 // files, weigh-ins and, for a day, that day's latest grid check, and the two slim lists the
 // field of every entry is built from; then pure row → engine mappings.
 import type { Knex } from 'knex'
-import { buildField, type ClassLimit, type CompetitionForEngine, type Dossier, type EngineDocument, type EngineEntry, type EngineIgcFile, type EngineUnit, type Field, type FirmwareRelease, type GridCheck, type IsoDate, type ScaleReading, type WeighInRecord, type WeighUnits } from '#shared/engine'
+import { buildField, type ClassLimit, type MotorGliderKind, type CompetitionForEngine, type Dossier, type EngineDocument, type EngineEntry, type EngineIgcFile, type EngineUnit, type Field, type FirmwareRelease, type GridCheck, type IsoDate, type ScaleReading, type WeighInRecord, type WeighUnits } from '#shared/engine'
 import type { EntryStatus, PaymentStatus } from '#shared/constants/entries'
 import { rulesOf } from '#shared/utils/rules'
 import { useDb } from '#server/utils/db'
@@ -27,6 +27,13 @@ export interface FindingsEntryRow {
   mtom_kg: string | number | null
   cg_forward_limit_m: string | number | null
   cg_aft_limit_m: string | number | null
+  span_m?: string | number | null
+  motor_glider?: string | null
+  pilot_mass_kg?: string | number | null
+  copilot_mass_kg?: string | number | null
+  pilot_arm_m?: string | number | null
+  copilot_arm_m?: string | number | null
+  ballast_arm_m?: string | number | null
   class_id: string
   class_name: string
   class_code: string
@@ -44,6 +51,7 @@ export interface FindingsUnitRow {
   firmware_updated_on: string | null
   obstacle_db_expires_on: string | null
   approval_level: string | null
+  igc_recorder_id?: string | null
 }
 
 export interface FindingsDocumentRow {
@@ -67,6 +75,10 @@ export interface FindingsIgcRow {
   declared_class: string | null
   has_g_record: boolean
   uploaded_at: Date | string
+  original_filename?: string | null
+  recorder_id?: string | null
+  firmware_version?: string | null
+  extensions?: string[] | null
 }
 
 export interface FindingsCompetitionRow {
@@ -82,6 +94,7 @@ export interface FindingsWeighInRow {
   weighed_on: string
   units: WeighUnits
   readings: ScaleReading[]
+  declared_ballast_kg?: string | number | null
 }
 
 /** The latest grid check of an entry on the evaluated day. */
@@ -89,12 +102,15 @@ export interface FindingsGridCheckRow {
   entry_id: string
   day: string
   outcome: 'pass' | 'fail'
+  answers?: { itemId: string, result: string }[] | null
 }
 
 export interface FindingsClassRow {
   id: string
   code: string
   max_mtom_kg: string | number | null
+  max_span_m?: string | number | null
+  water_ballast?: boolean | null
 }
 
 export interface FindingsFirmwareRow {
@@ -128,6 +144,13 @@ export function toEngineEntry(r: FindingsEntryRow): EngineEntry {
     mtomKg: num(r.mtom_kg),
     cgForwardLimitM: num(r.cg_forward_limit_m),
     cgAftLimitM: num(r.cg_aft_limit_m),
+    spanM: num(r.span_m),
+    motorGlider: (r.motor_glider ?? 'none') as MotorGliderKind,
+    pilotMassKg: num(r.pilot_mass_kg),
+    copilotMassKg: num(r.copilot_mass_kg),
+    pilotArmM: num(r.pilot_arm_m),
+    copilotArmM: num(r.copilot_arm_m),
+    ballastArmM: num(r.ballast_arm_m),
   }
 }
 
@@ -152,6 +175,7 @@ export function toEngineUnit(r: FindingsUnitRow): EngineUnit {
     serial: r.serial ?? '',
     firmwareVersion: r.firmware_version,
     approvalLevel: r.approval_level,
+    igcRecorderId: r.igc_recorder_id ?? null,
   }
 }
 
@@ -159,12 +183,15 @@ export function toEngineDocument(r: FindingsDocumentRow): EngineDocument {
   return { id: r.id, kind: r.kind, status: r.status, expiresOn: r.expires_on }
 }
 
-/** An IGC file no longer tied to a unit (the unit was deleted) speaks for no recorder: null. */
-export function toEngineIgcFile(r: FindingsIgcRow): EngineIgcFile | null {
-  if (!r.unit_id) return null
+/** An IGC file; one tied to no recorder (uploaded without naming it, or its unit deleted) has unitId null. */
+export function toEngineIgcFile(r: FindingsIgcRow): EngineIgcFile {
   return {
     id: r.id,
     unitId: r.unit_id,
+    filename: r.original_filename ?? null,
+    recorderId: r.recorder_id ?? null,
+    firmwareVersion: r.firmware_version ?? null,
+    extensions: r.extensions ?? [],
     flightDate: r.flight_date,
     pilot: r.pilot,
     copilot: r.copilot,
@@ -184,7 +211,9 @@ export function toEngineIgcFile(r: FindingsIgcRow): EngineIgcFile | null {
 export function toEngineCompetition(c: FindingsCompetitionRow, classes: FindingsClassRow[], firmware: FindingsFirmwareRow[]): CompetitionForEngine | null {
   if (!c.first_contest_day || !c.last_contest_day) return null
   const classLimits: Record<string, ClassLimit> = {}
-  for (const k of classes) classLimits[classKey(k.code, k.id)] = { maxMtomKg: num(k.max_mtom_kg) }
+  for (const k of classes) {
+    classLimits[classKey(k.code, k.id)] = { maxMtomKg: num(k.max_mtom_kg), maxSpanM: num(k.max_span_m), waterBallast: k.water_ballast ?? true }
+  }
   const firmwareCatalogue: FirmwareRelease[] = firmware.map(f => ({ family: f.unit_family, version: f.version, expiresOn: f.expires_on }))
   return {
     firstContestDay: c.first_contest_day,
@@ -197,7 +226,13 @@ export function toEngineCompetition(c: FindingsCompetitionRow, classes: Findings
 }
 
 export function toWeighInRecord(r: FindingsWeighInRow): WeighInRecord {
-  return { id: r.id, weighedOn: r.weighed_on, units: r.units, readings: r.readings.map(x => ({ point: x.point, weight: Number(x.weight), arm: Number(x.arm) })) }
+  return {
+    id: r.id,
+    weighedOn: r.weighed_on,
+    units: r.units,
+    readings: r.readings.map(x => ({ point: x.point, weight: Number(x.weight), arm: Number(x.arm) })),
+    declaredBallastKg: num(r.declared_ballast_kg) ?? 0,
+  }
 }
 
 /**
@@ -221,14 +256,11 @@ export function toDossiers(
   }
   for (const u of units) byEntry.get(u.entry_id)?.units.push(toEngineUnit(u))
   for (const doc of documents) byEntry.get(doc.entry_id)?.documents.push(toEngineDocument(doc))
-  for (const f of igcFiles) {
-    const file = toEngineIgcFile(f)
-    if (file) byEntry.get(f.entry_id)?.igcFiles.push(file)
-  }
+  for (const f of igcFiles) byEntry.get(f.entry_id)?.igcFiles.push(toEngineIgcFile(f))
   for (const w of weighIns) byEntry.get(w.entry_id)?.weighIns.push(toWeighInRecord(w))
   for (const g of gridChecks) {
     const d = byEntry.get(g.entry_id)
-    if (d) d.gridCheck = { day: g.day, outcome: g.outcome } satisfies GridCheck
+    if (d) d.gridCheck = { day: g.day, outcome: g.outcome, answers: (g.answers ?? []).map(a => ({ itemId: a.itemId, result: a.result })) } satisfies GridCheck
   }
   return out
 }
@@ -300,7 +332,7 @@ const PARTS = {
     from: 'competitions c where c.id = :competitionId',
   },
   class: {
-    columns: [['k.id', 'id'], ['k.code', 'code'], ['k.max_mtom_kg::text', 'max_mtom_kg']],
+    columns: [['k.id', 'id'], ['k.code', 'code'], ['k.max_mtom_kg::text', 'max_mtom_kg'], ['k.max_span_m::text', 'max_span_m'], ['k.water_ballast', 'water_ballast']],
     from: 'classes k where k.competition_id = :competitionId',
   },
   firmware: {
@@ -311,7 +343,9 @@ const PARTS = {
     columns: [['e.id', 'id'], ['e.comp_id', 'comp_id'], ['e.registration', 'registration'], ['e.glider_type', 'glider_type'],
       ['e.pilot_name', 'pilot_name'], ['e.copilot_name', 'copilot_name'], ['e.status', 'status'], ['e.payment_status', 'payment_status'],
       ['e.mtom_kg::text', 'mtom_kg'], ['e.cg_forward_limit_m::text', 'cg_forward_limit_m'], ['e.cg_aft_limit_m::text', 'cg_aft_limit_m'],
-      ['e.class_id', 'class_id'], ['k.name', 'class_name'], ['k.code', 'class_code']],
+      ['e.class_id', 'class_id'], ['k.name', 'class_name'], ['k.code', 'class_code'], ['e.span_m::text', 'span_m'], ['e.motor_glider', 'motor_glider'],
+      ['e.pilot_mass_kg::text', 'pilot_mass_kg'], ['e.copilot_mass_kg::text', 'copilot_mass_kg'], ['e.pilot_arm_m::text', 'pilot_arm_m'],
+      ['e.copilot_arm_m::text', 'copilot_arm_m'], ['e.ballast_arm_m::text', 'ballast_arm_m']],
     from: 'entries e join classes k on k.id = e.class_id where e.competition_id = :competitionId',
     order: 'e.comp_id, e.id',
     entry: 'e.id',
@@ -319,7 +353,8 @@ const PARTS = {
   unit: {
     columns: [['u.id', 'id'], ['u.entry_id', 'entry_id'], ['u.kind', 'kind'], ['u.model', 'model'], ['u.serial', 'serial'],
       ['u.radio_id', 'radio_id'], ['u.firmware_version', 'firmware_version'], ['u.approval_level', 'approval_level'],
-      ['u.firmware_expires_on', 'firmware_expires_on'], ['u.firmware_updated_on', 'firmware_updated_on'], ['u.obstacle_db_expires_on', 'obstacle_db_expires_on']],
+      ['u.firmware_expires_on', 'firmware_expires_on'], ['u.firmware_updated_on', 'firmware_updated_on'], ['u.obstacle_db_expires_on', 'obstacle_db_expires_on'],
+      ['u.igc_recorder_id', 'igc_recorder_id']],
     from: 'units u where u.competition_id = :competitionId',
     order: 'u.kind, u.created_at, u.id',
     entry: 'u.entry_id',
@@ -333,7 +368,8 @@ const PARTS = {
   igc: {
     columns: [['i.id', 'id'], ['i.entry_id', 'entry_id'], ['i.unit_id', 'unit_id'], ['i.pilot', 'pilot'], ['i.copilot', 'copilot'],
       ['i.glider_type', 'glider_type'], ['i.glider_id', 'glider_id'], ['i.declared_comp_id', 'declared_comp_id'],
-      ['i.declared_class', 'declared_class'], ['i.has_g_record', 'has_g_record'], ['i.uploaded_at', 'uploaded_at'], ['i.flight_date', 'flight_date']],
+      ['i.declared_class', 'declared_class'], ['i.has_g_record', 'has_g_record'], ['i.uploaded_at', 'uploaded_at'], ['i.flight_date', 'flight_date'],
+      ['i.original_filename', 'original_filename'], ['i.recorder_id', 'recorder_id'], ['i.firmware_version', 'firmware_version'], ['i.extensions', 'extensions']],
     from: 'igc_files i where i.competition_id = :competitionId and not i.superseded',
     order: 'i.uploaded_at, i.id',
     entry: 'i.entry_id',
@@ -341,13 +377,14 @@ const PARTS = {
   // Within a day the engine takes the last weigh-in it is given: in the order of the time of
   // the grid check it came with, so the later check's weighing counts.
   weighIn: {
-    columns: [['w.id', 'id'], ['w.entry_id', 'entry_id'], ['w.units', 'units'], ['w.readings', 'readings'], ['w.weighed_on', 'weighed_on']],
+    columns: [['w.id', 'id'], ['w.entry_id', 'entry_id'], ['w.units', 'units'], ['w.readings', 'readings'], ['w.weighed_on', 'weighed_on'],
+      ['w.declared_ballast_kg::text', 'declared_ballast_kg']],
     from: 'weigh_ins w left join grid_checks g on g.id = w.grid_check_id where w.competition_id = :competitionId',
     order: 'w.weighed_on, g.checked_at, w.created_at, w.id',
     entry: 'w.entry_id',
   },
   gridCheck: {
-    columns: [['g.entry_id', 'entry_id'], ['g.outcome', 'outcome'], ['g.day', 'day']],
+    columns: [['g.entry_id', 'entry_id'], ['g.outcome', 'outcome'], ['g.day', 'day'], ['g.answers', 'answers']],
     from: 'grid_checks g where g.id in (:latestChecks)',
     entry: 'g.entry_id',
   },

@@ -1,5 +1,6 @@
 // Small readers shared by the checks.
-import type { CheckContext, CollisionWarningUnit, Dossier, FlightRecorderUnit, IsoDate, WeighInRecord } from '../types'
+import { faiClass } from '../../constants/classes'
+import type { ClassLimit, CheckContext, CollisionWarningUnit, Dossier, FlightRecorderUnit, IsoDate, WeighInRecord } from '../types'
 
 export function collisionWarningUnits(d: Dossier): CollisionWarningUnit[] {
   return d.units.filter((u): u is CollisionWarningUnit => u.kind === 'collision-warning')
@@ -40,4 +41,19 @@ export function plural(n: number, one: string, many: string): string {
 
 export function lastDay(ctx: CheckContext): IsoDate {
   return ctx.competition.lastContestDay
+}
+
+/**
+ * The entry's class limits: the competition's setting for the class, else the FAI default
+ * (shared/constants/classes.ts); each field falls back on its own.
+ */
+export function classLimitOf(ctx: CheckContext): { maxSpanM: number | null, maxMtomKg: number | null, waterBallast: boolean } {
+  const code = ctx.dossier.entry.classCode
+  const set: ClassLimit | undefined = ctx.competition.classLimits[code]
+  const fai = faiClass(code)
+  return {
+    maxSpanM: set && set.maxSpanM !== undefined ? set.maxSpanM : (fai?.maxSpanM ?? null),
+    maxMtomKg: set ? set.maxMtomKg : (fai?.maxMtomKg ?? null),
+    waterBallast: set?.waterBallast ?? fai?.waterBallast ?? true,
+  }
 }

@@ -2,7 +2,7 @@
 // demo's (contest days 2027-07-12 … 2027-07-18). Each test changes only what it is about.
 import { DEFAULT_RULES } from '#shared/schemas/competition'
 import { buildField } from '#shared/engine/field'
-import type { CompetitionForEngine, Dossier, EngineUnit, Field } from '#shared/engine/types'
+import type { CompetitionForEngine, Dossier, EngineIgcFile, EngineUnit, Field } from '#shared/engine/types'
 import type { CompetitionRules } from '#shared/schemas/competition'
 
 export const FIRST_DAY = '2027-07-12'
@@ -14,7 +14,7 @@ export function competition(rules: Partial<CompetitionRules> = {}, extra: Partia
     lastContestDay: LAST_DAY,
     timeZone: 'Europe/Berlin',
     rules: { ...DEFAULT_RULES, ...rules },
-    classLimits: { 'standard': { maxMtomKg: 525 }, '18m': { maxMtomKg: 600 }, 'club': { maxMtomKg: null } },
+    classLimits: { 'standard': { maxMtomKg: 525, maxSpanM: 15, waterBallast: true }, '18m': { maxMtomKg: 600, maxSpanM: 18, waterBallast: true }, 'club': { maxMtomKg: null, maxSpanM: null, waterBallast: false } },
     ...extra,
   }
 }
@@ -34,7 +34,29 @@ export function collisionWarning(over: Partial<Extract<EngineUnit, { kind: 'coll
 }
 
 export function recorder(over: Partial<Extract<EngineUnit, { kind: 'flight-recorder' }>> = {}): EngineUnit {
-  return { id: 'fr-1', kind: 'flight-recorder', model: 'Plover FR-2', serial: 'FR7300', firmwareVersion: '2.08', approvalLevel: 'all-flights', ...over }
+  return { id: 'fr-1', kind: 'flight-recorder', model: 'Plover FR-2', serial: 'FR7300', firmwareVersion: '2.08', approvalLevel: 'all-flights', igcRecorderId: 'XPL-FR7', ...over }
+}
+
+/** The current IGC file of recorder fr-1, declared for the entry the builder makes. */
+export function igcFile(over: Partial<EngineIgcFile> = {}): EngineIgcFile {
+  return {
+    id: 'igc-1',
+    unitId: 'fr-1',
+    filename: '7C1XXXA1.IGC',
+    recorderId: 'XPLFR7',
+    firmwareVersion: '2.08',
+    extensions: ['FXA', 'SIU'],
+    flightDate: '2027-06-20',
+    pilot: 'Linnea Holmquist',
+    copilot: null,
+    gliderType: 'Tarn 15',
+    gliderId: 'KM-ABC',
+    competitionId: 'A1',
+    competitionClass: 'Standard',
+    hasGRecord: true,
+    uploadedAt: '2027-06-21T10:00:00.000Z',
+    ...over,
+  }
 }
 
 export function dossier(over: Partial<Dossier> = {}, entry: Partial<Dossier['entry']> = {}): Dossier {
@@ -56,7 +78,7 @@ export function dossier(over: Partial<Dossier> = {}, entry: Partial<Dossier['ent
     },
     units: [collisionWarning(), recorder()],
     documents: (['airworthiness', 'insurance', 'licence', 'medical'] as const).map(kind => ({ kind, status: 'accepted' as const, expiresOn: '2028-01-31' })),
-    igcFiles: [],
+    igcFiles: [igcFile()],
     payment: { status: 'paid' },
     weighIns: [],
     gridCheck: null,

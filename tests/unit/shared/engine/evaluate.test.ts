@@ -6,8 +6,8 @@ import { evaluate, evaluateAll } from '#shared/engine/evaluate'
 import { competitionRulesSchema } from '#shared/schemas/competition'
 import type { Dossier, EngineUnit } from '#shared/engine/types'
 import { DEMO_COMPETITION } from '../../../../seeds/demo-data'
-import { DEMO_ENTRIES, DEMO_FIRMWARE, SEEDED_PROBLEMS } from '../../../../seeds/demo-entries'
-import { competition, dossier, fieldOf } from './builders'
+import { DEMO_ENTRIES, DEMO_FIRMWARE, DEMO_WEIGH_IN, SEEDED_PROBLEMS } from '../../../../seeds/demo-entries'
+import { competition, dossier, fieldOf, igcFile } from './builders'
 
 // The product design sits beside the repository (../shared/DESIGN.md) where it is checked out.
 const DESIGN = new URL('../../../../../shared/DESIGN.md', import.meta.url)
@@ -48,7 +48,7 @@ describe('evaluate', () => {
   it('lists findings in catalogue order, each with the severity its check declares', () => {
     const d = dossier({ payment: { status: 'unpaid' }, units: [] })
     const findings = evaluate(d, competition(), fieldOf(d))
-    expect(findings.map(f => f.checkId)).toEqual(['recorder.present', 'entry.paid'])
+    expect(findings.map(f => f.checkId)).toEqual(['recorder.present', 'entry.paid', 'collision-warning.present'])
     for (const f of findings) {
       const check = CATALOGUE.find(c => c.id === f.checkId)!
       if (check.severity !== 'blocking / advisory') expect(f.severity).toBe(check.severity)
@@ -67,15 +67,27 @@ describe('the seeded demo problems (seeds/demo-entries.ts)', () => {
     firmwareCatalogue: DEMO_FIRMWARE.map(r => ({ ...r })),
   })
   const classNames: Record<string, string> = Object.fromEntries(DEMO_COMPETITION.classes.map(c => [c.code, c.name]))
-  const dossiers: Dossier[] = DEMO_ENTRIES.map((e, i) => dossier({
-    units: e.units.map((u, j): EngineUnit => u.kind === 'collision-warning'
+  const dossiers: Dossier[] = DEMO_ENTRIES.map((e, i) => {
+    const units = e.units.map((u, j): EngineUnit => u.kind === 'collision-warning'
       ? { id: `${e.compId}-u${j}`, kind: 'collision-warning', model: u.model, serial: u.serial, radioId: u.radioId ?? null, firmwareVersion: u.firmwareVersion, firmwareExpiresOn: u.firmwareExpiresOn ?? null, firmwareUpdatedOn: u.firmwareUpdatedOn ?? null }
-      : { id: `${e.compId}-u${j}`, kind: 'flight-recorder', model: u.model, serial: u.serial, firmwareVersion: u.firmwareVersion, approvalLevel: u.approvalLevel ?? null }),
-    payment: { status: e.paymentStatus },
-  }, {
-    id: `entry-${i}`, compId: e.compId, registration: e.registration, gliderType: e.gliderType, pilotName: e.pilotName,
-    copilotName: e.copilotName ?? null, className: classNames[e.classCode]!, classCode: e.classCode, status: e.status, mtomKg: e.mtomKg,
-  }))
+      : { id: `${e.compId}-u${j}`, kind: 'flight-recorder', model: u.model, serial: u.serial, firmwareVersion: u.firmwareVersion, approvalLevel: u.approvalLevel ?? null, igcRecorderId: u.igcRecorderId ?? null })
+    // The IGC files as seeds/demo-files.ts writes them: one per recorder (not S2's second), G5's
+    // with another glider ID and competition ID, L8's recording engine noise.
+    const igcFiles = e.units.flatMap((u, j) => u.kind !== 'flight-recorder' || u.noIgcFile
+      ? []
+      : [igcFile({
+          id: `${e.compId}-igc${j}`, unitId: `${e.compId}-u${j}`, recorderId: u.igcRecorderId, firmwareVersion: u.firmwareVersion,
+          extensions: e.compId === 'L8' ? ['FXA', 'SIU', 'ENL'] : ['FXA', 'SIU'], flightDate: e.compId === 'G5' ? '2027-05-29' : '2027-05-14',
+          pilot: e.pilotName, copilot: e.copilotName ?? null, gliderType: e.gliderType, gliderId: e.compId === 'G5' ? 'KM-ZZQ' : e.registration, competitionId: e.compId === 'G5' ? 'G6' : e.compId,
+          competitionClass: classNames[e.classCode]!,
+        })])
+    const weighIns = e.compId === DEMO_WEIGH_IN.compId ? [{ id: 'w-p6', weighedOn: DEMO_COMPETITION.practiceDays[0], units: 'kg-m' as const, readings: DEMO_WEIGH_IN.readings.map(r => ({ ...r })) }] : []
+    return dossier({ units, igcFiles, weighIns, payment: { status: e.paymentStatus } }, {
+      id: `entry-${i}`, compId: e.compId, registration: e.registration, gliderType: e.gliderType, pilotName: e.pilotName,
+      copilotName: e.copilotName ?? null, className: classNames[e.classCode]!, classCode: e.classCode, status: e.status, mtomKg: e.mtomKg,
+      spanM: e.spanM, motorGlider: e.motorGlider, pilotMassKg: e.pilotMassKg ?? null, copilotMassKg: e.copilotMassKg ?? null,
+    })
+  })
   const field = buildField(dossiers)
   const findingsOf = (compId: string) => evaluate(dossiers.find(d => d.entry.compId === compId)!, comp, field)
   const ids = (compId: string) => findingsOf(compId).map(f => `${f.severity} ${f.checkId}`)
@@ -92,6 +104,20 @@ describe('the seeded demo problems (seeds/demo-entries.ts)', () => {
   it('F9: unpaid blocks', () => expect(ids('F9')).toEqual(['blocking entry.paid']))
   it('R4: no flight recorder blocks', () => expect(ids('R4')).toEqual(['blocking recorder.present']))
   it('H8: firmware not updated in a year advises', () => expect(ids('H8')).toEqual(['advisory firmware.yearly-update']))
+  it('G5: the IGC file declares another glider ID and competition ID', () => {
+    expect(ids('G5')).toEqual(['blocking declaration.matches-entry', 'blocking declaration.matches-entry'])
+  })
+  it('D6: an 18 m span in the Standard class blocks (15 m, FAI Sporting Code Section 3 ch. 7.7)', () => {
+    expect(ids('D6')).toEqual(['blocking span.class-limit'])
+    expect(findingsOf('D6')[0]!.reason).toContain('span of 18.00 m; the Standard class allows at most 15.00 m')
+  })
+  it('E2: a sustainer whose IGC file records no engine use blocks', () => expect(ids('E2')).toEqual(['blocking motor-glider.engine-recording']))
+  it('S2: a recorder without an IGC file blocks', () => expect(ids('S2')).toEqual(['blocking recorder.igc-file']))
+  it('N1: no collision-warning unit blocks', () => expect(ids('N1')).toEqual(['blocking collision-warning.present']))
+  it('P6: the weigh-in with the pilot aboard is over the class limit and the flight manual’s MTOM', () => {
+    expect(ids('P6')).toEqual(['blocking mass.class-limit', 'blocking mass.flight-manual'])
+    expect(findingsOf('P6')[0]!.reason).toContain('543.0 kg (452.0 kg on the scales + pilot with parachute 91.0 kg)')
+  })
 
   it('finds nothing else on the active entries', () => {
     const active = dossiers.filter(d => d.entry.status !== 'withdrawn' && d.entry.status !== 'rejected' && !(d.entry.compId in SEEDED_PROBLEMS))

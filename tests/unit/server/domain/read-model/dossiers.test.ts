@@ -39,7 +39,7 @@ describe('row → engine mappings', () => {
     expect(d!.payment).toEqual({ status: 'paid' })
     expect(d!.weighIns).toEqual([])
     expect(classKey('custom', 'c9')).toBe('custom:c9')
-    expect(competition.classLimits).toEqual({ 'standard': { maxMtomKg: 525 }, 'custom:c9': { maxMtomKg: null } })
+    expect(competition.classLimits).toEqual({ 'standard': { maxMtomKg: 525, maxSpanM: null, waterBallast: true }, 'custom:c9': { maxMtomKg: null, maxSpanM: null, waterBallast: true } })
   })
 
   it('merges the stored rules over the defaults and keeps the firmware catalogue', () => {
@@ -53,12 +53,12 @@ describe('row → engine mappings', () => {
       id: 'u1', kind: 'collision-warning', model: 'Example CW-2', serial: 'CW1', radioId: 'ABC123', firmwareVersion: '7.20',
       firmwareExpiresOn: '2027-10-31', firmwareUpdatedOn: '2027-01-10', obstacleDbExpiresOn: null,
     })
-    expect(toEngineUnit(recorder)).toEqual({ id: 'u2', kind: 'flight-recorder', model: 'Logger', serial: 'FR1', firmwareVersion: '2.1', approvalLevel: 'all-flights' })
+    expect(toEngineUnit(recorder)).toEqual({ id: 'u2', kind: 'flight-recorder', model: 'Logger', serial: 'FR1', firmwareVersion: '2.1', approvalLevel: 'all-flights', igcRecorderId: null })
   })
 
-  it('reads the IGC header fields, and drops a file whose recorder is gone', () => {
-    expect(toEngineIgcFile(igc())).toMatchObject({ unitId: 'u2', gliderId: 'd1234', competitionId: 'k7', competitionClass: 'Standard', hasGRecord: true, uploadedAt: '2027-05-02T10:00:00.000Z' })
-    expect(toEngineIgcFile(igc({ unit_id: null }))).toBeNull()
+  it('reads the IGC header fields, and keeps a file tied to no recorder (unitId null: recorder.igc-file asks which)', () => {
+    expect(toEngineIgcFile(igc())).toMatchObject({ unitId: 'u2', gliderId: 'd1234', competitionId: 'k7', competitionClass: 'Standard', hasGRecord: true, uploadedAt: '2027-05-02T10:00:00.000Z', extensions: [] })
+    expect(toEngineIgcFile(igc({ unit_id: null, recorder_id: 'XKMABC', extensions: ['FXA', 'ENL'] }))).toMatchObject({ unitId: null, recorderId: 'XKMABC', extensions: ['FXA', 'ENL'] })
   })
 
   it('groups units, documents and files under their entries', () => {
@@ -83,10 +83,10 @@ describe('row → engine mappings', () => {
       [{ entry_id: 'e2', day: '2027-07-12', outcome: 'fail' }],
     )
     expect(dossiers[0]!.weighIns.map(w => w.id)).toEqual(['w1', 'w2'])
-    expect(dossiers[0]!.weighIns[1]).toEqual({ id: 'w2', weighedOn: '2027-07-12', units: 'kg-m', readings: [{ point: 'tail-skid', weight: 30.5, arm: 4.2 }] })
+    expect(dossiers[0]!.weighIns[1]).toEqual({ id: 'w2', weighedOn: '2027-07-12', units: 'kg-m', readings: [{ point: 'tail-skid', weight: 30.5, arm: 4.2 }], declaredBallastKg: 0 })
     expect(dossiers[0]!.gridCheck).toBeUndefined()
     expect(dossiers[1]!.weighIns.map(w => w.id)).toEqual(['w3'])
-    expect(dossiers[1]!.gridCheck).toEqual({ day: '2027-07-12', outcome: 'fail' })
+    expect(dossiers[1]!.gridCheck).toEqual({ day: '2027-07-12', outcome: 'fail', answers: [] })
     expect(toWeighInRecord(weighed({})).readings).toEqual([{ point: 'main-wheel', weight: 500, arm: 0.1 }])
   })
 })
@@ -105,10 +105,11 @@ describe('the engine over mapped rows', () => {
   })
 
   it('raises mass.class-limit from the weigh-in of the evaluated day or before, not a later one', () => {
-    // Standard class 525 kg (FAI Sporting Code Section 3 Annex A, from memory): 540 kg is over, 500 kg is not.
+    // Standard class 525 kg (FAI Sporting Code Section 3 Annex A, from memory): with the pilot's
+    // 80 kg, 540 kg on the scales is over (620 kg), 400 kg is not (480 kg).
     const heavy: FindingsWeighInRow = { id: 'w9', entry_id: 'e1', weighed_on: '2027-07-12', units: 'kg-m', readings: [{ point: 'main-wheel', weight: 505, arm: 0.1 }, { point: 'tail-wheel', weight: 35, arm: 4.4 }] }
-    const light: FindingsWeighInRow = { ...heavy, id: 'w8', weighed_on: '2027-07-11', readings: [{ point: 'main-wheel', weight: 500, arm: 0.1 }] }
-    const ds = toDossiers([entry()], [warner(), recorder], [], [igc()], [light, heavy])
+    const light: FindingsWeighInRow = { ...heavy, id: 'w8', weighed_on: '2027-07-11', readings: [{ point: 'main-wheel', weight: 400, arm: 0.1 }] }
+    const ds = toDossiers([entry({ pilot_mass_kg: '80.0' })], [warner(), recorder], [], [igc()], [light, heavy])
     const ids = (day?: string) => evaluate(ds[0]!, competition, buildField(ds), day).map(f => f.checkId)
     expect(ids('2027-07-11')).not.toContain('mass.class-limit')
     expect(ids('2027-07-12')).toContain('mass.class-limit')

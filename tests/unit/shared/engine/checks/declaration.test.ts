@@ -1,71 +1,10 @@
-import { readFileSync } from 'node:fs'
-import IGCParser from 'igc-parser'
 import { describe, expect, it } from 'vitest'
 import { declarationMatchesEntry, declarationRecent } from '#shared/engine/checks/declaration'
 import type { EngineIgcFile } from '#shared/engine/types'
 import { ctx, dossier, recorder } from '../builders'
 
-// Source: FAI/IGC Technical Specification for IGC-approved GNSS Flight Recorders, 2nd edition,
-// amendment 8 (2023), Appendix A, worked example A9.2. As printed it is not machine-valid (a
-// stray character in a longitude, records out of order). The fixture is a minimally corrected
-// copy, reassembled from the example's published values because the printed page was not at
-// hand here to compare byte for byte:
-//  - every C-record longitude has exactly DDDMMmmm + E/W (A3.5 layout), e.g. 00101899W;
-//  - records in the order A2.5.7 requires: A, H, I, J, C, then F/B/K, L, G last;
-//  - maker names in the FR type, GPS receiver and pressure sensor headers replaced by
-//    neutral words, and the manufacturer code set to XXX (the code for test files).
-// Pilot, glider type, glider ID, competition ID, class, date, flight number and declaration
-// points are the example's own values, kept as published (the glider type is the one place a
-// real type name appears in the project, because the specification's example uses it).
-const SPEC_EXAMPLE = readFileSync(new URL('../../../../fixtures/igc/spec-a9-2-corrected.igc', import.meta.url), 'utf8')
-
-function headerOf(text: string, unitId: string): EngineIgcFile {
-  const igc = IGCParser.parse(text, { lenient: true })
-  return {
-    unitId,
-    flightDate: igc.date,
-    pilot: igc.pilot,
-    copilot: igc.copilot,
-    gliderType: igc.gliderType,
-    gliderId: igc.registration,
-    competitionId: igc.callsign,
-    competitionClass: igc.competitionClass,
-    hasGRecord: Boolean(igc.security),
-    uploadedAt: '2027-06-01T10:00:00Z',
-  }
-}
-
-describe('the IGC specification’s worked example (Appendix A, A9.2, minimally corrected)', () => {
-  const igc = IGCParser.parse(SPEC_EXAMPLE)
-
-  it('parses to the published header values (H records of A3.3)', () => {
-    expect(igc.date).toBe('2019-08-16')
-    expect(igc.numFlight).toBe(2)
-    expect(igc.pilot).toBe('Bloggs Bill D')
-    expect(igc.gliderType).toBe('Arcus M')
-    expect(igc.registration).toBe('G-GLID')
-    expect(igc.callsign).toBe('111')
-    expect(igc.competitionClass).toBe('20m Motor Glider')
-  })
-
-  it('decodes the declaration point 5111359N00101899W to 51.18932, −1.03165 (C-record layout, A3.5)', () => {
-    const takeOff = igc.task!.points[0]!
-    expect(takeOff.latitude).toBeCloseTo(51.18932, 5)
-    expect(takeOff.longitude).toBeCloseTo(-1.03165, 5)
-  })
-
-  it('matches an entry made with the same values, class spelled as the entry’s class', () => {
-    const file = headerOf(SPEC_EXAMPLE, 'fr-1')
-    const d = dossier({ igcFiles: [file] }, { registration: 'G-GLID', compId: '111', className: '20m Motor Glider', classCode: 'motor-20m', pilotName: 'Bill Bloggs', gliderType: 'Arcus M' })
-    expect(declarationMatchesEntry.run(ctx(d))).toEqual([])
-  })
-
-  it('flags the same file with its G record removed (required records, A2.5.7) — see igc.test.ts', () => {
-    const stripped = SPEC_EXAMPLE.split('\n').filter(l => !l.startsWith('G')).join('\n')
-    expect(headerOf(stripped, 'fr-1').hasGRecord).toBe(false)
-    expect(headerOf(SPEC_EXAMPLE, 'fr-1').hasGRecord).toBe(true)
-  })
-})
+// The specification's worked example (Appendix A, A9.2) is read through Gridmark's own parser,
+// and its declaration checked against an entry, in tests/unit/server/domain/files/igc-header.test.ts.
 
 function file(over: Partial<EngineIgcFile> = {}): EngineIgcFile {
   return {
@@ -99,12 +38,29 @@ describe('declaration.matches-entry (IGC GNSS FR specification Appendix A: HFPLT
     expect(run(file({ competitionClass: spelling }), { className: '18 Metre', classCode: '18m' })).toEqual([])
   })
 
-  it('blocks a wrong glider ID, competition ID or class, each with both values', () => {
+  it('blocks a wrong glider ID or competition ID, and advises on a class spelled otherwise, each with both values', () => {
     const findings = run(file({ gliderId: 'KM-ABD', competitionId: 'A7', competitionClass: '15m' }))
-    expect(findings.map(f => f.severity)).toEqual(['blocking', 'blocking', 'blocking'])
+    expect(findings.map(f => f.severity)).toEqual(['blocking', 'blocking', 'advisory'])
     expect(findings[0]!.reason).toContain('“KM-ABD”, the entry says “KM-ABC”')
     expect(findings[1]!.reason).toContain('“A7”')
     expect(findings[2]!.reason).toContain('“15m”, the entry says “Standard”')
+    // Correcting a declaration is work on the recorder: the caution goes with it.
+    expect(findings.every(f => f.caution)).toBe(true)
+  })
+
+  it('reads a co-pilot “NIL” in any case as no co-pilot (common practice), and advises on a co-pilot the entry does not have', () => {
+    expect(run(file({ copilot: 'Nil' }))).toEqual([])
+    expect(run(file({ copilot: 'nil' }), { copilotName: 'Rowan Ashdown' })[0]!.reason).toContain('names no co-pilot')
+    const [f] = run(file({ copilot: 'Rowan Ashdown' }))
+    expect(f).toMatchObject({ severity: 'advisory' })
+    expect(f!.reason).toContain('“Rowan Ashdown”; the entry has none')
+  })
+
+  it('checks the latest file uploaded without a recorder against the entry too', () => {
+    const loose = file({ id: 'loose', unitId: null, filename: 'flight.igc', competitionId: 'Z9' })
+    const [f] = run(loose)
+    expect(f).toMatchObject({ severity: 'blocking', subject: 'igc:loose' })
+    expect(f!.reason).toContain('The IGC file “flight.igc” (no recorder named) declares the competition ID “Z9”')
   })
 
   it('only advises on a near miss in the pilot’s name or glider type', () => {
