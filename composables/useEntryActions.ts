@@ -1,4 +1,4 @@
-import type { EntryBody, EntryPatch, UnitBody } from '#shared/schemas/entry'
+import type { EntryBody, EntryPatch, UnitBody, OccupantMasses } from '#shared/schemas/entry'
 import type { EntryDossier, FirmwareSuggestion, UnitView } from '#shared/types/api-entries'
 
 /**
@@ -20,6 +20,8 @@ export function useEntryActions(competitionId: MaybeRefOrGetter<string>) {
     withdraw: (entryId: string) => $fetch<EntryDossier>(`${entry(entryId)}/withdraw`, { method: 'POST' }),
     accept: (entryId: string) => $fetch<EntryDossier>(`${entry(entryId)}/accept`, { method: 'POST' }),
     reject: (entryId: string, reason: string) => $fetch<EntryDossier>(`${entry(entryId)}/reject`, { method: 'POST', body: { reason } }),
+    /** Staff: the pilot's and co-pilot's mass with parachute from the registration weighing. */
+    recordOccupantMasses: (entryId: string, body: OccupantMasses) => $fetch<EntryDossier>(`${entry(entryId)}/occupant-masses`, { method: 'PUT', body }),
     suggestFirmware: (family: string, version: string) =>
       $fetch<FirmwareSuggestion>(`${base()}/firmware/suggest`, { query: { family, version } }),
   }

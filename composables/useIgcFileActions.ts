@@ -1,5 +1,6 @@
 /**
- * Uploads an IGC file to one entry ($fetch, multipart), for a named recorder or none. Errors
+ * Uploads an IGC file to one entry ($fetch, multipart), for a named recorder or none, and names
+ * the recorder of a file uploaded without one. Errors
  * are thrown for the panel to show; callers refresh useEntryIgcFiles afterwards.
  */
 export function useIgcFileActions(competitionId: MaybeRefOrGetter<string>, entryId: MaybeRefOrGetter<string>) {
@@ -11,5 +12,8 @@ export function useIgcFileActions(competitionId: MaybeRefOrGetter<string>, entry
       body.append('file', values.file, values.file.name)
       return $fetch(base(), { method: 'POST', body })
     },
+    /** Says which flight recorder a current file came from. */
+    nameRecorder: (igcFileId: string, unitId: string) =>
+      $fetch(`${base()}/${encodeURIComponent(igcFileId)}/recorder`, { method: 'PUT', body: { unitId } }),
   }
 }

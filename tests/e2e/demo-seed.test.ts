@@ -19,17 +19,18 @@ async function demoEntry(compId: string) {
 }
 
 describe('demo seed', () => {
-  it('enters 40 gliders with unique competition IDs, each with a collision-warning unit', async () => {
+  it('enters 40 gliders with unique competition IDs, each with a collision-warning unit but N1 (a seeded problem)', async () => {
     const rows = await testDb()('entries as e').join('competitions as c', 'c.id', 'e.competition_id')
       .where('c.slug', DEMO_COMPETITION.slug).select('e.id', 'e.comp_id')
     expect(rows).toHaveLength(40)
     expect(new Set(rows.map(r => r.comp_id)).size).toBe(40)
     const withUnit = await testDb()('units').whereIn('entry_id', rows.map(r => r.id)).where('kind', 'collision-warning').countDistinct('entry_id as n').first()
-    expect(Number(withUnit!.n)).toBe(40)
+    expect(Number(withUnit!.n)).toBe(39)
+    expect((await demoEntry('N1')).units.filter(u => u.kind === 'collision-warning')).toEqual([])
   })
 
   it('lists a reason for every seeded problem', () => {
-    expect(Object.keys(SEEDED_PROBLEMS)).toEqual(expect.arrayContaining(['K7', 'T3', 'B2', 'M5', 'F9', 'R4', 'H8']))
+    expect(Object.keys(SEEDED_PROBLEMS)).toEqual(expect.arrayContaining(['K7', 'T3', 'B2', 'M5', 'F9', 'R4', 'H8', 'D6', 'E2', 'S2', 'N1', 'P6']))
   })
 
   it('has firmware expiring during the contest on K7, and soon after it on T3', async () => {
@@ -93,18 +94,34 @@ describe('demo seed', () => {
     expect(matching.glider_id).toBe(a1.entry.registration)
   })
 
-  it('writes the demo IGC files as the parser reads them (IGC FR specification Appendix A H records)', async () => {
-    const { default: IGCParser } = await import('igc-parser')
+  it('writes the demo IGC files as Gridmark’s parser reads them (IGC FR specification Appendix A: A, H and I records)', async () => {
+    const { parseIgc } = await import('../../server/domain/files/igc-header')
     const { readFileSync } = await import('node:fs')
     const { join } = await import('node:path')
-    const g5 = await demoEntry('G5')
-    const igc = await testDb()('igc_files').where({ entry_id: g5.entry.id, superseded: false }).first()
-    const [, entryId, id] = igc.storage_key.split(':')
-    const text = readFileSync(join(process.env.NUXT_UPLOADS_DIR!, 'igc', entryId, id), 'latin1')
-    const parsed = IGCParser.parse(text, { lenient: true })
-    expect(parsed.date).toBe('2027-05-29')
-    expect(parsed.registration).toBe(igc.glider_id)
-    expect(parsed.callsign).toBe(igc.declared_comp_id)
-    expect(parsed.competitionClass).toBe(igc.declared_class)
+    const read = async (compId: string) => {
+      const { entry } = await demoEntry(compId)
+      const igc = await testDb()('igc_files').where({ entry_id: entry.id, superseded: false }).orderBy('original_filename').first()
+      const [, entryId, id] = igc.storage_key.split(':')
+      const parsed = parseIgc(readFileSync(join(process.env.NUXT_UPLOADS_DIR!, 'igc', entryId, id), 'latin1'))
+      if (!parsed.ok) throw new Error(`${compId}'s demo file does not parse`)
+      return { igc, header: parsed.header, errors: parsed.errors }
+    }
+    const g5 = await read('G5')
+    expect(g5.errors).toEqual([])
+    expect(g5.header.flightDate).toBe('2027-05-29')
+    expect(g5.header).toMatchObject({ gliderId: g5.igc.glider_id, competitionId: g5.igc.declared_comp_id, competitionClass: g5.igc.declared_class, recorderId: g5.igc.recorder_id })
+    const l8 = await read('L8')
+    expect(l8.errors).toEqual([])
+    expect(l8.header.extensions).toEqual(['FXA', 'SIU', 'ENL'])
+    expect(l8.igc.extensions).toEqual(['FXA', 'SIU', 'ENL'])
+    expect((await read('E2')).header.extensions).toEqual(['FXA', 'SIU'])
+  })
+
+  it('has a file for every flight recorder but S2’s second', async () => {
+    const missing = await testDb()('units as u').join('entries as e', 'e.id', 'u.entry_id').join('competitions as c', 'c.id', 'e.competition_id')
+      .where({ 'c.slug': DEMO_COMPETITION.slug, 'u.kind': 'flight-recorder' }).whereNot('e.status', 'draft')
+      .whereNotExists(q => q.select(1).from('igc_files as f').whereRaw('f.unit_id = u.id and not f.superseded'))
+      .select('e.comp_id')
+    expect(missing.map(r => r.comp_id)).toEqual(['S2'])
   })
 })

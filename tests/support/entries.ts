@@ -104,3 +104,27 @@ export async function mailRows(entryId: string): Promise<any[]> {
 export function randomRadioId(): string {
   return Math.floor(0x100000 + Math.random() * 0xEFFFFE).toString(16).toUpperCase()
 }
+
+/**
+ * A current IGC file from each of the entry's flight recorders, declaring exactly what the entry
+ * says and dated ten days before the first contest day (as an upload would store its header):
+ * the recorder checks then find nothing. Returns the files' ids.
+ */
+export async function cleanIgcFiles(entryId: string): Promise<string[]> {
+  const db = testDb()
+  const entry = await db('entries as e').join('classes as k', 'k.id', 'e.class_id').join('competitions as c', 'c.id', 'e.competition_id')
+    .where('e.id', entryId).first('e.*', 'k.name as class_name', db.raw(`coalesce(c.first_contest_day, current_date) - 10 as flight_date`))
+  const recorders = await db('units').where({ entry_id: entryId, kind: 'flight-recorder' }).select('id', 'firmware_version')
+  const ids: string[] = []
+  for (const r of recorders) {
+    const [row] = await db('igc_files').insert({
+      entry_id: entryId, competition_id: entry.competition_id, unit_id: r.id,
+      original_filename: 'declaration.igc', storage_key: `test:${entryId}:${r.id}`, sha256: '0'.repeat(64), size_bytes: 1,
+      flight_date: entry.flight_date, pilot: entry.pilot_name, copilot: entry.copilot_name, glider_type: entry.glider_type,
+      glider_id: entry.registration, declared_comp_id: entry.comp_id, declared_class: entry.class_name,
+      firmware_version: r.firmware_version, has_g_record: true, parse_errors: '[]', uploaded_by: entry.entrant_user_id,
+    }).returning('id')
+    ids.push(row.id)
+  }
+  return ids
+}

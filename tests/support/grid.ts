@@ -4,7 +4,7 @@
 import { randomBytes, randomUUID } from 'node:crypto'
 import { signedUpClient } from './api'
 import { testDb } from './db'
-import { completeEntry, entriesWorld, entryBody, randomRadioId, type EntriesWorld } from './entries'
+import { cleanIgcFiles, completeEntry, entriesWorld, entryBody, randomRadioId, type EntriesWorld } from './entries'
 
 export interface GridWorld extends EntriesWorld {
   director: Awaited<ReturnType<typeof signedUpClient>>
@@ -44,6 +44,8 @@ export async function gridEntry(w: GridWorld, opts: { status?: string, compId?: 
   // A firmware that stays valid well past the contest, updated this year: no firmware finding.
   await testDb()('units').where({ entry_id: id, kind: 'collision-warning' }).update({ firmware_expires_on: '2029-01-31', firmware_updated_on: '2027-01-10' })
   await testDb()('entries').where({ id }).update({ status: opts.status ?? 'accepted', payment_status: 'paid' })
+  // The recorder's declaration, as an uploaded IGC file gives it: no recorder finding.
+  await cleanIgcFiles(id)
   return id
 }
 

@@ -56,6 +56,8 @@ describe('a dossier change reaches the board as it commits', () => {
     expect((await w.organiser.client.request('PATCH', `${w.base}/entries/${a}`, { pilotName: 'Hanne Changed' })).status).toBe(200)
     const e = await s.next('board:tile', x => x.entryId === a && x.seq > before)
     expect(e).toMatchObject({ cause: 'dossier', tile: { pilotName: 'Hanne Changed' } })
+    // The recorder's declaration follows the pilot (as a new file would), so it stays quiet below.
+    await testDb()('igc_files').where({ entry_id: a }).update({ pilot: 'Hanne Changed' })
   })
 
   it('its units, deleted, added and changed', async () => {
@@ -64,8 +66,16 @@ describe('a dossier change reaches the board as it commits', () => {
     expect((await w.organiser.client.request('DELETE', `${units(a)}/${recorder.id}`)).status).toBeLessThan(300)
     expect(headlineCheck(await pushed(a, before))).toBe('recorder.present')
 
+    // A new recorder has no IGC file yet; the old recorder's file, left tied to no recorder, is
+    // named for it: then nothing is open.
     before = await seqNow()
-    expect((await w.organiser.client.post(units(a), flightRecorderUnit())).status).toBe(201)
+    const added = await w.organiser.client.post(units(a), flightRecorderUnit())
+    expect(added.status).toBe(201)
+    expect(headlineCheck(await pushed(a, before))).toBe('recorder.igc-file')
+
+    before = await seqNow()
+    const loose = await testDb()('igc_files').where({ entry_id: a, superseded: false }).whereNull('unit_id').first('id')
+    expect((await w.entrant.client.request('PUT', `${w.base}/entries/${a}/igc-files/${loose.id}/recorder`, { unitId: added.body.id })).status).toBe(200)
     expect(headlineCheck(await pushed(a, before))).toBeNull()
 
     before = await seqNow()
@@ -87,6 +97,7 @@ describe('a dossier change reaches the board as it commits', () => {
     await testDb()('units').where({ id: theirs.id }).update({ radio_id: mine.radio_id })
     let before = await seqNow()
     expect((await w.organiser.client.request('PATCH', `${w.base}/entries/${b}`, { pilotName: 'Bo Twin' })).status).toBe(200)
+    await testDb()('igc_files').where({ entry_id: b }).update({ pilot: 'Bo Twin' })
     expect(headlineCheck(await pushed(b, before))).toBe('radio-id.unique')
     expect(headlineCheck(await pushed(a, before))).toBe('radio-id.unique')
 

@@ -137,6 +137,22 @@ describe('the demo competition (read only)', () => {
     has('H8', 'firmware.yearly-update', 'advisory')
     has('G5', 'declaration.matches-entry', 'blocking')
     has('C4', 'documents.required', 'blocking')
+    has('D6', 'span.class-limit', 'blocking')
+    has('E2', 'motor-glider.engine-recording', 'blocking')
+    has('S2', 'recorder.igc-file', 'blocking')
+    has('N1', 'collision-warning.present', 'blocking')
+    has('P6', 'mass.class-limit', 'blocking')
+  })
+
+  it('raises the new checks on their seeded glider only: L8, a motor glider recording engine noise, passes', () => {
+    const raising = (checkId: string) => demo.entries.filter((e: any) => e.status === 'accepted' && e.findings.some((f: any) => f.checkId === checkId)).map((e: any) => e.compId).sort()
+    expect(raising('span.class-limit')).toEqual(['D6'])
+    expect(raising('motor-glider.engine-recording')).toEqual(['E2'])
+    expect(raising('recorder.igc-file')).toEqual(['S2'])
+    expect(raising('collision-warning.present')).toEqual(['N1'])
+    expect(raising('mass.class-limit')).toEqual(['P6'])
+    expect(raising('recorder.identity')).toEqual([])
+    expect(of('P6').find(f => f.checkId === 'mass.class-limit').reason).toContain('543.0 kg (452.0 kg on the scales + pilot with parachute 91.0 kg)')
   })
 
   it('names the other glider in G5’s declaration, and the rejected insurance of C4', () => {

@@ -62,8 +62,8 @@ describe('GET /api/competitions/:id/grid/pack', () => {
     expect(a.dossier.weighIns).toEqual([])
     expect(b.tag).toBeNull()
     expect(b.lastCheck).toMatchObject({ id: made.body.gridCheck.id, outcome: 'pass', scrutineerName: 'Sam Scrutineer', scrutineerInitials: 'SS' })
-    expect(b.dossier.gridCheck).toEqual({ day: todayIn(), outcome: 'pass' })
-    expect(b.dossier.weighIns).toEqual([{ id: expect.any(String), weighedOn: todayIn(), units: 'kg-m', readings: weighIn.readings }])
+    expect(b.dossier.gridCheck).toMatchObject({ day: todayIn(), outcome: 'pass' })
+    expect(b.dossier.weighIns).toEqual([{ id: expect.any(String), declaredBallastKg: 0, weighedOn: todayIn(), units: 'kg-m', readings: weighIn.readings }])
   })
 
   it('gives another day on request: the check of today is not that day’s last check', async () => {
