@@ -5,7 +5,7 @@ import { buildField } from '#shared/engine/field'
 import { evaluate } from '#shared/engine/evaluate'
 import { applyWaivers, readiness, type DirectorAction } from '#shared/engine/readiness'
 import type { Dossier, EngineUnit, ScaleReading } from '#shared/engine/types'
-import { massAndArm, weighIn } from '#shared/engine/weigh-in'
+import { massAndArm, takeOffMass, weighIn } from '#shared/engine/weigh-in'
 import { CATALOGUE } from '#shared/engine/catalogue'
 import { competition, dossier } from './builders'
 
@@ -93,6 +93,29 @@ describe('engine invariants', () => {
         expect(arm).toBeGreaterThanOrEqual(Math.min(...arms) - 1e-9)
         expect(arm).toBeLessThanOrEqual(Math.max(...arms) + 1e-9)
       }
+    }))
+  })
+})
+
+describe('take-off mass and the units', () => {
+  const readings = fc.array(reading, { minLength: 1, maxLength: 3 })
+  const mass = fc.option(fc.double({ min: 30, max: 200, noNaN: true }), { nil: null })
+
+  it('adding an occupant never lowers the take-off mass', () => {
+    fc.assert(fc.property(readings, mass, fc.double({ min: 30, max: 200, noNaN: true }), fc.double({ min: 0, max: 200, noNaN: true }), (rs, pilot, copilot, ballast) => {
+      const without = takeOffMass({ readings: rs, declaredBallastKg: ballast }, { pilotMassKg: pilot })
+      const withCopilot = takeOffMass({ readings: rs, declaredBallastKg: ballast }, { pilotMassKg: pilot, copilotMassKg: copilot })
+      expect(withCopilot.massKg).toBeGreaterThanOrEqual(without.massKg)
+      expect(withCopilot.massKg - without.massKg).toBeCloseTo(copilot, 6)
+    }))
+  })
+
+  it('a dossier with no units yields the unit findings: no collision-warning unit, no flight recorder', () => {
+    fc.assert(fc.property(anyDossier, (d) => {
+      const bare = { ...d, units: [] }
+      const ids = evaluate(bare, competition(), buildField([bare])).map(f => f.checkId)
+      expect(ids).toContain('collision-warning.present')
+      expect(ids).toContain('recorder.present')
     }))
   })
 })
