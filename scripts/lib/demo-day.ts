@@ -38,12 +38,13 @@ class Caller {
 interface Plan {
   compId: string
   by: 'first' | 'second'
-  fail?: string
+  fail?: { item: string, note: string, notes: string }
   weighKg?: [number, number]
 }
 
-// Who is checked, by whom, and how it goes (the seeded problems do the rest: K7, B2, D6, G5 are
-// held by their findings, T3 and H8 are cautions).
+// Who is checked, by whom, and how it goes (the seeded problems do the rest: K7, B2, D6, E2, G5,
+// P6 and S2 are held by their findings, T3 and H8 are cautions). P6 is weighed again with its
+// pilot's recorded mass: 452 kg on the scales + 91 kg = 543 kg, over the Standard class's 525 kg.
 const CHECKS: Plan[] = [
   { compId: 'K7', by: 'first' },
   { compId: 'T3', by: 'first' },
@@ -55,8 +56,8 @@ const CHECKS: Plan[] = [
   { compId: 'G5', by: 'first' },
   { compId: 'J3', by: 'second' },
   { compId: 'L8', by: 'second' },
-  { compId: 'N1', by: 'second', fail: 'antennas' },
-  { compId: 'P6', by: 'second', weighKg: [348, 24] },
+  { compId: 'N1', by: 'second', fail: { item: 'cwu-operating', note: 'No collision-warning unit fitted', notes: 'Sent back to the trailer lines to fit the unit.' } },
+  { compId: 'P6', by: 'second', weighKg: [420, 32] },
   { compId: 'Q9', by: 'second' },
   { compId: 'S2', by: 'second' },
 ]
@@ -98,13 +99,13 @@ export async function playDemoDay(baseUrl: string, databaseUrl: string): Promise
       checkedAt: new Date(started + i * 3 * 60_000).toISOString(),
       answers: DEFAULT_CHECKLIST.map(item => ({
         itemId: item.id,
-        result: item.id === plan.fail ? 'fail' : 'pass',
-        ...(item.id === plan.fail ? { note: 'Tail antenna cable hanging loose at the fin' } : {}),
+        result: item.id === plan.fail?.item ? 'fail' : 'pass',
+        ...(item.id === plan.fail?.item ? { note: plan.fail.note } : {}),
       })),
       ...(plan.weighKg
-        ? { weighIn: { units: 'kg-m', readings: [{ point: 'main-wheel', weight: plan.weighKg[0], arm: 0.12 }, { point: 'tail-wheel', weight: plan.weighKg[1], arm: 4.35 }] } }
+        ? { weighIn: { units: 'kg-m', readings: [{ point: 'main-wheel', weight: plan.weighKg[0], arm: 0.21 }, { point: 'tail-wheel', weight: plan.weighKg[1], arm: 4.6 }] } }
         : {}),
-      notes: plan.fail ? 'Back to the trailer lines to refit the antenna.' : '',
+      notes: plan.fail?.notes ?? '',
       foundBy: i % 3 === 0 ? 'code' : 'scan',
     })
   }
