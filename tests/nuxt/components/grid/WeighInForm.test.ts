@@ -1,5 +1,6 @@
 // The weigh-in on the grid: what is typed gives the mass and CG the engine gives, lb and inches
-// convert, and a mass over the class limit shows its finding before the check is submitted.
+// convert, and a mass over the class limit shows its finding, linked to its rule, before the
+// check is submitted.
 // Mass × arm method: total mass ΣW, CG arm Σ(W·arm)/ΣW from the datum (FAA-H-8083-1, Aircraft
 // Weight and Balance Handbook, ch. 2; the same method as shared/engine/weigh-in.ts).
 import { describe, expect, it } from 'vitest'
@@ -13,7 +14,7 @@ async function mountForm(entry: Parameters<typeof dossier>[1] = {}) {
   const d = dossier({}, entry)
   const updates: unknown[] = []
   const form = await mountSuspended(WeighInForm, {
-    props: { 'dossier': d, 'competition': competition(), 'field': fieldOf(d), 'day': DAY, 'onUpdate:modelValue': (v: unknown) => updates.push(v) },
+    props: { 'dossier': d, 'competition': competition(), 'field': fieldOf(d), 'day': DAY, 'competitionId': 'comp-1', 'onUpdate:modelValue': (v: unknown) => updates.push(v) },
   })
   return { form, updates }
 }
@@ -59,6 +60,9 @@ describe('WeighInForm', () => {
     const ids = form.findAll('[data-testid="weigh-finding"]').map(f => f.attributes('data-check-id'))
     expect(ids).toEqual(['mass.class-limit'])
     expect(form.get('[data-testid="weigh-findings"]').text()).toContain('allows at most 525.0 kg')
+    const rule = form.get('[data-testid="weigh-finding"] [data-testid="finding-rule-link"]')
+    expect(rule.attributes('href')).toBe('/competitions/comp-1/checks#mass.class-limit')
+    expect(rule.text()).toBe('Rule: mass.class-limit')
     form.unmount()
   })
 
