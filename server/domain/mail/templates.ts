@@ -53,7 +53,7 @@ export function renderMail(content: MailContent): RenderedMail {
   if (list.length) {
     for (const item of list) {
       text.push(`  - ${item.text}`)
-      if (item.link) text.push(`    ${item.link.label}: ${item.link.url}`)
+      if (item.link) text.push(`    ${item.link.label}`, `    ${item.link.url}`)
     }
     text.push('')
   }

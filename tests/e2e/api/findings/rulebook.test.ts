@@ -121,7 +121,7 @@ describe('e-mails about a held glider link each finding to its rule and carry th
     expect(hold!.text).toContain('The director’s reason: Firmware out of date')
     expect(hold!.text).toContain('The fix touches hardware: read the caution below.')
     expect(hold!.links).toContain(rule('firmware.valid-through-contest'))
-    expect(hold!.text).toContain(`Rule: firmware.valid-through-contest: ${rule('firmware.valid-through-contest')}`)
+    expect(hold!.text).toContain(`Rule: firmware.valid-through-contest\n    ${rule('firmware.valid-through-contest')}`)
     expect(hold!.html).toContain(`href="${rule('firmware.valid-through-contest')}"`)
     expect(hold!.text).toContain(HARDWARE_CAUTION)
 

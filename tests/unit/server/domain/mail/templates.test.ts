@@ -16,8 +16,8 @@ describe('a finding’s rule in an e-mail', () => {
 
   it('shows under each finding, in both parts of the message', () => {
     const mail = renderMail({ paragraphs: ['Hello'], list: findingItems([expired, unpaid], BASE, 'c-1') })
-    expect(mail.text).toContain('  - Blocking: The firmware expires 2027-07-18. How to fix: Update it. The fix touches hardware: read the caution below.\n    Rule: firmware.valid-through-contest: https://gridmark.example/competitions/c-1/checks#firmware.valid-through-contest')
-    expect(mail.text).toContain('  - Blocking: The entry fee is not paid yet. How to fix: Pay it.\n    Rule: entry.paid: https://gridmark.example/competitions/c-1/checks#entry.paid')
+    expect(mail.text).toContain('  - Blocking: The firmware expires 2027-07-18. How to fix: Update it. The fix touches hardware: read the caution below.\n    Rule: firmware.valid-through-contest\n    https://gridmark.example/competitions/c-1/checks#firmware.valid-through-contest')
+    expect(mail.text).toContain('  - Blocking: The entry fee is not paid yet. How to fix: Pay it.\n    Rule: entry.paid\n    https://gridmark.example/competitions/c-1/checks#entry.paid')
     expect(mail.html).toContain('<a href="https://gridmark.example/competitions/c-1/checks#entry.paid" style="color:#0f766e;font-size:14px">Rule: entry.paid</a>')
   })
 
@@ -30,7 +30,7 @@ describe('readinessMail (hold and release)', () => {
   it('lists the open findings with their rules and ends with the caution in full', () => {
     const mail = readinessMail({ greeting: 'Hello Ann,', paragraphs: ['your glider is held.'], findings: [expired], competitionId: 'c-1', base: BASE, entryUrl: `${BASE}/e` })
     expect(mail.text).toContain('The checks find this on your entry now:')
-    expect(mail.text).toContain('Rule: firmware.valid-through-contest: https://gridmark.example/competitions/c-1/checks#firmware.valid-through-contest')
+    expect(mail.text).toContain('Rule: firmware.valid-through-contest\n    https://gridmark.example/competitions/c-1/checks#firmware.valid-through-contest')
     expect(mail.text).toContain(`Caution where a fix touches hardware: ${HARDWARE_CAUTION}`)
     expect(mail.text.indexOf('Rule:')).toBeLessThan(mail.text.indexOf('Caution where'))
   })
