@@ -4,11 +4,12 @@
 // and a failed antennas or ballast item shows the caution under it. Screenshots in
 // artifacts/screenshots/.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import type { Page } from 'playwright-core'
+import { join } from 'node:path'
+import type { Locator, Page } from 'playwright-core'
 import { HARDWARE_CAUTION } from '#shared/engine'
 import { GOOD_PASSWORD } from '../support/api'
 import { closeTestDb, createEntry } from '../support/db'
-import { gotoApp, launchBrowser, openPage, screenshot, signInThroughForm, type Browser } from '../support/browser'
+import { artifactsDir, gotoApp, launchBrowser, openPage, screenshot, signInThroughForm, type Browser } from '../support/browser'
 import { collisionWarningUnit, createEntryVia, entriesWorld, entryBody, flightRecorderUnit, randomRadioId, type EntriesWorld } from '../support/entries'
 
 const baseUrl = inject('baseUrl')
@@ -29,6 +30,12 @@ afterAll(async () => {
   await browser?.close()
   await closeTestDb()
 })
+
+/** A screenshot of one part of the page, beside the full-page ones. */
+async function shoot(part: Locator, name: string): Promise<void> {
+  await part.scrollIntoViewIfNeeded()
+  await part.screenshot({ path: join(artifactsDir(), 'screenshots', `${name}.png`) })
+}
 
 async function noSidewaysScroll(page: Page): Promise<boolean> {
   return page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth)
@@ -54,8 +61,7 @@ describe('the rulebook', () => {
       await link.waitFor()
       expect(await link.textContent()).toContain('Rule: firmware.valid-through-contest')
       expect(await link.getAttribute('href')).toBe(`/competitions/${w.competitionId}/checks#firmware.valid-through-contest`)
-      await finding.scrollIntoViewIfNeeded()
-      await screenshot(page, 'rulebook-finding-link-phone')
+      await shoot(finding, 'rulebook-finding-link-phone')
 
       await Promise.all([page.waitForURL(url => url.pathname.endsWith('/checks')), link.click()])
       expect(new URL(page.url()).hash).toBe('#firmware.valid-through-contest')
@@ -65,7 +71,7 @@ describe('the rulebook', () => {
       await expect.poll(() => inView(page, 'firmware.valid-through-contest')).toBe(true)
       expect(await check.getByTestId('rulebook-setting').first().textContent()).toContain('0 days')
       expect(await check.getByTestId('rulebook-hardware').count()).toBe(1)
-      await screenshot(page, 'rulebook-landed-phone')
+      await page.screenshot({ path: join(artifactsDir(), 'screenshots', 'rulebook-landed-phone.png') })
 
       // At 390 px the whole page fits, in normal and sunlight mode.
       for (const sunlight of [false, true]) {
@@ -135,10 +141,8 @@ describe('cautions on the grid phone', () => {
       await tag.locator('[data-result="fail"]').click()
       expect(await tag.getByTestId('checklist-caution').count()).toBe(0)
       expect(await noSidewaysScroll(page)).toBe(true)
-      await folded.scrollIntoViewIfNeeded()
-      await screenshot(page, 'rulebook-grid-folded-phone')
-      await antennas.scrollIntoViewIfNeeded()
-      await screenshot(page, 'rulebook-grid-caution-phone')
+      await shoot(folded, 'rulebook-grid-folded-phone')
+      await shoot(antennas, 'rulebook-grid-caution-phone')
       // Passed again, the caution goes.
       await antennas.locator('[data-result="pass"]').click()
       await expect.poll(() => antennas.getByTestId('checklist-caution').count()).toBe(0)
