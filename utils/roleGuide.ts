@@ -45,6 +45,7 @@ export const ROLE_GUIDE: Record<Role, RoleGuide> = {
       { label: 'Firmware catalogue', path: '/firmware' },
       { label: 'Glider tags', path: '/tags' },
       { label: 'Contest days', path: '/days' },
+      { label: 'Rulebook', path: '/checks' },
     ],
   },
   director: {
@@ -62,6 +63,7 @@ export const ROLE_GUIDE: Record<Role, RoleGuide> = {
       { label: 'Audit log', path: '/audit' },
       { label: 'Entries', path: '/entries' },
       { label: 'Launch grid', path: '/grid' },
+      { label: 'Rulebook', path: '/checks' },
     ],
   },
   scrutineer: {
@@ -79,6 +81,7 @@ export const ROLE_GUIDE: Record<Role, RoleGuide> = {
       { label: 'Document review', path: '/documents' },
       { label: 'Entries', path: '/entries' },
       { label: 'Firmware catalogue', path: '/firmware' },
+      { label: 'Rulebook', path: '/checks' },
     ],
   },
   entrant: {
@@ -94,6 +97,7 @@ export const ROLE_GUIDE: Record<Role, RoleGuide> = {
     links: [
       { label: 'Your entries', path: '~/entries' },
       { label: 'Enter a glider', path: '/entries/new' },
+      { label: 'Rulebook', path: '/checks' },
     ],
   },
 }

@@ -13,16 +13,16 @@ import type { DirectorActionRow } from '#shared/types/rows-board'
 import { activeHold } from '#shared/utils/board-tile'
 import { audit } from '#domain/audit/audit'
 import { enqueueMail } from '#domain/mail/outbox'
-import { renderMail } from '#domain/mail/templates'
-import { actionsQuery } from '#domain/read-model/day-inputs'
+import { readinessMail } from '#domain/mail/templates'
+import { actionsQuery, type BoardActionRow } from '#domain/read-model/day-inputs'
 import { loadCompetitionDossiers } from '#domain/read-model/dossiers'
 import type { CompetitionAccess } from '#server/utils/authz'
-import { useDb } from '#server/utils/db'
+import { together, useDb } from '#server/utils/db'
 import { httpError } from '#server/utils/errors'
 import { siteUrl } from '#server/utils/site-url'
 import { iso } from '#domain/read-model/values'
 import { boardDayOf, boardTileOf } from './snapshot'
-import { refreshTiles, toTileAction } from './tiles'
+import { openFindingsOf, refreshTiles, toTileAction } from './tiles'
 import { boardTransaction, lockBoard, openDate } from './transaction'
 
 type ActionRowWithActor = DirectorActionRow & { actor_name: string, day: string | null }
@@ -92,15 +92,21 @@ export async function holdOrRelease(access: CompetitionAccess, entryId: string, 
       subjectId: entryId,
       details: { entryId, day, reason: body.reason, actionId: row.id },
     })
-    const tiles = await refreshTiles(trx, competition.id, day, changes, { cause: kind, actorId: user.id, entryIds: [entryId], quietHold: true })
+    // Read once, as they stand after this action: the tile is made from them, and the e-mail
+    // lists the entry's open findings from them.
+    const [dossiers, actions] = await together(trx, [
+      () => loadCompetitionDossiers(competition.id, { entryIds: [entryId], acceptedOnly: true, day }, trx),
+      () => actionsQuery(trx, competition.id, day, [entryId]) as Promise<BoardActionRow[]>,
+    ] as const)
+    const tiles = await refreshTiles(trx, competition.id, day, changes, { cause: kind, actorId: user.id, entryIds: [entryId], quietHold: true, preloaded: { dossiers, actions } })
     const tile = tiles.get(entryId) ?? null
-    const mail = renderMail({
+    const base = siteUrl()
+    const mail = readinessMail({
       greeting: `Hello ${entry.entrant_name},`,
       paragraphs: kind === 'hold'
         ? [
             `the contest director holds your glider ${entry.comp_id} on ${day} at ${competition.name}: it may not launch until released.`,
             `The director’s reason: ${body.reason}`,
-            'Talk to the contest director or the scrutineers on the grid. Where the fix touches hardware (firmware, antennas, ballast), follow the manufacturer’s instructions and the competition’s rules.',
           ]
         : [
             `the contest director released your glider ${entry.comp_id} on ${day} at ${competition.name}.`,
@@ -109,7 +115,10 @@ export async function holdOrRelease(access: CompetitionAccess, entryId: string, 
               ? `It is still held by a finding: ${tile.headline?.text ?? 'see your entry'}.`
               : 'It may launch once it is ready on the grid.',
           ],
-      action: { label: 'Open your entry', url: `${siteUrl()}/competitions/${competition.id}/entries/${entryId}` },
+      findings: openFindingsOf(dossiers, entryId, actions, day),
+      competitionId: competition.id,
+      base,
+      entryUrl: `${base}/competitions/${competition.id}/entries/${entryId}`,
     })
     await enqueueMail(trx, {
       to: entry.entrant_email,

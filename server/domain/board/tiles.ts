@@ -3,7 +3,7 @@
 // `board_tiles` by `refreshTiles` inside the transaction of whatever changed it (which holds
 // the board's lock: server/domain/board/transaction.ts).
 import type { Knex } from 'knex'
-import { blockingFirst, evaluate, type Finding, type IsoDate } from '#shared/engine'
+import { applyWaivers, blockingFirst, evaluate, type Finding, type IsoDate } from '#shared/engine'
 import type { BoardCause, BoardTile } from '#shared/types/api-board'
 import { buildTile, diffFindings, sameTile, sortedJson, type TileAction, type TileBody, type TileCheck } from '#shared/utils/board-tile'
 import { initialsOf } from '#shared/utils/initials'
@@ -12,7 +12,7 @@ import { together } from '#server/utils/db'
 import { siteUrl } from '#server/utils/site-url'
 import { audit, type AuditEntry } from '#domain/audit/audit'
 import { enqueueMail } from '#domain/mail/outbox'
-import { renderMail } from '#domain/mail/templates'
+import { readinessMail } from '#domain/mail/templates'
 import type { BoardChanges } from '#domain/realtime/changes'
 import { loadCompetitionDossiers, type CompetitionDossiers } from '#domain/read-model/dossiers'
 import { actionsQuery, tileInputs, type BoardActionRow, type CheckRow, type EntrantRow, type TileInputs } from '#domain/read-model/day-inputs'
@@ -44,6 +44,17 @@ export function toTileAction(r: BoardActionRow): TileAction {
     }
   }
   return { kind: r.kind, day: r.day!, ...common }
+}
+
+/**
+ * The findings open on one entry on a day: the engine's (blocking first) less those its
+ * waivers lift. `loaded` and `actions` as `refreshTiles` takes them preloaded.
+ */
+export function openFindingsOf(loaded: CompetitionDossiers | undefined, entryId: string, actions: readonly BoardActionRow[], day: IsoDate): Finding[] {
+  const i = loaded?.rows.findIndex(r => r.id === entryId) ?? -1
+  if (!loaded?.competition || i < 0) return []
+  const findings = blockingFirst(evaluate(loaded.dossiers[i]!, loaded.competition, loaded.field, day))
+  return applyWaivers(findings, actions.filter(a => a.entry_id === entryId).map(toTileAction), day)
 }
 
 function groupBy<T extends { entry_id: string }>(rows: T[]): Map<string, T[]> {
@@ -190,7 +201,8 @@ export async function refreshTiles(
     }
     const newlyHeld = tile.readiness === 'held' && p.previous?.readiness !== 'held'
     if (newlyHeld && !firstOpening && !opts.quietHold && entrant) {
-      await enqueueHeldMail(trx, competitionId, entrant, day, tile)
+      const open = applyWaivers(p.findings, (actionsBy.get(p.entryId) ?? []).map(toTileAction), day)
+      await enqueueHeldMail(trx, competitionId, entrant, day, tile, open)
     }
   }
   await audit(trx, audits)
@@ -212,16 +224,20 @@ async function competitionName(trx: Knex, competitionId: string): Promise<string
   return c?.name ?? 'the competition'
 }
 
-async function enqueueHeldMail(trx: Knex.Transaction, competitionId: string, entrant: EntrantRow, day: IsoDate, tile: BoardTile): Promise<void> {
+async function enqueueHeldMail(trx: Knex.Transaction, competitionId: string, entrant: EntrantRow, day: IsoDate, tile: BoardTile, open: readonly Finding[]): Promise<void> {
   const name = await competitionName(trx, competitionId)
-  const mail = renderMail({
+  const base = siteUrl()
+  const mail = readinessMail({
     greeting: `Hello ${entrant.entrant_name},`,
     paragraphs: [
       `your glider ${entrant.comp_id} is ${READINESS_LABELS.held.toLowerCase()} on ${day} at ${name}: it may not launch until this is put right.`,
-      tile.headline ? `Why: ${tile.headline.text}` : 'Why: a blocking finding on the grid.',
-      'Talk to the scrutineers on the grid or the contest director. Where the fix touches hardware (firmware, antennas, ballast), follow the manufacturer’s instructions and the competition’s rules.',
+      // A finding as the reason is listed below with its rule; a hold or a failed checklist is said here.
+      ...(tile.headline && (tile.headline.kind !== 'finding' || !open.length) ? [`Why: ${tile.headline.text}`] : []),
     ],
-    action: { label: 'Open your entry', url: `${siteUrl()}/competitions/${competitionId}/entries/${entrant.id}` },
+    findings: open,
+    competitionId,
+    base,
+    entryUrl: `${base}/competitions/${competitionId}/entries/${entrant.id}`,
   })
   await enqueueMail(trx, {
     to: entrant.entrant_email,

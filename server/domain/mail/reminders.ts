@@ -1,6 +1,7 @@
 // The pre-event reminder: N days (competition setting reminderDaysBefore, default 14) before
 // the first contest day, one e-mail per submitted or accepted entry listing what is still open:
-// the check engine's findings (server/domain/findings/findings.ts), with fix hints and cautions.
+// the check engine's findings (server/domain/findings/findings.ts), with fix hints and cautions,
+// each linked to its rule on the competition's rulebook page.
 // mail_reminders keeps it to exactly once per entry, however often the job runs.
 import type { ReminderRunResult } from '#shared/types/api-mail'
 import { reminderOpenItems } from '#shared/utils/reminder-items'
@@ -9,7 +10,7 @@ import { findingsByEntry } from '#domain/findings/findings'
 import { useDb } from '#server/utils/db'
 import { siteUrl } from '#server/utils/site-url'
 import { enqueueMail } from './outbox'
-import { reminderMail } from './templates'
+import { reminderMail, ruleLink } from './templates'
 
 export const DEFAULT_REMINDER_DAYS_BEFORE = 14
 const KIND = 'pre-event'
@@ -51,7 +52,7 @@ export async function runReminders(now: Date = new Date()): Promise<ReminderRunR
           firstContestDay: c.first_contest_day,
           pilotName: e.pilot_name,
           compId: e.comp_id,
-          openItems,
+          openItems: openItems.map(i => ({ text: i.text, link: i.checkId ? ruleLink(base, c.id, i.checkId) : undefined })),
           url: `${base}/competitions/${c.id}/entries/${e.id}`,
         })
         const outboxId = await enqueueMail(trx, { to: e.email, subject: mail.subject, text: mail.text, html: mail.html, template: 'pre-event-reminder', competitionId: c.id, entryId: e.id })

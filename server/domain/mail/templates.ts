@@ -1,18 +1,29 @@
 // The plain layout every e-mail shares (a text part and a simple HTML part saying the same),
-// and the templates of the mail area. Other areas build their messages with renderMail().
+// and the templates of the mail area. Other areas build their messages with renderMail(); a
+// message that lists findings links each to its rule on the competition's rulebook page.
 import { ROLE_LABELS } from '#shared/constants/roles'
 import type { InvitableRole } from '#shared/constants/invitations'
+import { HARDWARE_CAUTION, type Finding } from '#shared/engine'
+import { rulebookPath } from '#shared/utils/rulebook'
 
 export interface MailAction {
   label: string
   url: string
 }
 
+/** A bulleted line with a small link under it (a finding and its rule). */
+export interface MailListItem {
+  text: string
+  link?: MailAction
+}
+
 export interface MailContent {
   greeting?: string
   paragraphs: string[]
   /** Bulleted lines shown after the paragraphs (e.g. what is still missing). */
-  list?: string[]
+  list?: (string | MailListItem)[]
+  /** Paragraphs after the list (e.g. the caution that applies to it). */
+  closing?: string[]
   action?: MailAction
   footer?: string
 }
@@ -38,10 +49,15 @@ export function renderMail(content: MailContent): RenderedMail {
   const text: string[] = []
   if (content.greeting) text.push(content.greeting, '')
   for (const p of content.paragraphs) text.push(p, '')
-  if (content.list?.length) {
-    for (const item of content.list) text.push(`  - ${item}`)
+  const list = (content.list ?? []).map(item => (typeof item === 'string' ? { text: item } : item))
+  if (list.length) {
+    for (const item of list) {
+      text.push(`  - ${item.text}`)
+      if (item.link) text.push(`    ${item.link.label}`, `    ${item.link.url}`)
+    }
     text.push('')
   }
+  for (const c of content.closing ?? []) text.push(c, '')
   if (content.action) text.push(`${content.action.label}:`, content.action.url, '')
   text.push('-- ', footer)
 
@@ -53,9 +69,12 @@ export function renderMail(content: MailContent): RenderedMail {
   ]
   if (content.greeting) html.push(`<p style="${p}">${escapeHtml(content.greeting)}</p>`)
   for (const para of content.paragraphs) html.push(`<p style="${p}">${escapeHtml(para)}</p>`)
-  if (content.list?.length) {
-    html.push(`<ul style="${p}padding-left:20px">`, ...content.list.map(item => `<li>${escapeHtml(item)}</li>`), '</ul>')
+  if (list.length) {
+    html.push(`<ul style="${p}padding-left:20px">`, ...list.map(item => `<li style="margin:0 0 8px 0">${escapeHtml(item.text)}${item.link
+      ? `<br><a href="${escapeHtml(item.link.url)}" style="color:#0f766e;font-size:14px">${escapeHtml(item.link.label)}</a>`
+      : ''}</li>`), '</ul>')
   }
+  for (const c of content.closing ?? []) html.push(`<p style="${p}">${escapeHtml(c)}</p>`)
   if (content.action) {
     const url = escapeHtml(content.action.url)
     html.push(
@@ -65,6 +84,52 @@ export function renderMail(content: MailContent): RenderedMail {
   }
   html.push(`<p style="margin:24px 0 0 0;font-size:13px;color:#64748b">${escapeHtml(footer)}</p>`, '</div></body></html>')
   return { text: text.join('\n'), html: html.join('\n') }
+}
+
+/** A finding's rule on the competition's rulebook page, as a link from an e-mail (`base`: siteUrl()). */
+export function ruleLink(base: string, competitionId: string, checkId: string): MailAction {
+  return { label: `Rule: ${checkId}`, url: `${base}${rulebookPath(competitionId, checkId)}` }
+}
+
+/**
+ * Findings as the lines of an e-mail: severity, what is wrong and how to fix it, each with its
+ * rule. A finding whose fix touches hardware points to the caution the message ends with.
+ */
+export function findingItems(findings: readonly Finding[], base: string, competitionId: string): MailListItem[] {
+  return findings.map(f => ({
+    text: `${f.severity === 'blocking' ? 'Blocking' : 'Advisory'}: ${f.reason} How to fix: ${f.fixHint}${f.caution ? ' The fix touches hardware: read the caution below.' : ''}`,
+    link: ruleLink(base, competitionId, f.checkId),
+  }))
+}
+
+/**
+ * The e-mail to an entrant whose glider is held or released: what happened, the findings open
+ * on the entry (each with its rule), and the hardware caution in full. The caution is always
+ * there, not only under a finding that carries one: a hold is often for something no finding
+ * names (the director's reason, a checklist item failed on the grid: antennas, ballast), and it
+ * is read while the glider is put right in a hurry on the grid.
+ */
+export function readinessMail(input: {
+  greeting: string
+  paragraphs: string[]
+  findings: readonly Finding[]
+  competitionId: string
+  base: string
+  entryUrl: string
+}): RenderedMail {
+  const { findings } = input
+  return renderMail({
+    greeting: input.greeting,
+    paragraphs: findings.length
+      ? [...input.paragraphs, findings.length === 1 ? 'The checks find this on your entry now:' : 'The checks find these on your entry now:']
+      : input.paragraphs,
+    list: findingItems(findings, input.base, input.competitionId),
+    closing: [
+      'Talk to the scrutineers on the grid or the contest director.',
+      `Caution where a fix touches hardware: ${HARDWARE_CAUTION}`,
+    ],
+    action: { label: 'Open your entry', url: input.entryUrl },
+  })
 }
 
 function formatDay(isoDate: string | null): string | null {
@@ -102,7 +167,7 @@ export function reminderMail(input: {
   firstContestDay: string
   pilotName: string
   compId: string
-  openItems: string[]
+  openItems: (string | MailListItem)[]
   url: string
 }): RenderedMail & { subject: string } {
   const day = formatDay(input.firstContestDay) ?? input.firstContestDay

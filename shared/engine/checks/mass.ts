@@ -40,7 +40,6 @@ function overLimit(checkId: string, ctx: CheckContext, w: WeighInRecord, t: Take
     checkId,
     severity: 'blocking',
     subject: w.id ? `weigh-in:${w.id}` : 'weigh-in',
-    caution: HARDWARE_CAUTION,
     reason: `Take-off mass on ${w.weighedOn}: ${formatKg(t.massKg)} (${massTermsText(t)}); ${whose} allows at most ${formatKg(limit)}.`,
     fixHint: `Reduce the take-off mass by at least ${formatKg(t.massKg - limit)} (water ballast first), then weigh again.`,
   }
@@ -55,7 +54,7 @@ export const massClassLimit: Check = {
     const x = weighed(ctx)
     const limit = classMassLimit(ctx)
     if (!x || limit == null) return []
-    if (x.t.massKg > limit + EPSILON_KG) return [overLimit(this.id, ctx, x.w, x.t, limit, `the ${ctx.dossier.entry.className} class`)]
+    if (x.t.massKg > limit + EPSILON_KG) return [{ ...overLimit(this.id, ctx, x.w, x.t, limit, `the ${ctx.dossier.entry.className} class`), caution: HARDWARE_CAUTION }]
     return x.t.pilotKnown ? [] : [pilotMissing(this.id, x.w, x.t)]
   },
 }
@@ -69,7 +68,7 @@ export const massFlightManual: Check = {
     const x = weighed(ctx)
     const mtom = ctx.dossier.entry.mtomKg
     if (!x || mtom == null) return []
-    if (x.t.massKg > mtom + EPSILON_KG) return [overLimit(this.id, ctx, x.w, x.t, mtom, 'the glider’s flight manual')]
+    if (x.t.massKg > mtom + EPSILON_KG) return [{ ...overLimit(this.id, ctx, x.w, x.t, mtom, 'the glider’s flight manual'), caution: HARDWARE_CAUTION }]
     return x.t.pilotKnown || classMassLimit(ctx) != null ? [] : [pilotMissing(this.id, x.w, x.t)]
   },
 }

@@ -84,6 +84,9 @@ describe('POST /api/admin/reminders/run', () => {
     expect(forAccepted.text).toContain('expires 2031-06-15, the last contest day is 2031-06-20')
     expect(forAccepted.text).toContain('Update the unit to a firmware release that expires after 2031-06-20')
     expect(forAccepted.text).toContain('Caution: Power the unit off before inserting or removing update media')
+    // Each finding links to its rule on the competition's rulebook page.
+    expect(forAccepted.links).toContain(`${baseUrl}/competitions/${competitionId}/checks#firmware.valid-through-contest`)
+    expect(forSubmitted.links).toContain(`${baseUrl}/competitions/${competitionId}/checks#recorder.present`)
     expect(forAccepted.text).not.toContain('No flight recorder')
 
     // Running again (even later in the window) sends nothing more.

@@ -1,5 +1,6 @@
 // The weigh-in on the grid: what is typed gives the mass and CG the engine gives, lb and inches
-// convert, and a mass over the class limit shows its finding before the check is submitted.
+// convert, and a mass over the class limit shows its finding, linked to its rule, before the
+// check is submitted.
 // Mass × arm method: total mass ΣW, CG arm Σ(W·arm)/ΣW from the datum (FAA-H-8083-1, Aircraft
 // Weight and Balance Handbook, ch. 2; the same method as shared/engine/weigh-in.ts).
 import { describe, expect, it } from 'vitest'
@@ -13,7 +14,7 @@ async function mountForm(entry: Parameters<typeof dossier>[1] = {}) {
   const d = dossier({}, entry)
   const updates: unknown[] = []
   const form = await mountSuspended(WeighInForm, {
-    props: { 'dossier': d, 'competition': competition(), 'field': fieldOf(d), 'day': DAY, 'onUpdate:modelValue': (v: unknown) => updates.push(v) },
+    props: { 'dossier': d, 'competition': competition(), 'field': fieldOf(d), 'day': DAY, 'competitionId': 'comp-1', 'onUpdate:modelValue': (v: unknown) => updates.push(v) },
   })
   return { form, updates }
 }
@@ -34,7 +35,9 @@ describe('WeighInForm', () => {
     expect(form.get('[data-testid="weigh-mass"]').text()).toBe('335.0 kg')
     expect(form.get('[data-testid="weigh-cg"]').text()).toBe('0.447 m')
     expect(updates.at(-1)).toEqual({ units: 'kg-m', readings: [{ point: 'main-wheel', weight: 310, arm: 0.12 }, { point: 'tail-wheel', weight: 25, arm: 4.5 }] })
-    expect(form.find('[data-testid="weigh-no-findings"]').exists()).toBe(true)
+    // No pilot's mass recorded: the sum counts the glider only, and says so.
+    expect(form.get('[data-testid="weigh-pilot-missing"]').text()).toContain('counts the glider only')
+    expect(form.findAll('[data-testid="weigh-finding"]').map(f => [f.attributes('data-check-id'), f.text().includes('Advisory')])).toEqual([['mass.class-limit', true]])
     expect(form.get('[data-testid="weigh-caution"]').text()).toContain('Local procedures and the competition’s rules prevail')
     form.unmount()
   })
@@ -59,6 +62,9 @@ describe('WeighInForm', () => {
     const ids = form.findAll('[data-testid="weigh-finding"]').map(f => f.attributes('data-check-id'))
     expect(ids).toEqual(['mass.class-limit'])
     expect(form.get('[data-testid="weigh-findings"]').text()).toContain('allows at most 525.0 kg')
+    const rule = form.get('[data-testid="weigh-finding"] [data-testid="finding-rule-link"]')
+    expect(rule.attributes('href')).toBe('/competitions/comp-1/checks#mass.class-limit')
+    expect(rule.text()).toBe('Rule: mass.class-limit')
     form.unmount()
   })
 
@@ -69,7 +75,23 @@ describe('WeighInForm', () => {
     expect(form.get('[data-testid="weigh-problem"]').text()).toContain('lever arm')
     expect(updates.at(-1)).toBeNull()
     await form.get('[data-testid="weigh-arm-1"]').setValue('4.50')
-    expect(form.findAll('[data-testid="weigh-finding"]').map(f => f.attributes('data-check-id'))).toEqual(['cg.within-limits'])
+    expect(form.findAll('[data-testid="weigh-finding"]').map(f => f.attributes('data-check-id'))).toEqual(['mass.class-limit', 'cg.within-limits'])
+    form.unmount()
+  })
+
+  it('adds the declared water ballast and the pilot as terms of the take-off mass, and their moments to the CG', async () => {
+    // Glider 335 kg at 0.44687 m (149.7 kg·m); pilot 85 kg at −1.2 m (−102 kg·m); 40 kg of water
+    // ballast declared, weighed dry, at 0.3 m (12 kg·m): 460 kg, CG 59.7 / 460 = 0.130 m.
+    const { form, updates } = await mountForm({ pilotMassKg: 85, pilotArmM: -1.2, ballastArmM: 0.3 })
+    await type(form, [['310', '0.12'], ['25', '4.50']])
+    await form.get('[data-testid="weigh-ballast-dry"]').trigger('click')
+    await form.get('[data-testid="weigh-ballast-kg"]').setValue('40')
+    expect(form.findAll('[data-testid="weigh-term"]').map(t => t.attributes('data-term'))).toEqual(['glider', 'ballast', 'pilot'])
+    expect(form.get('[data-testid="weigh-mass"]').text()).toBe('460.0 kg')
+    expect(form.get('[data-testid="weigh-cg"]').text()).toBe('0.130 m')
+    expect(form.find('[data-testid="weigh-pilot-missing"]').exists()).toBe(false)
+    expect(form.find('[data-testid="weigh-no-findings"]').exists()).toBe(true)
+    expect((updates.at(-1) as { declaredBallastKg: number }).declaredBallastKg).toBe(40)
     form.unmount()
   })
 })

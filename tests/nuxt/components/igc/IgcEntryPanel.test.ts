@@ -10,7 +10,7 @@ const recorders = [{ id: 'u1', model: 'Test Recorder TR-1', serial: 'A-0001' }, 
 const igcFile = {
   id: 'f1', entryId: 'e1', unitId: 'u1', originalFilename: 'flight.igc', sizeBytes: 900, sha256: 'x',
   flightDate: '2026-11-20', pilot: 'Marit Dovecote', copilot: null, gliderType: 'Kestrel Trainer 15', gliderId: 'D-KMOR',
-  competitionId: 'KM1', competitionClass: 'Standard', recorderType: 'TR-1', firmwareVersion: '2.4.1', hasGRecord: true,
+  competitionId: 'KM1', competitionClass: 'Standard', recorderType: 'TR-1', firmwareVersion: '2.4.1', recorderId: 'XTRKM1', extensions: ['FXA'], hasGRecord: true,
   parseErrors: [], uploadedAt: '2026-11-21T08:00:00.000Z', uploadedByName: 'P', superseded: false, replacedBy: null,
 }
 

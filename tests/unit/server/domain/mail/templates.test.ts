@@ -1,0 +1,45 @@
+// E-mails that list findings: each finding links to its rule on the competition's rulebook
+// page (in the text part and as a link in the HTML part), and the hold and release e-mails end
+// with the hardware caution in full, the one shared text.
+import { describe, expect, it } from 'vitest'
+import { HARDWARE_CAUTION, type Finding } from '#shared/engine'
+import { findingItems, readinessMail, renderMail, ruleLink } from '#domain/mail/templates'
+
+const BASE = 'https://gridmark.example'
+const expired: Finding = { checkId: 'firmware.valid-through-contest', severity: 'blocking', reason: 'The firmware expires 2027-07-18.', fixHint: 'Update it.', caution: HARDWARE_CAUTION, unitId: 'u1' }
+const unpaid: Finding = { checkId: 'entry.paid', severity: 'blocking', reason: 'The entry fee is not paid yet.', fixHint: 'Pay it.' }
+
+describe('a finding’s rule in an e-mail', () => {
+  it('is the check’s anchor on the rulebook page, at the public address', () => {
+    expect(ruleLink(BASE, 'c-1', 'entry.paid')).toEqual({ label: 'Rule: entry.paid', url: 'https://gridmark.example/competitions/c-1/checks#entry.paid' })
+  })
+
+  it('shows under each finding, in both parts of the message', () => {
+    const mail = renderMail({ paragraphs: ['Hello'], list: findingItems([expired, unpaid], BASE, 'c-1') })
+    expect(mail.text).toContain('  - Blocking: The firmware expires 2027-07-18. How to fix: Update it. The fix touches hardware: read the caution below.\n    Rule: firmware.valid-through-contest\n    https://gridmark.example/competitions/c-1/checks#firmware.valid-through-contest')
+    expect(mail.text).toContain('  - Blocking: The entry fee is not paid yet. How to fix: Pay it.\n    Rule: entry.paid\n    https://gridmark.example/competitions/c-1/checks#entry.paid')
+    expect(mail.html).toContain('<a href="https://gridmark.example/competitions/c-1/checks#entry.paid" style="color:#0f766e;font-size:14px">Rule: entry.paid</a>')
+  })
+
+  it('leaves plain lines as they were', () => {
+    expect(renderMail({ paragraphs: [], list: ['One thing'] }).text).toContain('  - One thing\n\n')
+  })
+})
+
+describe('readinessMail (hold and release)', () => {
+  it('lists the open findings with their rules and ends with the caution in full', () => {
+    const mail = readinessMail({ greeting: 'Hello Ann,', paragraphs: ['your glider is held.'], findings: [expired], competitionId: 'c-1', base: BASE, entryUrl: `${BASE}/e` })
+    expect(mail.text).toContain('The checks find this on your entry now:')
+    expect(mail.text).toContain('Rule: firmware.valid-through-contest\n    https://gridmark.example/competitions/c-1/checks#firmware.valid-through-contest')
+    expect(mail.text).toContain(`Caution where a fix touches hardware: ${HARDWARE_CAUTION}`)
+    expect(mail.text.indexOf('Rule:')).toBeLessThan(mail.text.indexOf('Caution where'))
+  })
+
+  it('carries the caution even when no finding is open (a hold for a reason no check names)', () => {
+    const mail = readinessMail({ greeting: 'Hello Ann,', paragraphs: ['your glider is held: antenna loose.'], findings: [], competitionId: 'c-1', base: BASE, entryUrl: `${BASE}/e` })
+    expect(mail.text).not.toContain('The checks find')
+    expect(mail.text).toContain(HARDWARE_CAUTION)
+    // The HTML part escapes the caution's apostrophes like any other text.
+    expect(mail.html).toContain('Follow the manufacturer’s instructions.')
+  })
+})
