@@ -21,8 +21,9 @@ export const DOCUMENT_KIND_LABELS: Record<DocumentKind, string> = {
 }
 
 /**
- * IGC approval levels of flight recorders. Source: IGC GNSS FR specification 1.1.4
- * (approval levels) — the level names are `from memory` until checked against the current edition.
+ * IGC approval levels of flight recorders. Source: FAI Sporting Code Section 3 Annex B, 4.1.1
+ * (three approval levels, as the FAI's page of approved recorders cites it) — the level names
+ * are `from memory` until checked against the current edition.
  */
 export const APPROVAL_LEVELS = ['all-flights', 'badges-up-to-diamonds', 'badges-up-to-gold', 'not-approved'] as const
 export type ApprovalLevel = (typeof APPROVAL_LEVELS)[number]

@@ -1,7 +1,8 @@
 // Reads an IGC file's header with igc-parser in lenient mode, collecting each line's error
 // with its line number. A file without an A record (or date) is not an IGC file at all.
 // Field sources: IGC GNSS FR specification Appendix A, H records (HFDTE, HFPLT, HFCM2, HFGTY,
-// HFGID, HFCID, HFCCL, HFFTY, HFRFW) and A2.5.7 (G record, the security record).
+// HFGID, HFCID, HFCCL, HFFTY, HFRFW), the A and I records (A3.1, A3.4) and the G record, the
+// security record (A3.2) — paragraph numbers of the 2008 edition.
 import IGCParser from 'igc-parser'
 
 export interface IgcHeader {

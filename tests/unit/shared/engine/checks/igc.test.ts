@@ -8,7 +8,7 @@ const file = (hasGRecord: boolean): EngineIgcFile => ({
   competitionId: 'A1', competitionClass: 'Standard', hasGRecord, uploadedAt: '2027-05-21T08:00:00Z',
 })
 
-describe('igc.security-record (IGC GNSS FR specification A2.5.7: the G record is required)', () => {
+describe('igc.security-record (IGC GNSS FR specification Appendix A, 2008 edition: A2.5.7 mandatory records, A3.2 the G record)', () => {
   it('advises on a file without a G record', () => {
     const [f] = igcSecurityRecord.run(ctx(dossier({ igcFiles: [file(false)] })))
     expect(f).toMatchObject({ checkId: 'igc.security-record', severity: 'advisory', unitId: 'fr-1' })

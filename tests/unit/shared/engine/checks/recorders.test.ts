@@ -3,7 +3,7 @@ import { HARDWARE_CAUTION } from '#shared/engine/caution'
 import { recorderPresent } from '#shared/engine/checks/recorders'
 import { collisionWarning, competition, ctx, dossier, recorder } from '../builders'
 
-describe('recorder.present (IGC GNSS FR specification 1.1.4 approval levels, 1.1.5.3)', () => {
+describe('recorder.present (FAI Sporting Code Section 3 Annex B 4.1.1: the three IGC approval levels; the FAI page of approved recorders cites it)', () => {
   it('passes one recorder of an accepted level', () => {
     expect(recorderPresent.run(ctx(dossier()))).toEqual([])
   })
