@@ -96,8 +96,12 @@ export const SEEDED_PROBLEMS: Record<string, string> = {
 /** Motor gliders of the demo: E2 without engine recording (a seeded problem), L8 recording it. */
 export const DEMO_MOTOR_GLIDERS: Record<string, DemoEntry['motorGlider']> = { E2: 'sustainer', L8: 'self-launching' }
 
-/** The registration weigh-in of P6 (seeds/demo-files.ts): the glider alone on the scales, kg and m. */
-export const DEMO_WEIGH_IN = { compId: 'P6', readings: [{ point: 'main-wheel', weight: 420, arm: 0.21 }, { point: 'tail-wheel', weight: 32, arm: 4.6 }] } as const
+/**
+ * The weigh-in of P6 (seeds/demo-files.ts) at the organisers' weighing day when registration
+ * opened — before any day the demo plays, so every screen reads the same latest weigh-in: the
+ * glider alone on the scales, kg and m.
+ */
+export const DEMO_WEIGH_IN = { compId: 'P6', weighedOn: '2026-11-01', readings: [{ point: 'main-wheel', weight: 420, arm: 0.21 }, { point: 'tail-wheel', weight: 32, arm: 4.6 }] } as const
 
 const ENTRY_COUNT = 40
 const DEMO_ENTRANTS = DEMO_PEOPLE.filter(p => p.roles.includes('entrant'))

@@ -9,7 +9,6 @@ import { fileURLToPath } from 'node:url'
 import type { Knex } from 'knex'
 import { DOCUMENT_KIND_LABELS, type DocumentKind } from '../shared/constants/entries'
 import { takeOffMass } from '../shared/engine/weigh-in'
-import { DEMO_COMPETITION } from './demo-data'
 import { DEMO_ENTRIES, DEMO_WEIGH_IN } from './demo-entries'
 
 const uploadsDir = () => process.env.NUXT_UPLOADS_DIR ?? resolve(dirname(fileURLToPath(import.meta.url)), '../.data/uploads')
@@ -192,7 +191,7 @@ export async function seedDemoIgcFiles(trx: Knex, competitionId: string): Promis
 }
 
 /**
- * P6's registration weigh-in on the first practice day, by the demo scrutineer: the glider alone
+ * P6's weigh-in at the weighing day, by the demo scrutineer: the glider alone
  * on the scales; with the pilot's recorded mass the take-off mass is over the Standard class's
  * limit (a seeded problem). Stored as the app stores a weigh-in: readings, take-off mass and CG.
  */
@@ -204,7 +203,7 @@ export async function seedDemoWeighIn(trx: Knex, competitionId: string, scrutine
   await trx('weigh_ins').insert({
     competition_id: competitionId,
     entry_id: entry.id,
-    weighed_on: DEMO_COMPETITION.practiceDays[0],
+    weighed_on: DEMO_WEIGH_IN.weighedOn,
     units: 'kg-m',
     readings: JSON.stringify(readings),
     mass_kg: Math.round(t.massKg * 100) / 100,

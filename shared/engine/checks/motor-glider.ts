@@ -31,7 +31,7 @@ export const motorGliderEngineRecording: Check = {
       subject: 'engine-recording',
       caution: HARDWARE_CAUTION,
       reason: files.length
-        ? `${what}, but no current IGC file declares engine recording in its I record (it declares ${[...new Set(files.flatMap(f => f.file.extensions ?? []))].join(', ') || 'no extensions'}).`
+        ? `${what}, but no current IGC file shows that engine use is recorded: its I record lists ${[...new Set(files.flatMap(f => f.file.extensions ?? []))].join(', ') || 'no extensions'}, none of ${ENGINE_RECORDING_CODES.join(', ')}.`
         : `${what}, and no IGC file is uploaded to show that its engine use is recorded.`,
       fixHint: 'Use a flight recorder that records engine use (an engine noise or means-of-propulsion sensor, fitted as the manufacturer says), and upload an IGC file from it.',
     }]

@@ -2,6 +2,7 @@
 import { APPROVAL_LEVEL_LABELS, type ApprovalLevel } from '../../constants/entries'
 import { HARDWARE_CAUTION } from '../caution'
 import type { Check, Finding, FlightRecorderUnit } from '../types'
+import { formatRecorderId } from '../../utils/recorder-id'
 import { latestIgcFiles, unattachedLabel } from './declaration'
 import { flightRecorders, plural } from './helpers'
 
@@ -108,7 +109,7 @@ export const recorderIdentity: Check = {
       if (!r) continue
       const subject = file.id ? `igc:${file.id}` : undefined
       const fileId = compactId(file.recorderId)
-      const shown = fileId.length === 6 ? `${fileId.slice(0, 3)}-${fileId.slice(3)}` : fileId
+      const shown = formatRecorderId(fileId)
       if (fileId && !compactId(r.igcRecorderId)) {
         out.push({
           checkId: this.id, severity: 'advisory', unitId, subject,
@@ -119,7 +120,7 @@ export const recorderIdentity: Check = {
       else if (!recorderIdMatches(r.igcRecorderId, file.recorderId)) {
         out.push({
           checkId: this.id, severity: 'advisory', unitId, subject, caution: HARDWARE_CAUTION,
-          reason: `${title} comes from recorder ${shown}, but the ${r.model} is declared with IGC recorder ID ${compactId(r.igcRecorderId)}: the file may be from another recorder.`,
+          reason: `${title} comes from recorder ${shown}, but the ${r.model} is declared with IGC recorder ID ${formatRecorderId(r.igcRecorderId)}: the file may be from another recorder.`,
           fixHint: 'Upload a file downloaded from this recorder, or correct the IGC recorder ID declared for it.',
         })
       }

@@ -189,7 +189,7 @@ describe('a unit with its IGC recorder ID', () => {
     expect(res.status).toBe(200)
     const f = (await findingsOf(id)).find(x => x.checkId === 'recorder.identity')
     expect(f.severity).toBe('advisory')
-    expect(f.reason).toContain('comes from recorder XKM-QQQ, but the Example Logger 3 is declared with IGC recorder ID XKMA1B')
+    expect(f.reason).toContain('comes from recorder XKM-QQQ, but the Example Logger 3 is declared with IGC recorder ID XKM-A1B')
   })
 
 })

@@ -81,7 +81,7 @@ describe('the seeded demo problems (seeds/demo-entries.ts)', () => {
           pilot: e.pilotName, copilot: e.copilotName ?? null, gliderType: e.gliderType, gliderId: e.compId === 'G5' ? 'KM-ZZQ' : e.registration, competitionId: e.compId === 'G5' ? 'G6' : e.compId,
           competitionClass: classNames[e.classCode]!,
         })])
-    const weighIns = e.compId === DEMO_WEIGH_IN.compId ? [{ id: 'w-p6', weighedOn: DEMO_COMPETITION.practiceDays[0], units: 'kg-m' as const, readings: DEMO_WEIGH_IN.readings.map(r => ({ ...r })) }] : []
+    const weighIns = e.compId === DEMO_WEIGH_IN.compId ? [{ id: 'w-p6', weighedOn: DEMO_WEIGH_IN.weighedOn, units: 'kg-m' as const, readings: DEMO_WEIGH_IN.readings.map(r => ({ ...r })) }] : []
     return dossier({ units, igcFiles, weighIns, payment: { status: e.paymentStatus } }, {
       id: `entry-${i}`, compId: e.compId, registration: e.registration, gliderType: e.gliderType, pilotName: e.pilotName,
       copilotName: e.copilotName ?? null, className: classNames[e.classCode]!, classCode: e.classCode, status: e.status, mtomKg: e.mtomKg,

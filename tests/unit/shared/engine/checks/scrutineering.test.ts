@@ -93,7 +93,7 @@ describe('recorder.identity (IGC GNSS FR specification Appendix A: A record “A
   it('advises on a file from another recorder, with both identities', () => {
     const [f] = recorderIdentity.run(ctx(dossier({ igcFiles: [igcFile({ recorderId: 'XPLZZ9' })] })))
     expect(f).toMatchObject({ severity: 'advisory', unitId: 'fr-1' })
-    expect(f!.reason).toContain('comes from recorder XPL-ZZ9, but the Plover FR-2 is declared with IGC recorder ID XPLFR7')
+    expect(f!.reason).toContain('comes from recorder XPL-ZZ9, but the Plover FR-2 is declared with IGC recorder ID XPL-FR7')
   })
 
   it('asks for the IGC recorder ID where none is entered', () => {
@@ -132,7 +132,7 @@ describe('motor-glider.engine-recording (IGC GNSS FR specification Appendix A: I
   it('blocks one whose file records fix accuracy and satellites only, naming what it records', () => {
     const [f] = motorGliderEngineRecording.run(ctx(dossier({}, motor)))
     expect(f).toMatchObject({ severity: 'blocking', caution: HARDWARE_CAUTION })
-    expect(f!.reason).toContain('sustainer motor glider, but no current IGC file declares engine recording in its I record (it declares FXA, SIU)')
+    expect(f!.reason).toContain('sustainer motor glider, but no current IGC file shows that engine use is recorded: its I record lists FXA, SIU, none of ENL, MOP, RPM, CUR.')
   })
 
   it('blocks one with no IGC file at all, and says nothing of a pure glider', () => {
