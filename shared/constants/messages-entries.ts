@@ -6,6 +6,10 @@ export const ENTRIES_MESSAGES = {
   entryLockedForEntrant: (status: string) =>
     `This entry is ${status}: only the organiser can change it now.`,
   organiserOrEntrantOnly: 'Only the entry’s entrant or the organiser can change it.',
+  officeOnlyAfterAcceptance: (fields: string) =>
+    `The entry is accepted: only the office changes its ${fields} now. Ask them with a message from the entry page.`,
+  contestOverForEntrant: (lastDay: string) =>
+    `The last contest day (${lastDay}) is over: only the organiser can change this entry now.`,
   classNotInCompetition: 'Choose one of this competition’s classes.',
   compIdTaken: (compId: string, pilot: string, registration: string) =>
     `Competition ID ${compId} is already taken by ${pilot} (${registration}).`,

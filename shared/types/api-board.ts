@@ -142,6 +142,8 @@ export interface BoardEntryDetail {
   actions: DirectorActionRecord[]
   /** The director may act (the caller is a director and the day is open). */
   canDirect: boolean
+  /** The last change of the accepted entry's dossier after acceptance, or null. */
+  changedAfterAcceptanceAt: string | null
 }
 
 /** POST hold / release / waiver. */

@@ -32,6 +32,8 @@ export interface EntryView {
   cgAftLimitM: number | null
   datumDescription: string | null
   motorGlider: 'none' | 'self-launching' | 'sustainer' | 'electric'
+  /** The last change of the dossier after acceptance (fields, units, files), or null. */
+  changedAfterAcceptanceAt: string | null
   /** The pilot's and co-pilot's mass with parachute, kg (registration weighing, staff). */
   pilotMassKg: number | null
   copilotMassKg: number | null

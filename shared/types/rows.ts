@@ -103,6 +103,7 @@ export interface EntryRow {
   cg_aft_limit_m: string | null
   datum_description: string | null
   motor_glider: string
+  changed_after_acceptance_at: Date | null
   pilot_mass_kg: string | null
   copilot_mass_kg: string | null
   pilot_arm_m: string | null

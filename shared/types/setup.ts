@@ -74,6 +74,8 @@ export interface EntryTableRow {
   paymentStatus: PaymentStatus
   paidMinor: number
   submittedAt: string | null
+  /** The last change of the accepted entry's dossier (fields, units, files), or null. */
+  changedAfterAcceptanceAt: string | null
   /** The check engine's findings on the entry, counted by severity. */
   findings: FindingCounts
 }

@@ -220,5 +220,6 @@ export async function boardEntryDetail(access: CompetitionAccess, entryId: strin
     findings: withWaivers,
     actions,
     canDirect: access.roles.includes('director') && shown?.status === 'open',
+    changedAfterAcceptanceAt: loaded?.rows[0]?.changed_after_acceptance_at ?? null,
   }
 }

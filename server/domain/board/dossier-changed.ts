@@ -13,6 +13,15 @@ import { toField, type FindingsFieldEntry, type FindingsFieldRadioId } from '#do
 import { boardChangesOf, boardTransaction, lockBoard, openDate } from './transaction'
 import { refreshTiles, type RefreshOptions } from './tiles'
 
+/**
+ * An entry's own dossier changed by its entrant or the office (its fields, units, documents or
+ * IGC files): an accepted entry is marked "changed since acceptance" for the office and the desk.
+ * Call it before `dossierChanged`, in the same transaction.
+ */
+export async function noteChangeAfterAcceptance(trx: Knex.Transaction, entryIds: readonly string[]): Promise<void> {
+  await trx('entries').whereIn('id', entryIds).where('status', 'accepted').update({ changed_after_acceptance_at: trx.fn.now() })
+}
+
 /** Some entries of the competition, or all of them (a class, the rules or the catalogue changed). */
 export type ChangedEntries = readonly string[] | 'all'
 

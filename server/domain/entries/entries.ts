@@ -20,7 +20,7 @@ import { entryProgress } from '#shared/utils/entry-progress'
 import { effectiveRoles } from '#shared/utils/access'
 import type { Role } from '#shared/constants/roles'
 import { audit } from '#domain/audit/audit'
-import { dossierChanged } from '#domain/board/dossier-changed'
+import { dossierChanged, noteChangeAfterAcceptance } from '#domain/board/dossier-changed'
 import { findCompetition, listClasses } from '#domain/competitions/competitions'
 import { countFindings, entryFindings, findingsByEntry } from '#domain/findings/findings'
 import { enqueueMail } from '#domain/mail/outbox'
@@ -60,6 +60,7 @@ export function toEntryView(row: EntryRow & { entrant_name?: string }): EntryVie
     cgAftLimitM: num(row.cg_aft_limit_m),
     datumDescription: row.datum_description,
     motorGlider: (row.motor_glider ?? 'none') as EntryView['motorGlider'],
+    changedAfterAcceptanceAt: iso(row.changed_after_acceptance_at),
     pilotMassKg: num(row.pilot_mass_kg),
     copilotMassKg: num(row.copilot_mass_kg),
     pilotArmM: num(row.pilot_arm_m),
@@ -114,6 +115,9 @@ async function readEntry(db: Knex, entryId: string): Promise<EntryRow & { entran
 interface RegistrationWindow {
   opensOn: string | null
   closesOn: string | null
+  /** The last contest day; after it, an accepted entry is the organiser's alone. */
+  lastContestDay: string | null
+  contestOver: boolean
   /** Today in the competition's own time zone. */
   today: string
   open: boolean
@@ -129,13 +133,15 @@ export async function registrationWindow(competitionId: string, db: Knex = useDb
   const row = await db('competitions as c').where('c.id', competitionId).first(
     'c.registration_opens_on as opens_on',
     'c.registration_closes_on as closes_on',
+    'c.last_contest_day as last_contest_day',
     db.raw(`${TODAY_SQL} as today`),
   )
   const opensOn: string | null = row?.opens_on ?? null
   const closesOn: string | null = row?.closes_on ?? null
   const today: string = row?.today
   const closed = closesOn !== null && today > closesOn
-  return { opensOn, closesOn, today, closed, open: !closed && (opensOn === null || today >= opensOn) }
+  const lastContestDay: string | null = row?.last_contest_day ?? null
+  return { opensOn, closesOn, today, closed, open: !closed && (opensOn === null || today >= opensOn), lastContestDay, contestOver: lastContestDay !== null && today > lastContestDay }
 }
 
 // ---------------------------------------------------------------------------------------
@@ -175,18 +181,35 @@ function formatDay(day: string): string {
   return new Date(`${day}T12:00:00Z`).toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' })
 }
 
-/** Why the caller may not change this entry now, or null when they may. */
-function editRefusal(access: EntryAccess, entry: EntryRow, window: RegistrationWindow): { status: number, message: string } | null {
+/** What only the office changes once an entry is accepted (the entrant asks with a message). */
+export const OFFICE_FIELDS_AFTER_ACCEPTANCE = ['classId', 'compId', 'registration', 'gliderType'] as const
+const OFFICE_FIELD_WORDS: Record<(typeof OFFICE_FIELDS_AFTER_ACCEPTANCE)[number], string> = {
+  classId: 'class', compId: 'competition ID', registration: 'registration', gliderType: 'glider type',
+}
+
+/**
+ * Why the caller may not change this entry now, or null when they may. An accepted entry stays
+ * its entrant's to keep current (units, documents, IGC files, contact data: every field but
+ * `OFFICE_FIELDS_AFTER_ACCEPTANCE`) until the end of the last contest day; `changing` names
+ * the fields a change touches, so a change of an office field is refused by name.
+ */
+function editRefusal(access: EntryAccess, entry: EntryRow, window: RegistrationWindow, changing: readonly string[] = []): { status: number, message: string } | null {
   if (entry.status === 'withdrawn') return { status: 409, message: MESSAGES.alreadyWithdrawn }
   if (isOrganiser(access)) return null
   if (!access.isOwner) return { status: 403, message: MESSAGES.organiserOrEntrantOnly }
+  if (entry.status === 'accepted') {
+    if (window.contestOver) return { status: 403, message: MESSAGES.contestOverForEntrant(formatDay(window.lastContestDay!)) }
+    const office = OFFICE_FIELDS_AFTER_ACCEPTANCE.filter(f => changing.includes(f))
+    if (office.length) return { status: 403, message: MESSAGES.officeOnlyAfterAcceptance(office.map(f => OFFICE_FIELD_WORDS[f]).join(', ')) }
+    return null
+  }
   if (window.closed) return { status: 403, message: MESSAGES.registrationClosedForEntrant(formatDay(window.closesOn!)) }
   if (!ENTRANT_EDITABLE.includes(entry.status)) return { status: 403, message: MESSAGES.entryLockedForEntrant(entry.status) }
   return null
 }
 
-function assertMayEdit(access: EntryAccess, entry: EntryRow, window: RegistrationWindow) {
-  const refusal = editRefusal(access, entry, window)
+function assertMayEdit(access: EntryAccess, entry: EntryRow, window: RegistrationWindow, changing: readonly string[] = []) {
+  const refusal = editRefusal(access, entry, window, changing)
   if (refusal) throw httpError(refusal.status, refusal.message)
 }
 
@@ -195,6 +218,7 @@ function permissions(access: EntryAccess, entry: EntryRow, window: RegistrationW
   let editNote = refusal?.message ?? ''
   if (!refusal) {
     if (isOrganiser(access) && !access.isOwner) editNote = 'As the organiser you can change this entry at any time; every change is recorded in the audit log.'
+    else if (entry.status === 'accepted') editNote = `Keep the entry current until the last contest day${window.lastContestDay ? ` (${formatDay(window.lastContestDay)})` : ''}: units, documents, IGC files and contact data. Its class, competition ID, registration and glider type are the office’s to change; every change is recorded and checked again at once.`
     else if (window.closesOn) editNote = `You can change this entry until registration closes on ${formatDay(window.closesOn)}, unless it is accepted; after that only the organiser can.`
     else editNote = 'You can change this entry while it is a draft, submitted or rejected; once accepted only the organiser can.'
   }
@@ -439,7 +463,8 @@ export async function updateEntry(access: EntryAccess, patch: EntryPatch): Promi
   await useDb().transaction(async (trx) => {
     await lockCompetitionEntries(trx, competition.id)
     const current: EntryRow = await trx('entries').where({ id: access.entry.id }).forUpdate().first()
-    assertMayEdit(access, current, await registrationWindow(competition.id, trx))
+    const window = await registrationWindow(competition.id, trx)
+    assertMayEdit(access, current, window)
 
     const changes: Record<string, unknown> = {}
     const changed: { field: EntryField, from: unknown, to: unknown }[] = []
@@ -452,6 +477,7 @@ export async function updateEntry(access: EntryAccess, patch: EntryPatch): Promi
       changed.push({ field, from, to: next })
     }
     if (!changed.length) return
+    assertMayEdit(access, current, window, changed.map(c => c.field))
 
     if (patch.classId !== undefined) await assertClassInCompetition(trx, competition.id, patch.classId)
     if (changes.comp_id !== undefined) await assertCompIdFree(trx, competition.id, patch.compId!, current.id)
@@ -466,6 +492,7 @@ export async function updateEntry(access: EntryAccess, patch: EntryPatch): Promi
         details: { field: c.field, from: c.from, to: c.to },
       })
     }
+    await noteChangeAfterAcceptance(trx, [current.id])
     await dossierChanged(trx, competition.id, [current.id], user.id)
   })
 }
@@ -489,6 +516,7 @@ export async function addUnit(access: EntryAccess, body: UnitBody): Promise<Unit
       actorUserId: access.user.id, competitionId: entry.competition_id, action: 'unit.added', subjectType: 'unit', subjectId: id,
       details: { entryId: entry.id, ...body },
     })
+    await noteChangeAfterAcceptance(trx, [entry.id])
     await dossierChanged(trx, entry.competition_id, [entry.id], access.user.id)
     const [row] = await trx('units').where({ id }).select(UNIT_COLUMNS)
     return toUnitView(row)
@@ -516,6 +544,7 @@ export async function updateUnit(access: EntryAccess, unitId: string, body: Unit
         details: { entryId: entry.id, field, from: current[column] ?? null, to: next[column] },
       })
     }
+    await noteChangeAfterAcceptance(trx, [entry.id])
     await dossierChanged(trx, entry.competition_id, [entry.id], access.user.id)
     const [row] = await trx('units').where({ id: unitId }).select(UNIT_COLUMNS)
     return toUnitView(row)
@@ -533,6 +562,7 @@ export async function deleteUnit(access: EntryAccess, unitId: string): Promise<v
       actorUserId: access.user.id, competitionId: entry.competition_id, action: 'unit.deleted', subjectType: 'unit', subjectId: unitId,
       details: { ...toUnitView(current) },
     })
+    await noteChangeAfterAcceptance(trx, [entry.id])
     await dossierChanged(trx, entry.competition_id, [entry.id], access.user.id)
   })
 }

@@ -80,6 +80,7 @@ function orderBy(f: EntryTableFilter): string {
 const ROW_COLUMNS = [
   'e.id', 'e.comp_id', 'e.pilot_name', 'e.class_id', 'c.name as class_name', 'e.glider_type', 'e.registration',
   'e.status', 'e.payment_status', 'e.paid_minor', 'e.submitted_at', 'e.copilot_name', 'e.pilot_nationality',
+  'e.changed_after_acceptance_at',
 ]
 
 interface RawRow {
@@ -96,6 +97,7 @@ interface RawRow {
   submitted_at: Date | null
   copilot_name: string | null
   pilot_nationality: string | null
+  changed_after_acceptance_at: Date | null
 }
 
 function toRow(r: RawRow, findings: FindingCounts): EntryTableRow {
@@ -111,6 +113,7 @@ function toRow(r: RawRow, findings: FindingCounts): EntryTableRow {
     paymentStatus: r.payment_status,
     paidMinor: r.paid_minor,
     submittedAt: iso(r.submitted_at),
+    changedAfterAcceptanceAt: iso(r.changed_after_acceptance_at),
     findings,
   }
 }

@@ -11,7 +11,7 @@ import type { DocumentRow } from '#shared/types/rows'
 import type { DocumentListResponse, DocumentQueueResponse, DocumentView, QueueDocumentView } from '#shared/types/files'
 import type { ReviewBody } from '#shared/schemas/files'
 import { audit } from '#domain/audit/audit'
-import { dossierChanged } from '#domain/board/dossier-changed'
+import { dossierChanged, noteChangeAfterAcceptance } from '#domain/board/dossier-changed'
 import { enqueueMail } from '#domain/mail/outbox'
 import { useDb } from '#server/utils/db'
 import { httpError } from '#server/utils/errors'
@@ -109,6 +109,7 @@ export async function createDocument(input: {
       subjectId: row!.id,
       details: { entryId: input.entryId, kind: input.kind, sha256, sizeBytes: input.data.byteLength, mediaType: input.mediaType, replaces: previous.map(p => p.id) },
     })
+    await noteChangeAfterAcceptance(trx, [input.entryId])
     await dossierChanged(trx, input.competitionId, [input.entryId], input.actorUserId)
     return row!.id
   }))

@@ -5,7 +5,7 @@ import type { Knex } from 'knex'
 import type { IgcFileRow } from '#shared/types/rows'
 import type { IgcFileListResponse, IgcFileView } from '#shared/types/files'
 import { audit } from '#domain/audit/audit'
-import { dossierChanged } from '#domain/board/dossier-changed'
+import { dossierChanged, noteChangeAfterAcceptance } from '#domain/board/dossier-changed'
 import { useDb } from '#server/utils/db'
 import { iso } from '#domain/read-model/values'
 import { httpError } from '#server/utils/errors'
@@ -127,6 +127,7 @@ export async function createIgcFile(input: {
       subjectId: row!.id,
       details: { entryId: input.entryId, unitId: input.unitId, sha256, sizeBytes: input.data.byteLength, replaces: previous.map(p => p.id) },
     })
+    await noteChangeAfterAcceptance(trx, [input.entryId])
     await dossierChanged(trx, input.competitionId, [input.entryId], input.actorUserId)
     return row!.id
   }))
@@ -156,6 +157,7 @@ export async function nameIgcRecorder(input: { competitionId: string, entryId: s
       subjectId: file.id,
       details: { entryId: input.entryId, unitId: input.unitId, from: file.unit_id, replaces: previous.map(p => p.id) },
     })
+    await noteChangeAfterAcceptance(trx, [input.entryId])
     await dossierChanged(trx, input.competitionId, [input.entryId], input.actorUserId)
   })
   return toView(await selectIgc(useDb()).where('f.id', input.igcFileId).first() as IgcSelect)

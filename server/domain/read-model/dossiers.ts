@@ -34,6 +34,8 @@ export interface FindingsEntryRow {
   pilot_arm_m?: string | number | null
   copilot_arm_m?: string | number | null
   ballast_arm_m?: string | number | null
+  /** The last change of the accepted entry's dossier (ISO text), or null. */
+  changed_after_acceptance_at?: string | null
   class_id: string
   class_name: string
   class_code: string
@@ -345,7 +347,7 @@ const PARTS = {
       ['e.mtom_kg::text', 'mtom_kg'], ['e.cg_forward_limit_m::text', 'cg_forward_limit_m'], ['e.cg_aft_limit_m::text', 'cg_aft_limit_m'],
       ['e.class_id', 'class_id'], ['k.name', 'class_name'], ['k.code', 'class_code'], ['e.span_m::text', 'span_m'], ['e.motor_glider', 'motor_glider'],
       ['e.pilot_mass_kg::text', 'pilot_mass_kg'], ['e.copilot_mass_kg::text', 'copilot_mass_kg'], ['e.pilot_arm_m::text', 'pilot_arm_m'],
-      ['e.copilot_arm_m::text', 'copilot_arm_m'], ['e.ballast_arm_m::text', 'ballast_arm_m']],
+      ['e.copilot_arm_m::text', 'copilot_arm_m'], ['e.ballast_arm_m::text', 'ballast_arm_m'], ['e.changed_after_acceptance_at', 'changed_after_acceptance_at']],
     from: 'entries e join classes k on k.id = e.class_id where e.competition_id = :competitionId',
     order: 'e.comp_id, e.id',
     entry: 'e.id',
