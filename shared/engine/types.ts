@@ -190,6 +190,11 @@ export interface Finding {
   unitId?: string
   /** Another subject within the dossier: a document kind, an IGC file, a weigh-in. */
   subject?: string
+  /**
+   * Set when the finding waits on the staff, not the pilot: a document uploaded and waiting for
+   * a scrutineer's review. It still keeps the glider from `ready`; the pilot has nothing to do.
+   */
+  awaiting?: 'review'
 }
 
 export interface CheckContext {

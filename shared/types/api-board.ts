@@ -2,6 +2,7 @@
 import type { DayKind, WaiverScope } from '../schemas/board'
 import type { Finding, IsoDate } from '../engine/types'
 import type { Readiness } from '../engine/readiness'
+import type { TileAction } from '../utils/board-tile'
 
 /** What a tile shows under its readiness word: why it is held, what failed, or the first finding. */
 export interface BoardHeadline {
@@ -109,6 +110,8 @@ export interface EntryDayReadiness {
   headline: BoardHeadline | null
   hold: BoardTile['hold']
   lastCheck: BoardTile['lastCheck']
+  /** The director's actions that count on the open day (its holds, releases and waivers, and the competition-wide waivers). */
+  actions: TileAction[]
 }
 
 /** The answer to a socket's `board:join`. */

@@ -3,8 +3,11 @@ import type { EntryStatus } from '../constants/entries'
 import type { Finding, Severity } from '../engine/types'
 
 export interface FindingCounts {
+  /** Blocking findings the pilot must put right. */
   blocking: number
   advisory: number
+  /** Blocking findings waiting on the staff's review (a document), counted apart from `blocking`. */
+  inReview?: number
 }
 
 export interface EntryFindings extends FindingCounts {

@@ -61,7 +61,11 @@ export function buildTile({ entry, findings, check, actions, day }: TileInput): 
   else if (check && check.day === day && check.outcome === 'fail') {
     headline = { kind: 'checklist', text: check.failedItems.length ? `Failed on the grid: ${check.failedItems.join('; ')}` : 'Failed on the grid' }
   }
-  else if (open[0]) headline = { kind: 'finding', text: open[0].reason, severity: open[0].severity, checkId: open[0].checkId }
+  else if (open[0]) {
+    // The pilot's own blocking finding first; a document waiting for review says so.
+    const first = open.find(f => f.severity === 'blocking' && f.awaiting !== 'review') ?? open[0]
+    headline = { kind: 'finding', text: first.awaiting === 'review' ? `In review: ${first.reason}` : first.reason, severity: first.severity, checkId: first.checkId }
+  }
   return {
     entryId: entry.id,
     compId: entry.compId,

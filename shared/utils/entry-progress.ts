@@ -2,6 +2,8 @@
 // submit route, the dossier page and "My entries" all read the same answer.
 import { DOCUMENT_KIND_LABELS, type DocumentKind, type EntryStatus, type PaymentStatus } from '../constants/entries'
 import type { CompetitionRules } from '../schemas/competition'
+import type { Finding } from '../engine/types'
+import { entryVerdict, type Actor } from './entry-verdict'
 
 export interface ProgressEntry {
   status: EntryStatus
@@ -26,6 +28,8 @@ export interface ProgressInput {
   documents: { kind: string, status: string }[]
   igcFiles: { unitId: string | null }[]
   paymentStatus: PaymentStatus
+  /** The engine's findings, so the next step says what blocks and who acts (entry-verdict.ts). */
+  findings?: readonly Finding[]
 }
 
 export interface MissingItem {
@@ -40,6 +44,8 @@ export interface EntryProgress {
   /** Nothing that blocks submitting is missing. */
   submittable: boolean
   nextStep: string
+  /** What the findings leave open (competition-wide waivers applied) and who acts next. */
+  open: { pilot: number, inReview: number, actor: Actor | null }
 }
 
 /** Fields the organiser needs before reviewing an entry, with how to ask for each. */
@@ -115,15 +121,26 @@ export function entryProgress(input: ProgressInput): EntryProgress {
   }
 
   const submittable = !missing.some(m => m.blocksSubmit)
-  return { missing: entry.status === 'withdrawn' ? [] : missing, submittable, nextStep: nextStep(entry, missing, submittable) }
+  const verdict = entryVerdict({ status: entry.status, findings: input.findings ?? [] })
+  return {
+    missing: entry.status === 'withdrawn' ? [] : missing,
+    submittable,
+    nextStep: nextStep(entry, missing, submittable, verdict),
+    open: { pilot: verdict.pilot.length, inReview: verdict.inReview.length, actor: verdict.actor },
+  }
 }
 
 function describe(u: { model?: string, serial?: string }): string {
   return [u.model, u.serial && `(${u.serial})`].filter(Boolean).join(' ') || 'without a name'
 }
 
-function nextStep(entry: ProgressEntry, missing: MissingItem[], submittable: boolean): string {
+function nextStep(entry: ProgressEntry, missing: MissingItem[], submittable: boolean, verdict: ReturnType<typeof entryVerdict>): string {
   const first = missing[0]?.text
+  const toFix = verdict.pilot[0]
+  const count = verdict.pilot.length
+  const reviewing = verdict.inReview.length
+    ? ` ${verdict.inReview.length === 1 ? 'One document waits' : `${verdict.inReview.length} documents wait`} for a scrutineer’s review; nothing for you to do there.`
+    : ''
   switch (entry.status) {
     case 'draft':
       if (!submittable) return `Complete the entry, then submit it. Next: ${missing.find(m => m.blocksSubmit)!.text}`
@@ -131,13 +148,15 @@ function nextStep(entry: ProgressEntry, missing: MissingItem[], submittable: boo
     case 'rejected':
       return `The organiser rejected the entry${entry.decisionReason ? ` with the reason “${entry.decisionReason}”` : ''}. Put it right, then submit it again.`
     case 'submitted':
+      if (toFix) return `Wait for the organiser to accept the entry. Meanwhile put right (${count === 1 ? '1 finding' : `${count} findings`}): ${toFix.fixHint}${reviewing}`
       return first
-        ? `Wait for the organiser to accept the entry. Meanwhile: ${first}`
-        : 'Wait for the organiser to accept the entry.'
+        ? `Wait for the organiser to accept the entry. Meanwhile: ${first}${reviewing}`
+        : `Wait for the organiser to accept the entry.${reviewing}`
     case 'accepted':
-      return first
-        ? `The entry is accepted. Before the event: ${first}`
-        : 'The entry is accepted and complete. Bring the glider to scrutineering.'
+      if (toFix) return `The entry is accepted, but ${count === 1 ? '1 finding keeps' : `${count} findings keep`} the glider from flying. Put right first: ${toFix.fixHint}${reviewing}`
+      if (first) return `The entry is accepted. Before the event: ${first}${reviewing}`
+      if (reviewing) return `The entry is accepted.${reviewing}`
+      return 'The entry is accepted and nothing blocks. Bring the glider to scrutineering.'
     case 'withdrawn':
       return 'This entry is withdrawn. Nothing more to do.'
   }

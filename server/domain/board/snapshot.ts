@@ -7,7 +7,7 @@ import type { BoardDay, BoardSnapshot, BoardTile, EntryDayReadiness } from '#sha
 import type { BoardDayRow, BoardTileRow } from '#shared/types/rows-board'
 import { compareCompIds } from '#shared/utils/comp-id-order'
 import { useDb } from '#server/utils/db'
-import type { Instant } from '#domain/read-model/day-inputs'
+import { actionsQuery, type BoardActionRow, type Instant, toTileAction } from '#domain/read-model/day-inputs'
 import { iso } from '#domain/read-model/values'
 
 // ---------------------------------------------------------------------------------------
@@ -131,6 +131,10 @@ export async function boardTileOf(competitionId: string, day: IsoDate, entryId: 
 export async function entryDayReadiness(competitionId: string, entryId: string, db: Knex = useDb()): Promise<EntryDayReadiness> {
   const row = await dayQuery(db, competitionId).whereNull('d.closed_at').first() as BoardDayJoinedRow | undefined
   const day = row ? toBoardDay(row) : null
-  const tile = day ? await boardTileOf(competitionId, day.day, entryId, db) : null
-  return { day, readiness: tile?.readiness ?? null, headline: tile?.headline ?? null, hold: tile?.hold ?? null, lastCheck: tile?.lastCheck ?? null }
+  const [tile, actionRows] = day
+    ? await Promise.all([boardTileOf(competitionId, day.day, entryId, db), actionsQuery(db, competitionId, day.day, [entryId]) as Promise<BoardActionRow[]>])
+    : [null, []]
+  // The director's actions that count today, so the entry page groups its findings as the board does.
+  const actions = actionRows.map(toTileAction)
+  return { day, readiness: tile?.readiness ?? null, headline: tile?.headline ?? null, hold: tile?.hold ?? null, lastCheck: tile?.lastCheck ?? null, actions }
 }

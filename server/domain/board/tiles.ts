@@ -5,7 +5,9 @@
 import type { Knex } from 'knex'
 import { applyWaivers, blockingFirst, evaluate, type Finding, type IsoDate } from '#shared/engine'
 import type { BoardCause, BoardTile } from '#shared/types/api-board'
-import { buildTile, diffFindings, sameTile, sortedJson, type TileAction, type TileBody, type TileCheck } from '#shared/utils/board-tile'
+import { buildTile, diffFindings, sameTile, sortedJson, type TileBody, type TileCheck } from '#shared/utils/board-tile'
+import { entryVerdict } from '#shared/utils/entry-verdict'
+import { toTileAction } from '#domain/read-model/day-inputs'
 import { initialsOf } from '#shared/utils/initials'
 import { READINESS_LABELS } from '#shared/constants/readiness'
 import { together } from '#server/utils/db'
@@ -31,20 +33,6 @@ export function toTileCheck(r: CheckRow): TileCheck {
   }
 }
 
-export function toTileAction(r: BoardActionRow): TileAction {
-  const common = { by: r.actor_name, at: iso(r.created_at), reason: r.reason }
-  if (r.kind === 'waiver') {
-    return {
-      kind: 'waiver',
-      day: r.day,
-      checkId: r.check_id!,
-      ...(r.unit_id !== null ? { unitId: r.unit_id } : {}),
-      ...(r.subject !== null ? { subject: r.subject } : {}),
-      ...common,
-    }
-  }
-  return { kind: r.kind, day: r.day!, ...common }
-}
 
 /**
  * The findings open on one entry on a day: the engine's (blocking first) less those its
@@ -201,8 +189,11 @@ export async function refreshTiles(
     }
     const newlyHeld = tile.readiness === 'held' && p.previous?.readiness !== 'held'
     if (newlyHeld && !firstOpening && !opts.quietHold && entrant) {
-      const open = applyWaivers(p.findings, (actionsBy.get(p.entryId) ?? []).map(toTileAction), day)
-      await enqueueHeldMail(trx, competitionId, entrant, day, tile, open)
+      const actions = (actionsBy.get(p.entryId) ?? []).map(toTileAction)
+      // Held only by documents waiting for the office's review: nothing for the pilot to do, so
+      // no "held" e-mail (the board and the entry page still say "in review").
+      const verdict = entryVerdict({ status: 'accepted', findings: p.findings, actions, day, gridCheck: tile.lastCheck ? { day, outcome: tile.lastCheck.outcome } : null })
+      if (verdict.actor !== 'office') await enqueueHeldMail(trx, competitionId, entrant, day, tile, applyWaivers(p.findings, actions, day))
     }
   }
   await audit(trx, audits)
@@ -249,3 +240,6 @@ async function enqueueHeldMail(trx: Knex.Transaction, competitionId: string, ent
     entryId: entrant.id,
   })
 }
+
+/** The director's action as a tile reads it (`server/domain/read-model/day-inputs.ts`). */
+export { toTileAction }

@@ -446,7 +446,7 @@ export async function loadDossier(access: EntryAccess, db: Knex = useDb()): Prom
     documents,
     igcFiles,
     payments,
-    progress: entryProgress({ entry: view, units: unitViews, rules, documents, igcFiles, paymentStatus: entry.payment_status }),
+    progress: entryProgress({ entry: view, units: unitViews, rules, documents, igcFiles, paymentStatus: entry.payment_status, findings: findings.findings }),
     findings: findings.findings,
     can: permissions(access, entry, window),
     roles: access.roles as Role[],
@@ -717,6 +717,7 @@ export async function myEntries(userId: string, db: Knex = useDb()): Promise<MyE
       documents: x.documents,
       igcFiles: x.igcFiles,
       paymentStatus: view.paymentStatus,
+      findings: findings.get(r.id) ?? [],
     })
     return {
       id: view.id,

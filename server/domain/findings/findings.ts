@@ -12,10 +12,16 @@ export interface EvaluatedEntry {
   findings: Finding[]
 }
 
+/** Findings counted as every screen counts them: the pilot's blocking ones, those in review, advisory. */
 export function countFindings(findings: readonly Finding[]): FindingCounts {
   let blocking = 0
-  for (const f of findings) if (f.severity === 'blocking') blocking++
-  return { blocking, advisory: findings.length - blocking }
+  let inReview = 0
+  for (const f of findings) {
+    if (f.severity !== 'blocking') continue
+    if (f.awaiting === 'review') inReview++
+    else blocking++
+  }
+  return { blocking, advisory: findings.length - blocking - inReview, inReview }
 }
 
 /**

@@ -6,6 +6,8 @@ import type { Knex } from 'knex'
 import type { IsoDate } from '#shared/engine'
 import type { BoardTileRow } from '#shared/types/rows-board'
 import type { GridCheckAnswerJson } from '#shared/types/rows-grid'
+import type { TileAction } from '#shared/utils/board-tile'
+import { iso } from './values'
 
 /** A timestamp as the driver reads a column (Date), or as JSON text when read inside a JSON value. */
 export type Instant = Date | string
@@ -110,4 +112,20 @@ export async function tileInputs(db: Knex, competitionId: string, day: IsoDate, 
   const { sql, bindings } = tileInputsStatement(db, competitionId, day, entryIds)
   const { rows: [row] } = await db.raw(sql, bindings) as { rows: TileInputs[] }
   return row!
+}
+
+/** A director's action row as the tiles and the engine read it (with who took it and when). */
+export function toTileAction(r: BoardActionRow): TileAction {
+  const common = { by: r.actor_name, at: iso(r.created_at), reason: r.reason }
+  if (r.kind === 'waiver') {
+    return {
+      kind: 'waiver',
+      day: r.day,
+      checkId: r.check_id!,
+      ...(r.unit_id !== null ? { unitId: r.unit_id } : {}),
+      ...(r.subject !== null ? { subject: r.subject } : {}),
+      ...common,
+    }
+  }
+  return { kind: r.kind, day: r.day!, ...common }
 }

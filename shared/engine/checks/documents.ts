@@ -34,7 +34,7 @@ export const documentsRequired: Check = {
         out.push({ ...base, reason: `The ${label.toLowerCase()} document was rejected by a scrutineer.`, fixHint: 'Read the scrutineer’s reason on the document and upload a corrected one.' })
       }
       else if (best.status === 'pending') {
-        out.push({ ...base, reason: `The ${label.toLowerCase()} document is waiting for a scrutineer’s review.`, fixHint: 'Nothing to do unless a scrutineer asks; it counts once accepted.' })
+        out.push({ ...base, awaiting: 'review', reason: `The ${label.toLowerCase()} document is waiting for a scrutineer’s review.`, fixHint: 'Nothing for the pilot to do: a scrutineer reviews it, and it counts once accepted.' })
       }
       else if (!best.expiresOn) {
         out.push({ ...base, reason: `The ${label.toLowerCase()} document has no expiry date, so it cannot be shown valid through ${last}.`, fixHint: 'Enter the date the document is valid until.' })

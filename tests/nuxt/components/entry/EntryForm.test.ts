@@ -20,7 +20,7 @@ const initial: EntryView = {
   status: 'draft', decisionReason: null, pilotName: 'Erin Entrant', pilotNationality: 'GB', pilotLicenceNumber: 'L-1',
   pilotPhone: '+44 1', emergencyContact: 'Pat', copilotName: 'Cleo', crewNames: ['Ray'], gliderType: 'Kestrel 15',
   registration: 'G-KTST', compId: 'KT', spanM: 15, mtomKg: 525, emptyMassKg: 255, cgForwardLimitM: null, cgAftLimitM: null,
-  datumDescription: 'Root leading edge', motorGlider: 'none', pilotMassKg: null, copilotMassKg: null, pilotArmM: null, copilotArmM: null, ballastArmM: null,
+  datumDescription: 'Root leading edge', motorGlider: 'none', changedAfterAcceptanceAt: null, pilotMassKg: null, copilotMassKg: null, pilotArmM: null, copilotArmM: null, ballastArmM: null,
   paymentStatus: 'unpaid', submittedAt: null, decidedAt: null, withdrawnAt: null, updatedAt: '',
 }
 

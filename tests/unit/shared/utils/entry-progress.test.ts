@@ -34,7 +34,7 @@ function progress(over: Partial<ProgressInput> = {}) {
 
 describe('entryProgress', () => {
   it('has nothing missing for a complete, paid draft and says to submit it', () => {
-    expect(progress()).toEqual({ missing: [], submittable: true, nextStep: 'Submit the entry so the organiser can review it.' })
+    expect(progress()).toEqual({ missing: [], submittable: true, nextStep: 'Submit the entry so the organiser can review it.', open: { pilot: 0, inReview: 0, actor: null } })
   })
 
   it('lists empty required fields and missing units as blocking, in form order', () => {
@@ -82,7 +82,15 @@ describe('entryProgress', () => {
     expect(progress({ entry: { ...complete, status: 'submitted' } }).nextStep).toBe('Wait for the organiser to accept the entry.')
     expect(progress({ entry: { ...complete, status: 'rejected', decisionReason: 'Wrong class.' } }).nextStep)
       .toBe('The organiser rejected the entry with the reason “Wrong class.”. Put it right, then submit it again.')
-    expect(progress({ entry: { ...complete, status: 'accepted' } }).nextStep).toBe('The entry is accepted and complete. Bring the glider to scrutineering.')
+    expect(progress({ entry: { ...complete, status: 'accepted' } }).nextStep).toBe('The entry is accepted and nothing blocks. Bring the glider to scrutineering.')
+    // A blocking finding is the pilot's next step, never "complete"; a document in review is not theirs.
+    const k7 = { checkId: 'firmware.valid-through-contest', severity: 'blocking' as const, reason: 'The firmware expires 2027-07-15.', fixHint: 'Update the firmware, then enter the new version and expiry date.' }
+    const inReview = { checkId: 'documents.required', severity: 'blocking' as const, awaiting: 'review' as const, reason: 'The insurance document is waiting for a scrutineer’s review.', fixHint: 'Nothing for the pilot to do.' }
+    expect(progress({ entry: { ...complete, status: 'accepted' }, findings: [k7] }).nextStep).toBe('The entry is accepted, but 1 finding keeps the glider from flying. Put right first: Update the firmware, then enter the new version and expiry date.')
+    expect(progress({ entry: { ...complete, status: 'accepted' }, findings: [inReview] })).toMatchObject({
+      nextStep: 'The entry is accepted. One document waits for a scrutineer’s review; nothing for you to do there.',
+      open: { pilot: 0, inReview: 1, actor: 'office' },
+    })
     expect(progress({ entry: { ...complete, status: 'accepted' }, paymentStatus: 'unpaid' }).nextStep).toBe('The entry is accepted. Before the event: Pay the entry fee.')
     const withdrawn = progress({ entry: { ...complete, status: 'withdrawn' }, paymentStatus: 'unpaid' })
     expect(withdrawn).toMatchObject({ missing: [], nextStep: 'This entry is withdrawn. Nothing more to do.' })

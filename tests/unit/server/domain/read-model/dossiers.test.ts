@@ -121,7 +121,9 @@ describe('the engine over mapped rows', () => {
       { checkId: 'a', severity: 'blocking', reason: '', fixHint: '' },
       { checkId: 'b', severity: 'advisory', reason: '', fixHint: '' },
       { checkId: 'c', severity: 'blocking', reason: '', fixHint: '' },
-    ])).toEqual({ blocking: 2, advisory: 1 })
+    ])).toEqual({ blocking: 2, advisory: 1, inReview: 0 })
+    // A document waiting for review is counted apart: it is the office's to act on, not the pilot's.
+    expect(countFindings([{ checkId: 'documents.required', severity: 'blocking', awaiting: 'review', reason: '', fixHint: '' }])).toEqual({ blocking: 0, advisory: 0, inReview: 1 })
   })
 })
 
