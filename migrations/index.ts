@@ -26,6 +26,7 @@ import * as m20261205000300 from './20261205000300_socket_attachments'
 import * as m20261205000400 from './20261205000400_board_tile_order'
 import * as m20261206000100 from './20261206000100_scrutineering_facts'
 import * as m20261206000200 from './20261206000200_changed_after_acceptance'
+import * as m20261206000300 from './20261206000300_entry_messages'
 
 type Migration = Knex.Migration
 
@@ -55,6 +56,7 @@ const migrations: Record<string, Migration> = {
   '20261205000400_board_tile_order': m20261205000400,
   '20261206000100_scrutineering_facts': m20261206000100,
   '20261206000200_changed_after_acceptance': m20261206000200,
+  '20261206000300_entry_messages': m20261206000300,
 }
 
 export const migrationSource: Knex.MigrationSource<string> = {

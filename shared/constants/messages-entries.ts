@@ -6,6 +6,7 @@ export const ENTRIES_MESSAGES = {
   entryLockedForEntrant: (status: string) =>
     `This entry is ${status}: only the organiser can change it now.`,
   organiserOrEntrantOnly: 'Only the entry’s entrant or the organiser can change it.',
+  entryMessageWho: 'Only the entry’s entrant and the organisers write here; scrutineers and the director read along.',
   officeOnlyAfterAcceptance: (fields: string) =>
     `The entry is accepted: only the office changes its ${fields} now. Ask them with a message from the entry page.`,
   contestOverForEntrant: (lastDay: string) =>

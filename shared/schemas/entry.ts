@@ -171,3 +171,11 @@ export const firmwareSuggestQuerySchema = z.object({
   family: z.string({ error: 'Give the unit family or model.' }).trim().min(1, { error: 'Give the unit family or model.' }).max(80),
   version: z.string({ error: 'Give the firmware version.' }).trim().min(1, { error: 'Give the firmware version.' }).max(40),
 })
+
+/** A message between the entrant and the office about the entry. */
+export const entryMessageSchema = z.object({
+  body: z.string({ error: 'Write the message.' }).trim()
+    .min(3, { error: 'Write the message.' })
+    .max(2000, { error: 'Keep the message under 2,000 characters.' }),
+}, { error: 'Send the message as a JSON object.' }).strict()
+export type EntryMessageBody = z.infer<typeof entryMessageSchema>

@@ -155,7 +155,7 @@ export interface DirectorActionResult {
   tile: BoardTile | null
 }
 
-export type TimelineKind = 'grid-check' | 'findings' | 'hold' | 'release' | 'waiver' | 'day'
+export type TimelineKind = 'grid-check' | 'findings' | 'hold' | 'release' | 'waiver' | 'day' | 'message'
 
 export interface TimelineItem {
   id: string

@@ -148,3 +148,12 @@ export interface FirmwareSuggestion {
   unitFamily: string | null
   version: string | null
 }
+
+/** A message between the entrant and the office about an entry. */
+export interface EntryMessage {
+  id: string
+  fromOffice: boolean
+  authorName: string
+  body: string
+  at: string
+}

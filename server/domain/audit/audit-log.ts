@@ -116,6 +116,7 @@ export function timelineSummary(kind: TimelineKind, d: Record<string, unknown>):
     case 'release': return `Released by the director: ${String(d.reason ?? '')}`
     case 'waiver': return `Waived ${String(d.checkId ?? '')} ${d.scope === 'competition' ? 'for the whole competition' : `for ${String(d.day ?? 'the day')}`}: ${String(d.reason ?? '')}`
     case 'day': return String(d.day ?? '')
+    case 'message': return d.fromOffice ? 'The office answered' : 'Asked the office'
   }
 }
 
@@ -133,10 +134,30 @@ export function toTimelineItem(r: AuditJoinedRow): TimelineItem {
   }
 }
 
-/** Every grid check, finding change, hold, release and waiver of one entry, newest first. */
+/**
+ * Every grid check, finding change, hold, release and waiver of one entry, and the messages
+ * between its entrant and the office, newest first.
+ */
 export async function entryTimeline(competitionId: string, entry: { id: string, comp_id: string }, db: Knex = useDb()): Promise<EntryTimeline> {
-  const rows = await forEntry(auditQuery(db, competitionId), entry.id)
-    .whereIn('a.action', Object.keys(TIMELINE_ACTIONS))
-    .orderBy('a.id', 'desc') as AuditJoinedRow[]
-  return { entryId: entry.id, compId: entry.comp_id, items: rows.map(toTimelineItem) }
+  const [rows, messages] = await Promise.all([
+    forEntry(auditQuery(db, competitionId), entry.id)
+      .whereIn('a.action', Object.keys(TIMELINE_ACTIONS))
+      .orderBy('a.id', 'desc') as Promise<AuditJoinedRow[]>,
+    db('entry_messages as m').join('users as u', 'u.id', 'm.author_id').where('m.entry_id', entry.id)
+      .select('m.id', 'm.from_office', 'm.body', 'm.created_at', 'm.author_id', 'u.name as author_name') as Promise<{ id: string, from_office: boolean, body: string, created_at: Date, author_id: string, author_name: string }[]>,
+  ])
+  const items: TimelineItem[] = [
+    ...rows.map(toTimelineItem),
+    ...messages.map(m => ({
+      id: `message:${m.id}`,
+      kind: 'message' as const,
+      at: iso(m.created_at)!,
+      day: null,
+      actor: { id: m.author_id, name: m.author_name },
+      summary: `${m.from_office ? 'The office answered' : 'Asked the office'}: ${m.body}`,
+      details: { fromOffice: m.from_office },
+    })),
+  ]
+  items.sort((a, b) => (a.at < b.at ? 1 : a.at > b.at ? -1 : 0))
+  return { entryId: entry.id, compId: entry.comp_id, items }
 }

@@ -115,3 +115,35 @@ describe('a document waiting for review', () => {
     }
   })
 })
+
+describe('asking the office', () => {
+  it('stores the entrant’s message, e-mails the organisers with a link to answer, and e-mails the answer back', async () => {
+    const id = await gridEntry(w)
+    const ask = await w.entrant.client.post(`${path(id)}/messages`, { body: 'Please change our competition ID to KT2: KT is painted on another glider in our club.' })
+    expect(ask.status).toBe(201)
+    expect(ask.body.message).toMatchObject({ fromOffice: false, authorName: 'Erin Entrant' })
+    const toOffice = await testDb()('mail_outbox').where({ entry_id: id, template: 'entry-message' })
+    expect(toOffice.map(m => m.to_address)).toEqual([w.organiser.email])
+    expect(toOffice[0].text_body).toContain(`/competitions/${w.competitionId}/entries/${id}`)
+    expect(toOffice[0].text_body).toContain('Please change our competition ID to KT2')
+
+    const answer = await w.organiser.client.post(`${path(id)}/messages`, { body: 'Done: KT2 is yours.' })
+    expect(answer.status).toBe(201)
+    expect(answer.body.message.fromOffice).toBe(true)
+    const toEntrant = await testDb()('mail_outbox').where({ entry_id: id, template: 'entry-message-answer' })
+    expect(toEntrant.map(m => m.to_address)).toEqual([w.entrant.email])
+
+    // Scrutineers read along; only the entrant and the organisers write; other entrants see nothing.
+    const list = await w.scrutineer.client.get(`${path(id)}/messages`)
+    expect(list.body.messages.map((m: any) => m.fromOffice)).toEqual([false, true])
+    expect((await w.scrutineer.client.post(`${path(id)}/messages`, { body: 'A scrutineer note' })).status).toBe(403)
+    expect((await w.otherEntrant.client.get(`${path(id)}/messages`)).status).toBe(404)
+    const long = await w.entrant.client.post(`${path(id)}/messages`, { body: 'x'.repeat(2001) })
+    expect(long.status).toBe(400)
+    expect(long.body.data.fieldErrors.body).toEqual(['Keep the message under 2,000 characters.'])
+    // The thread is in the entry's timeline, and the audit log holds only ids.
+    const timeline = await w.entrant.client.get(`${path(id)}/timeline`)
+    expect(timeline.body.items.filter((i: any) => i.kind === 'message').map((i: any) => i.summary)).toEqual(['The office answered: Done: KT2 is yours.', expect.stringContaining('Asked the office: Please change')])
+    expect(JSON.stringify((await auditRows(id, 'entry.message')).map(r => r.details))).not.toContain('KT2')
+  })
+})
