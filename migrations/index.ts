@@ -25,6 +25,7 @@ import * as m20261205000200 from './20261205000200_director_actions'
 import * as m20261205000300 from './20261205000300_socket_attachments'
 import * as m20261205000400 from './20261205000400_board_tile_order'
 import * as m20261206000100 from './20261206000100_scrutineering_facts'
+import * as m20261207000300 from './20261207000300_waiver_withdrawal'
 
 type Migration = Knex.Migration
 
@@ -53,6 +54,7 @@ const migrations: Record<string, Migration> = {
   '20261205000300_socket_attachments': m20261205000300,
   '20261205000400_board_tile_order': m20261205000400,
   '20261206000100_scrutineering_facts': m20261206000100,
+  '20261207000300_waiver_withdrawal': m20261207000300,
 }
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -191,3 +191,84 @@ export function reminderMail(input: {
     }),
   }
 }
+
+/** A date as the e-mails write it: 12 July 2027 (a YYYY-MM-DD date, or null). */
+export function mailDay(isoDate: string | null): string | null {
+  return formatDay(isoDate)
+}
+
+/**
+ * The e-mail to an entrant when the director waives one finding of their entry, or withdraws
+ * that waiver: the check in words with its rule, the finding as it read, for which day or the
+ * whole competition, who decided and why, and the entry page where they see it.
+ */
+export function waiverMail(input: {
+  event: 'granted' | 'withdrawn'
+  entrantName: string
+  compId: string
+  competitionName: string
+  competitionId: string
+  checkId: string
+  /** The check's rule in words. */
+  checkRule: string
+  /** The finding as it read when waived. */
+  finding: string | null
+  scope: 'day' | 'competition'
+  day: string | null
+  /** The last contest day, which a waiver of the whole competition runs to. */
+  lastContestDay: string | null
+  /** The director who granted the waiver, and their reason. */
+  grantedBy: string
+  grantReason: string
+  /** For a withdrawal: who withdrew it and why. */
+  withdrawnBy?: string
+  withdrawalReason?: string
+  /** After a withdrawal: whether the finding holds the glider again on the open day. */
+  heldAgain?: boolean
+  base: string
+  entryUrl: string
+}): RenderedMail & { subject: string } {
+  const scope = input.scope === 'day'
+    ? `for ${formatDay(input.day) ?? 'the day'} only`
+    : `for the whole competition${input.lastContestDay ? ` (to ${formatDay(input.lastContestDay)})` : ''}`
+  const what = `${input.checkRule}${input.finding ? ` What the check found: ${input.finding}` : ''}`
+  if (input.event === 'granted') {
+    return {
+      subject: `A finding on ${input.compId} is waived — ${input.competitionName}`,
+      ...renderMail({
+        greeting: `Hello ${input.entrantName},`,
+        paragraphs: [
+          `the contest director ${input.grantedBy} waived one finding on your entry ${input.compId} at ${input.competitionName}, ${scope}. It does not hold your glider while the waiver stands.`,
+          `The director’s reason: ${input.grantReason}`,
+          'The waived check:',
+        ],
+        list: [{ text: what, link: ruleLink(input.base, input.competitionId, input.checkId) }],
+        closing: [
+          input.scope === 'day'
+            ? 'The finding counts again on the next day unless it is put right: fix it when you can.'
+            : 'The director may withdraw a waiver; you will get an e-mail if they do. Fix the finding when you can.',
+        ],
+        action: { label: 'See the waiver on your entry', url: input.entryUrl },
+      }),
+    }
+  }
+  return {
+    subject: `A waiver on ${input.compId} is withdrawn — ${input.competitionName}`,
+    ...renderMail({
+      greeting: `Hello ${input.entrantName},`,
+      paragraphs: [
+        `the contest director${input.withdrawnBy ? ` ${input.withdrawnBy}` : ''} withdrew the waiver granted ${scope} on your entry ${input.compId} at ${input.competitionName}. The finding counts again from now.`,
+        `The reason for withdrawing it: ${input.withdrawalReason ?? ''}`,
+        `It had been granted by ${input.grantedBy}: ${input.grantReason}`,
+        'The check that counts again:',
+      ],
+      list: [{ text: what, link: ruleLink(input.base, input.competitionId, input.checkId) }],
+      closing: [
+        input.heldAgain
+          ? 'Your glider is held on today’s board until the finding is put right or the director decides otherwise. Put it right, then talk to the scrutineers.'
+          : 'Put the finding right before your glider is checked on the grid.',
+      ],
+      action: { label: 'Open your entry', url: input.entryUrl },
+    }),
+  }
+}

@@ -3,7 +3,7 @@
 // with the hardware caution in full, the one shared text.
 import { describe, expect, it } from 'vitest'
 import { HARDWARE_CAUTION, type Finding } from '#shared/engine'
-import { findingItems, readinessMail, renderMail, ruleLink } from '#domain/mail/templates'
+import { findingItems, readinessMail, renderMail, ruleLink, waiverMail } from '#domain/mail/templates'
 
 const BASE = 'https://gridmark.example'
 const expired: Finding = { checkId: 'firmware.valid-through-contest', severity: 'blocking', reason: 'The firmware expires 2027-07-18.', fixHint: 'Update it.', caution: HARDWARE_CAUTION, unitId: 'u1' }
@@ -41,5 +41,47 @@ describe('readinessMail (hold and release)', () => {
     expect(mail.text).toContain(HARDWARE_CAUTION)
     // The HTML part escapes the caution's apostrophes like any other text.
     expect(mail.html).toContain('Follow the manufacturer’s instructions.')
+  })
+})
+
+// Every e-mail ends with the page where its reader acts, in both parts, and says only what
+// fits its case.
+const ENTRY = `${BASE}/competitions/c-1/entries/e-1`
+const withLink = (mail: { text: string, html: string }, label: string, url: string) => {
+  expect(mail.text).toContain(`${label}:\n${url}`)
+  expect(mail.html).toContain(`href="${url}"`)
+}
+
+describe('waiverMail', () => {
+  const granted = {
+    event: 'granted' as const, entrantName: 'Ann', compId: 'K7', competitionName: 'Moor Open', competitionId: 'c-1',
+    checkId: 'entry.paid', checkRule: 'The entry fee is paid before the first contest day.', finding: 'The entry fee is not paid yet.',
+    scope: 'day' as const, day: '2027-07-12', lastContestDay: '2027-07-20', grantedBy: 'Dana Director', grantReason: 'Paid in cash', base: BASE, entryUrl: ENTRY,
+  }
+  it('on a grant: the check in words with its rule, the day, who and why, and the entry page', () => {
+    const mail = waiverMail(granted)
+    expect(mail.subject).toBe('A finding on K7 is waived — Moor Open')
+    expect(mail.text).toContain('Dana Director waived one finding on your entry K7 at Moor Open, for 12 July 2027 only.')
+    expect(mail.text).toContain('The director’s reason: Paid in cash')
+    expect(mail.text).toContain('  - The entry fee is paid before the first contest day. What the check found: The entry fee is not paid yet.\n    Rule: entry.paid\n    https://gridmark.example/competitions/c-1/checks#entry.paid')
+    expect(mail.text).toContain('counts again on the next day')
+    withLink(mail, 'See the waiver on your entry', ENTRY)
+  })
+
+  it('for the whole competition: runs to the last contest day', () => {
+    const mail = waiverMail({ ...granted, scope: 'competition', day: null })
+    expect(mail.text).toContain('for the whole competition (to 20 July 2027)')
+    expect(mail.text).toContain('may withdraw a waiver')
+  })
+
+  it('on a withdrawal: who withdrew it and why, what counts again, held again or not', () => {
+    const mail = waiverMail({ ...granted, event: 'withdrawn', withdrawnBy: 'Dana Director', withdrawalReason: 'No cash was received', heldAgain: true })
+    expect(mail.subject).toBe('A waiver on K7 is withdrawn — Moor Open')
+    expect(mail.text).toContain('the contest director Dana Director withdrew the waiver granted for 12 July 2027 only on your entry K7 at Moor Open.')
+    expect(mail.text).toContain('The reason for withdrawing it: No cash was received')
+    expect(mail.text).toContain('It had been granted by Dana Director: Paid in cash')
+    expect(mail.text).toContain('held on today’s board')
+    expect(waiverMail({ ...granted, event: 'withdrawn', withdrawnBy: 'Dana Director', withdrawalReason: 'x', heldAgain: false }).text).not.toContain('held on today’s board')
+    withLink(mail, 'Open your entry', ENTRY)
   })
 })
