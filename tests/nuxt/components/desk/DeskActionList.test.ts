@@ -1,17 +1,18 @@
 import { afterEach, describe, expect, it, vi } from 'vitest'
 import { mountSuspended, registerEndpoint } from '@nuxt/test-utils/runtime'
 import { readBody } from 'h3'
+import type { DirectorActionRecord } from '#shared/types/api-board'
 import DeskActionList from '~/components/desk/DeskActionList.vue'
 
 const C = '22222222-2222-4222-8222-222222222222'
 const E = '33333333-3333-4333-8333-333333333333'
 const W = '44444444-4444-4444-8444-444444444444'
 const actor = { id: 'u', name: 'Dana Director' }
-const waiver = (over: Record<string, unknown> = {}) => ({
+const waiver = (over: Partial<DirectorActionRecord> = {}): DirectorActionRecord => ({
   id: W, kind: 'waiver', day: '2026-12-02', scope: 'day', checkId: 'entry.paid', unitId: null, subject: 'payment', reason: 'Paid in cash',
   finding: { severity: 'blocking', reason: 'The entry fee is not paid yet.' }, actor, at: '2026-12-02T10:00:00.000Z', withdrawal: null, ...over,
 })
-const hold = { id: 'h1', kind: 'hold', day: '2026-12-02', scope: null, checkId: null, unitId: null, subject: null, reason: 'Canopy', finding: null, actor, at: '2026-12-02T09:00:00.000Z', withdrawal: null }
+const hold: DirectorActionRecord = { id: 'h1', kind: 'hold', day: '2026-12-02', scope: null, checkId: null, unitId: null, subject: null, reason: 'Canopy', finding: null, actor, at: '2026-12-02T09:00:00.000Z', withdrawal: null }
 
 const cleanups: (() => void)[] = []
 afterEach(() => {
