@@ -48,6 +48,20 @@ describe('DeskActionList', () => {
     expect(sent).toEqual({ reason: 'No cash' })
   })
 
+  it('refuses a reason over the limit in words, without cutting it or sending it', async () => {
+    let calls = 0
+    cleanups.push(registerEndpoint(`/api/competitions/${C}/entries/${E}/waivers/${W}/withdraw`, { method: 'POST', handler: () => { calls++; return { action: waiver(), tile: null } } }))
+    const list = await mountSuspended(DeskActionList, { props: { actions: [waiver()], timeZone: 'UTC', canWithdraw: true, competitionId: C, entryId: E }, attachTo: document.body })
+    cleanups.push(() => list.unmount())
+    await list.get('[data-testid="desk-withdraw"]').trigger('click')
+    const long = 'x'.repeat(501)
+    await list.get('[data-testid="desk-withdraw-form"] textarea').setValue(long)
+    await list.get('[data-testid="desk-withdraw-form"]').trigger('submit')
+    await vi.waitFor(() => expect(list.text()).toContain('Keep the reason under 500 characters.'))
+    expect((list.get('[data-testid="desk-withdraw-form"] textarea').element as HTMLTextAreaElement).value).toBe(long)
+    expect(calls).toBe(0)
+  })
+
   it('marks a withdrawn waiver: by whom, why, and that it lifts nothing', async () => {
     const list = await mountSuspended(DeskActionList, {
       props: { actions: [waiver({ withdrawal: { by: actor, at: '2026-12-02T11:00:00.000Z', reason: 'No cash' } })], timeZone: 'UTC', canWithdraw: true, competitionId: C, entryId: E },
