@@ -27,6 +27,7 @@ import * as m20261205000400 from './20261205000400_board_tile_order'
 import * as m20261206000100 from './20261206000100_scrutineering_facts'
 import * as m20261206000200 from './20261206000200_changed_after_acceptance'
 import * as m20261206000300 from './20261206000300_entry_messages'
+import * as m20261207000300 from './20261207000300_waiver_withdrawal'
 
 type Migration = Knex.Migration
 
@@ -57,6 +58,7 @@ const migrations: Record<string, Migration> = {
   '20261206000100_scrutineering_facts': m20261206000100,
   '20261206000200_changed_after_acceptance': m20261206000200,
   '20261206000300_entry_messages': m20261206000300,
+  '20261207000300_waiver_withdrawal': m20261207000300,
 }
 
 export const migrationSource: Knex.MigrationSource<string> = {

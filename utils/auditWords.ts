@@ -10,6 +10,7 @@ export const AUDIT_ACTION_WORDS: Record<string, string> = {
   'director.hold': 'Held',
   'director.release': 'Released',
   'director.waiver': 'Finding waived',
+  'director.waiver-withdrawn': 'Waiver withdrawn',
   'day.opened': 'Day opened',
   'day.closed': 'Day closed',
   'day.reopened': 'Day opened again',
@@ -75,7 +76,8 @@ export function auditDescription(item: Pick<AuditLogItem, 'action' | 'details'>)
     case 'director.hold':
     case 'director.release':
       return [day, reason].filter(Boolean).join(': ')
-    case 'director.waiver': {
+    case 'director.waiver':
+    case 'director.waiver-withdrawn': {
       const scope = d.scope === 'competition' ? 'for the whole competition' : `for ${day ?? 'the day'}`
       return `${text(d.checkId) ?? 'A finding'} ${scope}${reason ? `: ${reason}` : ''}`
     }

@@ -13,6 +13,9 @@ export const BOARD_MESSAGES = {
   notHeld: 'That glider is not held by the director today, so there is nothing to release. A blocking finding needs a waiver instead.',
   alreadyHeld: 'The director holds that glider already today.',
   findingNotFound: 'That finding is not open on this entry (it may have been fixed or waived already). Reload the entry.',
+  waiverNotFound: 'That waiver is not on this entry. Reload the entry.',
+  notAWaiver: 'Only a waiver can be withdrawn; a hold is ended by a release.',
+  waiverAlreadyWithdrawn: (by: string, at: string) => `That waiver was withdrawn already, by ${by} on ${at}.`,
   boardJoinRefused: 'You are not part of that competition’s board.',
   socketSignIn: 'Sign in to see the live board.',
 } as const

@@ -50,6 +50,14 @@ export const waiverBodySchema = z.object({
 }, { error: 'Send the waiver as an object with a finding and a reason.' }).strict()
 export type WaiverBody = z.infer<typeof waiverBodySchema>
 
+/** POST …/entries/:entryId/waivers/:actionId/withdraw — the waiver counts no more; the reason is kept and told. */
+export const waiverWithdrawBodySchema = z.object({
+  reason,
+}, { error: 'Send the withdrawal as an object with a reason.' }).strict()
+export type WaiverWithdrawBody = z.infer<typeof waiverWithdrawBodySchema>
+
+export const waiverParamsSchema = competitionParamsSchema.extend({ entryId: uuid, actionId: uuid })
+
 export const AUDIT_PAGE_SIZE = 100
 
 /** GET …/audit — filters combine; `before` pages back by id. */

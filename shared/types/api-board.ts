@@ -130,6 +130,26 @@ export interface DirectorActionRecord {
   finding: { severity: Finding['severity'], reason: string } | null
   actor: { id: string, name: string }
   at: string
+  /** A withdrawn waiver lifts nothing any more; who withdrew it, when and why. */
+  withdrawal: { by: { id: string, name: string }, at: string, reason: string } | null
+}
+
+/** GET …/entries/:entryId/waivers: the entry's waivers, as its entrant and the staff read them. */
+export interface EntryWaiver {
+  id: string
+  scope: WaiverScope
+  /** The day of a day's waiver; null for the whole competition. */
+  day: IsoDate | null
+  checkId: string
+  /** The check in words (its rule on the rulebook), and the finding as it read when waived. */
+  checkTitle: string
+  finding: { severity: Finding['severity'], reason: string } | null
+  reason: string
+  by: string
+  at: string
+  /** It counts until the end of this day (a day's waiver) or the last contest day. */
+  until: IsoDate | null
+  withdrawal: { by: string, at: string, reason: string } | null
 }
 
 export interface BoardFinding extends Finding {

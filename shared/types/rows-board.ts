@@ -47,4 +47,7 @@ export interface DirectorActionRow {
   finding: { severity: Finding['severity'], reason: string } | null
   actor_id: string
   created_at: Date
+  withdrawn_at: Date | null
+  withdrawn_by: string | null
+  withdrawal_reason: string | null
 }

@@ -1,7 +1,7 @@
 // The director's desk through the browser: the director opens today on the contest days page;
 // on one entry's desk they hold it (the badge turns Held, the timeline shows the hold), release
-// it, and waive a blocking finding for the day; the entrant is e-mailed the hold and the
-// release; the audit log filtered by that entry lists all three; a scrutineer reads the desk
+// it, and waive a blocking finding for the day, then withdraw that waiver; the entrant is
+// e-mailed the hold and the release and sees the waiver on their entry; the audit log filtered by that entry lists all three; a scrutineer reads the desk
 // without the director's actions. Screenshots: days.png, desk-desk.png, desk-phone.png, audit.png.
 import type { Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
@@ -251,6 +251,11 @@ describe('the director’s desk', () => {
     const kinds = await page.getByTestId('timeline-item').evaluateAll(rows => rows.map(r => r.getAttribute('data-kind')))
     expect(kinds[0]).toBe('waiver')
     expect(kinds).toEqual(expect.arrayContaining(['hold', 'release', 'grid-check', 'findings']))
+    // The waiver itself, in words: the check, the day, by whom and why.
+    const waiver = page.locator('[data-testid="entry-waiver"][data-state="active"]')
+    expect(await waiver.textContent()).toContain('The entry fee is paid before the first contest day.')
+    expect(await waiver.textContent()).toContain('Paid in cash at the office this morning')
+    expect(await waiver.textContent()).toContain('By Dana Director')
     expect(await page.locator('[data-testid="timeline-item"][data-kind="hold"]').textContent()).toContain('Canopy crack seen at the wing run')
     // The desk is for staff: no way there from the entrant's page.
     expect(await page.getByTestId('dossier-desk-link').count()).toBe(0)
@@ -265,6 +270,7 @@ describe('the director’s desk', () => {
     expect(await page.getByTestId('desk-hold-open').count()).toBe(0)
     expect(await page.getByTestId('desk-release-open').count()).toBe(0)
     expect(await page.getByTestId('desk-waive').count()).toBe(0)
+    expect(await page.getByTestId('desk-withdraw').count()).toBe(0)
     expect(await page.locator('[data-testid="timeline-item"][data-kind="waiver"]').count()).toBe(1)
     // The other entry is on the board too, unchecked.
     await gotoApp(page, baseUrl, `/competitions/${w.competitionId}/board/${otherId}`)
@@ -276,6 +282,33 @@ describe('the director’s desk', () => {
     expect(held.status).toBe(201)
     await badge(page, 'held').waitFor({ timeout: 30_000 })
     expect(await page.getByTestId('desk-hold-info').textContent()).toContain('Wing tape missing')
+  })
+
+  it('the director withdraws the waiver with a reason: held again; the entrant sees it withdrawn', async () => {
+    const page = await signedIn(w.director.email, deskPath())
+    await page.locator('[data-testid="desk"][data-can-direct="true"]').waitFor()
+    await badge(page, 'caution').waitFor()
+    const action = page.locator('[data-testid="desk-action"][data-kind="waiver"]')
+    await action.getByTestId('desk-withdraw').click()
+    const form = action.getByTestId('desk-withdraw-form')
+    await form.getByRole('button', { name: 'Withdraw the waiver' }).click()
+    await form.locator('.field-error').first().waitFor()
+    expect(await form.locator('.field-error').first().textContent()).toContain('Give a reason')
+    await form.getByLabel('Why is it withdrawn?').fill('The office found no cash payment')
+    await form.getByRole('button', { name: 'Withdraw the waiver' }).click()
+    await action.getByTestId('desk-action-withdrawn').waitFor()
+    expect(await action.getByTestId('desk-action-withdrawn').textContent()).toContain('The office found no cash payment')
+    await badge(page, 'held').waitFor()
+    expect(await page.locator('[data-testid="desk-finding"][data-check-id="entry.paid"]').getAttribute('data-waived')).toBe('false')
+    expect(await page.getByTestId('desk-withdraw').count()).toBe(0)
+
+    const entrant = await signedIn(w.entrant.email, `/competitions/${w.competitionId}/entries/${entryId}`, 'phone')
+    const gone = entrant.locator('[data-testid="entry-waiver"][data-state="withdrawn"]')
+    await gone.waitFor()
+    expect(await gone.textContent()).toContain('Withdrawn by Dana Director')
+    expect(await gone.textContent()).toContain('The office found no cash payment')
+    expect(await entrant.getByTestId('entry-waivers-none-active').count()).toBe(1)
+    expect(await noSideScroll(entrant)).toBe(true)
   })
 
   it('the director closes the day after confirming; the desk then offers no action', async () => {

@@ -88,6 +88,7 @@ export const TIMELINE_ACTIONS: Record<string, TimelineKind> = {
   'director.hold': 'hold',
   'director.release': 'release',
   'director.waiver': 'waiver',
+  'director.waiver-withdrawn': 'waiver',
 }
 
 interface Change { checkId: string, severity: string, reason?: string }
@@ -114,7 +115,9 @@ export function timelineSummary(kind: TimelineKind, d: Record<string, unknown>):
     }
     case 'hold': return `Held by the director: ${String(d.reason ?? '')}`
     case 'release': return `Released by the director: ${String(d.reason ?? '')}`
-    case 'waiver': return `Waived ${String(d.checkId ?? '')} ${d.scope === 'competition' ? 'for the whole competition' : `for ${String(d.day ?? 'the day')}`}: ${String(d.reason ?? '')}`
+    case 'waiver': return d.withdrawn
+      ? `Waiver of ${String(d.checkId ?? '')} withdrawn: ${String(d.reason ?? '')}`
+      : `Waived ${String(d.checkId ?? '')} ${d.scope === 'competition' ? 'for the whole competition' : `for ${String(d.day ?? 'the day')}`}: ${String(d.reason ?? '')}`
     case 'day': return String(d.day ?? '')
     case 'message': return d.fromOffice ? 'The office answered' : 'Asked the office'
   }

@@ -1,19 +1,20 @@
 // The contest director's desk: hold a glider (with a reason), release it (with a reason), and
 // waive one finding for the day or for the whole competition (with a reason). Each action is
 // a row of `director_actions` and a row of the audit log, changes the entry's tile in the same
-// transaction (pushed to the boards once committed), and a hold or release is e-mailed to the
-// entrant. The engine's `readiness` reads these actions: a hold wins over everything, a
+// transaction (pushed to the boards once committed), and is e-mailed to the entrant. A waiver
+// can be withdrawn (with a reason): its row is kept, marked withdrawn, and lifts nothing from
+// then on. The engine's `readiness` reads these actions: a hold wins over everything, a
 // release ends the day's hold, a waiver lifts only its own finding.
 import type { Knex } from 'knex'
-import { blockingFirst, evaluate, type IsoDate } from '#shared/engine'
+import { blockingFirst, checkById, evaluate, type IsoDate } from '#shared/engine'
 import { MESSAGES } from '#shared/constants/messages'
-import type { HoldBody, WaiverBody } from '#shared/schemas/board'
-import type { BoardEntryDetail, BoardFinding, DirectorActionRecord, DirectorActionResult } from '#shared/types/api-board'
+import type { HoldBody, WaiverBody, WaiverWithdrawBody } from '#shared/schemas/board'
+import type { BoardEntryDetail, BoardFinding, DirectorActionRecord, DirectorActionResult, EntryWaiver } from '#shared/types/api-board'
 import type { DirectorActionRow } from '#shared/types/rows-board'
 import { activeHold } from '#shared/utils/board-tile'
 import { audit } from '#domain/audit/audit'
 import { enqueueMail } from '#domain/mail/outbox'
-import { readinessMail } from '#domain/mail/templates'
+import { readinessMail, waiverMail } from '#domain/mail/templates'
 import { actionsQuery, type BoardActionRow } from '#domain/read-model/day-inputs'
 import { loadCompetitionDossiers } from '#domain/read-model/dossiers'
 import type { CompetitionAccess } from '#server/utils/authz'
@@ -25,12 +26,13 @@ import { boardDayOf, boardTileOf } from './snapshot'
 import { openFindingsOf, refreshTiles, toTileAction } from './tiles'
 import { boardTransaction, lockBoard, openDate } from './transaction'
 
-type ActionRowWithActor = DirectorActionRow & { actor_name: string, day: string | null }
+type ActionRowWithActor = DirectorActionRow & { actor_name: string, day: string | null, withdrawn_by_name: string | null }
 
 function actionQuery(db: Knex) {
   return db('director_actions as a').join('users as u', 'u.id', 'a.actor_id')
+    .leftJoin('users as wu', 'wu.id', 'a.withdrawn_by')
     .select('a.id', 'a.competition_id', 'a.entry_id', 'a.kind', 'a.check_id', 'a.unit_id', 'a.subject', 'a.reason', 'a.finding', 'a.actor_id', 'a.created_at',
-      'u.name as actor_name', 'a.day')
+      'u.name as actor_name', 'a.day', 'a.withdrawn_at', 'a.withdrawn_by', 'a.withdrawal_reason', 'wu.name as withdrawn_by_name')
 }
 
 export function toDirectorActionRecord(r: ActionRowWithActor): DirectorActionRecord {
@@ -46,6 +48,9 @@ export function toDirectorActionRecord(r: ActionRowWithActor): DirectorActionRec
     finding: r.finding,
     actor: { id: r.actor_id, name: r.actor_name },
     at: iso(r.created_at),
+    withdrawal: r.withdrawn_at
+      ? { by: { id: r.withdrawn_by!, name: r.withdrawn_by_name ?? 'Someone' }, at: iso(r.withdrawn_at)!, reason: r.withdrawal_reason ?? '' }
+      : null,
   }
 }
 
@@ -141,7 +146,7 @@ export async function waiveFinding(access: CompetitionAccess, entryId: string, b
     await lockBoard(trx, competition.id)
     const open = await openDate(trx, competition.id)
     const day = body.scope === 'day' ? await actionDay(trx, competition.id, body.day) : null
-    await boardEntry(trx, competition.id, entryId)
+    const entry = await boardEntry(trx, competition.id, entryId)
 
     // The finding must stand now (on the open day, if any): a waiver names what it lifts.
     const evalDay: IsoDate | undefined = day ?? open ?? undefined
@@ -180,7 +185,113 @@ export async function waiveFinding(access: CompetitionAccess, entryId: string, b
       tile = tiles.get(entryId) ?? null
     }
     const record = await actionQuery(trx).where('a.id', row.id).first() as ActionRowWithActor
+    await enqueueWaiverMail(trx, access, entry, record, 'granted', false)
     return { action: toDirectorActionRecord(record), tile }
+  })
+}
+
+/**
+ * Withdraws a waiver of an entry, with a reason: the waiver row is marked withdrawn (by whom,
+ * when, why) and lifts nothing from then on; audited; the open day's tile is made again (the
+ * finding may hold the glider again) and pushed; the entrant is e-mailed.
+ */
+export async function withdrawWaiver(access: CompetitionAccess, entryId: string, actionId: string, body: WaiverWithdrawBody): Promise<DirectorActionResult> {
+  const { competition, user } = access
+  return boardTransaction(async (trx, changes) => {
+    await lockBoard(trx, competition.id)
+    const entry = await boardEntry(trx, competition.id, entryId)
+    const waiver = await actionQuery(trx).where({ 'a.id': actionId, 'a.competition_id': competition.id, 'a.entry_id': entryId }).forUpdate('a').first() as ActionRowWithActor | undefined
+    if (!waiver) throw httpError(404, MESSAGES.waiverNotFound)
+    if (waiver.kind !== 'waiver') throw httpError(409, MESSAGES.notAWaiver)
+    if (waiver.withdrawn_at) throw httpError(409, MESSAGES.waiverAlreadyWithdrawn(waiver.withdrawn_by_name ?? 'the director', iso(waiver.withdrawn_at).slice(0, 16).replace('T', ' ') + ' UTC'))
+
+    await trx('director_actions').where({ id: actionId }).update({ withdrawn_at: trx.fn.now(), withdrawn_by: user.id, withdrawal_reason: body.reason })
+    await audit(trx, {
+      actorUserId: user.id,
+      competitionId: competition.id,
+      action: 'director.waiver-withdrawn',
+      subjectType: 'entry',
+      subjectId: entryId,
+      details: { entryId, actionId, withdrawn: true, day: waiver.day, scope: waiver.day === null ? 'competition' : 'day', checkId: waiver.check_id, unitId: waiver.unit_id, subject: waiver.subject, reason: body.reason },
+    })
+    const open = await openDate(trx, competition.id)
+    let tile = null
+    if (open) {
+      const tiles = await refreshTiles(trx, competition.id, open, changes, { cause: 'waiver', actorId: user.id, entryIds: [entryId], quietHold: true })
+      tile = tiles.get(entryId) ?? null
+    }
+    const record = await actionQuery(trx).where('a.id', actionId).first() as ActionRowWithActor
+    await enqueueWaiverMail(trx, access, entry, record, 'withdrawn', tile?.readiness === 'held')
+    return { action: toDirectorActionRecord(record), tile }
+  })
+}
+
+async function enqueueWaiverMail(
+  trx: Knex.Transaction,
+  access: CompetitionAccess,
+  entry: { id: string, comp_id: string, entrant_email: string, entrant_name: string },
+  waiver: ActionRowWithActor,
+  event: 'granted' | 'withdrawn',
+  heldAgain: boolean,
+): Promise<void> {
+  const { competition } = access
+  const base = siteUrl()
+  const checkId = waiver.check_id!
+  const mail = waiverMail({
+    event,
+    entrantName: entry.entrant_name,
+    compId: entry.comp_id,
+    competitionName: competition.name,
+    competitionId: competition.id,
+    checkId,
+    checkRule: checkById(checkId)?.rule ?? checkId,
+    finding: waiver.finding?.reason ?? null,
+    scope: waiver.day === null ? 'competition' : 'day',
+    day: waiver.day,
+    lastContestDay: competition.last_contest_day,
+    grantedBy: waiver.actor_name,
+    grantReason: waiver.reason,
+    withdrawnBy: waiver.withdrawn_by_name ?? undefined,
+    withdrawalReason: waiver.withdrawal_reason ?? undefined,
+    heldAgain,
+    base,
+    entryUrl: `${base}/competitions/${competition.id}/entries/${entry.id}`,
+  })
+  await enqueueMail(trx, {
+    to: entry.entrant_email,
+    subject: mail.subject,
+    text: mail.text,
+    html: mail.html,
+    template: event === 'granted' ? 'director-waiver' : 'director-waiver-withdrawn',
+    competitionId: competition.id,
+    entryId: entry.id,
+  })
+}
+
+/**
+ * The waivers of one entry, as its entrant and the staff read them: in force and withdrawn,
+ * newest first, each with its check in words, scope, until when, by whom and why.
+ */
+export async function entryWaivers(access: CompetitionAccess, entryId: string, db: Knex = useDb()): Promise<EntryWaiver[]> {
+  const { competition } = access
+  const rows = await actionQuery(db)
+    .where({ 'a.competition_id': competition.id, 'a.entry_id': entryId, 'a.kind': 'waiver' })
+    .orderBy([{ column: 'a.created_at', order: 'desc' }, { column: 'a.id', order: 'desc' }]) as ActionRowWithActor[]
+  return rows.map((r) => {
+    const checkId = r.check_id!
+    return {
+      id: r.id,
+      scope: r.day === null ? 'competition' : 'day',
+      day: r.day as IsoDate | null,
+      checkId,
+      checkTitle: checkById(checkId)?.rule ?? checkId,
+      finding: r.finding,
+      reason: r.reason,
+      by: r.actor_name,
+      at: iso(r.created_at),
+      until: (r.day ?? competition.last_contest_day) as IsoDate | null,
+      withdrawal: r.withdrawn_at ? { by: r.withdrawn_by_name ?? 'Someone', at: iso(r.withdrawn_at), reason: r.withdrawal_reason ?? '' } : null,
+    }
   })
 }
 
@@ -207,7 +318,8 @@ export async function boardEntryDetail(access: CompetitionAccess, entryId: strin
   const dossier = loaded?.dossiers[0]
   const findings = loaded?.competition && dossier ? blockingFirst(evaluate(dossier, loaded.competition, loaded.field, evalDay)) : []
   const actions = actionRows.map(toDirectorActionRecord)
-  const waivers = actions.filter(a => a.kind === 'waiver')
+  // A withdrawn waiver lifts nothing; it stays in the list of actions, marked withdrawn.
+  const waivers = actions.filter(a => a.kind === 'waiver' && !a.withdrawal)
   const withWaivers: BoardFinding[] = findings.map((f) => {
     const w = waivers.findLast(a => a.checkId === f.checkId
       && (a.unitId === null || a.unitId === (f.unitId ?? null))

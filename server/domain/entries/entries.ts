@@ -24,11 +24,14 @@ import { dossierChanged, noteChangeAfterAcceptance } from '#domain/board/dossier
 import { findCompetition, listClasses } from '#domain/competitions/competitions'
 import { countFindings, entryFindings, findingsByEntry } from '#domain/findings/findings'
 import { enqueueMail } from '#domain/mail/outbox'
+import { entryAcceptedMail, entryRejectedMail, entrySubmittedMail, entryToReviewMail, ruleLink } from '#domain/mail/templates'
 import { rolesInCompetition } from '#domain/people/memberships'
 import { iso, num } from '#domain/read-model/values'
 import type { EntryAccess } from '#server/utils/authz'
 import { together, useDb } from '#server/utils/db'
 import { httpError } from '#server/utils/errors'
+import { siteUrl } from '#server/utils/site-url'
+import { reminderOpenItems } from '#shared/utils/reminder-items'
 import { rulesOf } from '#shared/utils/rules'
 
 // ---------------------------------------------------------------------------------------
@@ -580,6 +583,11 @@ async function entrantEmail(trx: Knex, entry: EntryRow): Promise<{ email: string
   return trx('users').where({ id: entry.entrant_user_id }).first('email', 'name')
 }
 
+/** The entry's page: where its entrant acts on it, and where the organiser decides on it. */
+function entryPageUrl(competitionId: string, entryId: string): string {
+  return `${siteUrl()}/competitions/${competitionId}/entries/${entryId}`
+}
+
 function entryLabel(entry: EntryRow) {
   return `${entry.comp_id} (${entry.glider_type}, ${entry.registration})`
 }
@@ -612,19 +620,31 @@ export async function submitEntry(access: EntryAccess): Promise<void> {
       details: { from: entry.status, to: 'submitted' },
     })
     const entrant = await entrantEmail(trx, entry)
+    const entryUrl = entryPageUrl(competition.id, entry.id)
+    const submitted = entrySubmittedMail({
+      entrantName: entrant.name,
+      entryLabel: entryLabel(entry),
+      compId: entry.comp_id,
+      competitionName: competition.name,
+      missing: progress.missing.map(m => m.text),
+      entryUrl,
+    })
     await enqueueMail(trx, {
       to: entrant.email,
-      subject: `Entry ${entry.comp_id} submitted — ${competition.name}`,
-      text: `Hello ${entrant.name},\n\nyour entry ${entryLabel(entry)} in ${competition.name} is submitted. The organiser will review it and you will get an e-mail when it is accepted or needs changes.\n\nMeanwhile, upload the documents and IGC files the dossier still asks for.\n`,
+      subject: submitted.subject,
+      text: submitted.text,
+      html: submitted.html,
       template: 'entry-submitted',
       competitionId: competition.id,
       entryId: entry.id,
     })
+    const review = entryToReviewMail({ pilotName: entry.pilot_name, entryLabel: entryLabel(entry), compId: entry.comp_id, competitionName: competition.name, entryUrl })
     for (const to of await organiserEmails(trx, competition.id)) {
       await enqueueMail(trx, {
         to,
-        subject: `New entry to review: ${entry.comp_id} — ${competition.name}`,
-        text: `${entry.pilot_name} submitted the entry ${entryLabel(entry)} in ${competition.name}. Open its dossier to accept or reject it.\n`,
+        subject: review.subject,
+        text: review.text,
+        html: review.html,
         template: 'entry-submitted',
         competitionId: competition.id,
         entryId: entry.id,
@@ -663,23 +683,26 @@ export async function decideEntry(access: EntryAccess, decision: { accept: true 
       details: { from: entry.status, to: status, ...(reason ? { reason } : {}) },
     })
     const entrant = await entrantEmail(trx, entry)
-    await enqueueMail(trx, decision.accept
-      ? {
-          to: entrant.email,
-          subject: `Entry ${entry.comp_id} accepted — ${competition.name}`,
-          text: `Hello ${entrant.name},\n\nthe organiser accepted your entry ${entryLabel(entry)} in ${competition.name}.\n\nBefore the event, make sure the dossier is complete: documents, an IGC file from each recorder, and the entry fee.\n`,
-          template: 'entry-accepted',
-          competitionId: competition.id,
-          entryId: entry.id,
-        }
-      : {
-          to: entrant.email,
-          subject: `Entry ${entry.comp_id} needs changes — ${competition.name}`,
-          text: `Hello ${entrant.name},\n\nthe organiser did not accept your entry ${entryLabel(entry)} in ${competition.name}. Their reason:\n\n${reason}\n\nPut it right in the dossier and submit the entry again.\n`,
-          template: 'entry-rejected',
-          competitionId: competition.id,
-          entryId: entry.id,
+    const base = siteUrl()
+    const entryUrl = entryPageUrl(competition.id, entry.id)
+    const common = { entrantName: entrant.name, entryLabel: entryLabel(entry), compId: entry.comp_id, competitionName: competition.name, entryUrl }
+    // Only what is actually open now: the engine's findings on the accepted entry, each with its rule.
+    const mail = decision.accept
+      ? entryAcceptedMail({
+          ...common,
+          openItems: reminderOpenItems({ status }, (await entryFindings(competition.id, entry.id, trx)).findings)
+            .map(i => ({ text: i.text, link: i.checkId ? ruleLink(base, competition.id, i.checkId) : undefined })),
         })
+      : entryRejectedMail({ ...common, reason: reason! })
+    await enqueueMail(trx, {
+      to: entrant.email,
+      subject: mail.subject,
+      text: mail.text,
+      html: mail.html,
+      template: decision.accept ? 'entry-accepted' : 'entry-rejected',
+      competitionId: competition.id,
+      entryId: entry.id,
+    })
     await dossierChanged(trx, competition.id, [entry.id], user.id)
   })
 }

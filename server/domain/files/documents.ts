@@ -13,6 +13,8 @@ import type { ReviewBody } from '#shared/schemas/files'
 import { audit } from '#domain/audit/audit'
 import { dossierChanged, noteChangeAfterAcceptance } from '#domain/board/dossier-changed'
 import { enqueueMail } from '#domain/mail/outbox'
+import { siteUrl } from '#server/utils/site-url'
+import { documentRejectedMail } from '#domain/mail/templates'
 import { useDb } from '#server/utils/db'
 import { httpError } from '#server/utils/errors'
 import { iso } from '#domain/read-model/values'
@@ -170,18 +172,20 @@ export async function reviewDocument(input: {
       const entrant = await trx('entries as e').join('users as u', 'u.id', 'e.entrant_user_id')
         .where('e.id', doc.entry_id).first('u.email', 'u.name', 'e.comp_id', 'e.pilot_name') as { email: string, name: string, comp_id: string }
       const label = DOCUMENT_KIND_LABELS[doc.kind]
+      const mail = documentRejectedMail({
+        entrantName: entrant.name,
+        compId: entrant.comp_id,
+        competitionName: input.competitionName,
+        kindLabel: label,
+        filename: doc.original_filename,
+        reason: reason ?? '',
+        entryUrl: `${siteUrl()}/competitions/${input.competitionId}/entries/${doc.entry_id}`,
+      })
       await enqueueMail(trx, {
         to: entrant.email,
-        subject: `${label} not accepted — ${input.competitionName}`,
-        text: [
-          `Hello ${entrant.name},`,
-          '',
-          `A scrutineer of ${input.competitionName} could not accept the ${label.toLowerCase()} you uploaded for entry ${entrant.comp_id} (${doc.original_filename}).`,
-          '',
-          `Reason: ${reason}`,
-          '',
-          'Please upload a corrected document from your entry in Gridmark; it replaces the rejected one and goes back to the review queue.',
-        ].join('\n'),
+        subject: mail.subject,
+        text: mail.text,
+        html: mail.html,
         template: 'document-rejected',
         competitionId: input.competitionId,
         entryId: doc.entry_id,

@@ -191,3 +191,255 @@ export function reminderMail(input: {
     }),
   }
 }
+
+/** A date as the e-mails write it: 12 July 2027 (a YYYY-MM-DD date, or null). */
+export function mailDay(isoDate: string | null): string | null {
+  return formatDay(isoDate)
+}
+
+/**
+ * The e-mail to an entrant when the director waives one finding of their entry, or withdraws
+ * that waiver: the check in words with its rule, the finding as it read, for which day or the
+ * whole competition, who decided and why, and the entry page where they see it.
+ */
+export function waiverMail(input: {
+  event: 'granted' | 'withdrawn'
+  entrantName: string
+  compId: string
+  competitionName: string
+  competitionId: string
+  checkId: string
+  /** The check's rule in words. */
+  checkRule: string
+  /** The finding as it read when waived. */
+  finding: string | null
+  scope: 'day' | 'competition'
+  day: string | null
+  /** The last contest day, which a waiver of the whole competition runs to. */
+  lastContestDay: string | null
+  /** The director who granted the waiver, and their reason. */
+  grantedBy: string
+  grantReason: string
+  /** For a withdrawal: who withdrew it and why. */
+  withdrawnBy?: string
+  withdrawalReason?: string
+  /** After a withdrawal: whether the finding holds the glider again on the open day. */
+  heldAgain?: boolean
+  base: string
+  entryUrl: string
+}): RenderedMail & { subject: string } {
+  const scope = input.scope === 'day'
+    ? `for ${formatDay(input.day) ?? 'the day'} only`
+    : `for the whole competition${input.lastContestDay ? ` (to ${formatDay(input.lastContestDay)})` : ''}`
+  const what = `${input.checkRule}${input.finding ? ` What the check found: ${input.finding}` : ''}`
+  if (input.event === 'granted') {
+    return {
+      subject: `A finding on ${input.compId} is waived — ${input.competitionName}`,
+      ...renderMail({
+        greeting: `Hello ${input.entrantName},`,
+        paragraphs: [
+          `the contest director ${input.grantedBy} waived one finding on your entry ${input.compId} at ${input.competitionName}, ${scope}. It does not hold your glider while the waiver stands.`,
+          `The director’s reason: ${input.grantReason}`,
+          'The waived check:',
+        ],
+        list: [{ text: what, link: ruleLink(input.base, input.competitionId, input.checkId) }],
+        closing: [
+          input.scope === 'day'
+            ? 'The finding counts again on the next day unless it is put right: fix it when you can.'
+            : 'The director may withdraw a waiver; you will get an e-mail if they do. Fix the finding when you can.',
+        ],
+        action: { label: 'See the waiver on your entry', url: input.entryUrl },
+      }),
+    }
+  }
+  return {
+    subject: `A waiver on ${input.compId} is withdrawn — ${input.competitionName}`,
+    ...renderMail({
+      greeting: `Hello ${input.entrantName},`,
+      paragraphs: [
+        `the contest director${input.withdrawnBy ? ` ${input.withdrawnBy}` : ''} withdrew the waiver granted ${scope} on your entry ${input.compId} at ${input.competitionName}. The finding counts again from now.`,
+        `The reason for withdrawing it: ${input.withdrawalReason ?? ''}`,
+        `It had been granted by ${input.grantedBy}: ${input.grantReason}`,
+        'The check that counts again:',
+      ],
+      list: [{ text: what, link: ruleLink(input.base, input.competitionId, input.checkId) }],
+      closing: [
+        input.heldAgain
+          ? 'Your glider is held on today’s board until the finding is put right or the director decides otherwise. Put it right, then talk to the scrutineers.'
+          : 'Put the finding right before your glider is checked on the grid.',
+      ],
+      action: { label: 'Open your entry', url: input.entryUrl },
+    }),
+  }
+}
+
+// ---------------------------------------------------------------------------------------
+// The entry's way through the office: each message names what happened, lists only what is
+// actually still open, and links to the page where its reader acts (the entrant's entry page;
+// for the organiser, the same page, where the entry is accepted or rejected).
+
+/** What an entrant is told is still open: lines of an e-mail, each finding with its rule. */
+export type OpenItems = (string | MailListItem)[]
+
+export function entrySubmittedMail(input: {
+  entrantName: string
+  entryLabel: string
+  compId: string
+  competitionName: string
+  /** What the dossier still asks for (nothing that stops submitting). */
+  missing: string[]
+  entryUrl: string
+}): RenderedMail & { subject: string } {
+  return {
+    subject: `Entry ${input.compId} submitted — ${input.competitionName}`,
+    ...renderMail({
+      greeting: `Hello ${input.entrantName},`,
+      paragraphs: [
+        `your entry ${input.entryLabel} in ${input.competitionName} is submitted. The organiser will review it and you will get an e-mail when it is accepted or needs changes.`,
+        input.missing.length
+          ? 'Meanwhile, the dossier still asks for:'
+          : 'The dossier has everything it asks for at the moment; nothing more is needed from you for now.',
+      ],
+      list: input.missing,
+      action: { label: 'Open your entry', url: input.entryUrl },
+    }),
+  }
+}
+
+export function entryToReviewMail(input: {
+  pilotName: string
+  entryLabel: string
+  compId: string
+  competitionName: string
+  /** The entry's page, where the organiser accepts or rejects it. */
+  entryUrl: string
+}): RenderedMail & { subject: string } {
+  return {
+    subject: `New entry to review: ${input.compId} — ${input.competitionName}`,
+    ...renderMail({
+      paragraphs: [
+        `${input.pilotName} submitted the entry ${input.entryLabel} in ${input.competitionName}.`,
+        'Open its dossier to accept it, or reject it with a reason the entrant can act on.',
+      ],
+      action: { label: 'Review the entry', url: input.entryUrl },
+    }),
+  }
+}
+
+export function entryAcceptedMail(input: {
+  entrantName: string
+  entryLabel: string
+  compId: string
+  competitionName: string
+  /** What is still open on the entry (reminderOpenItems), each finding with its rule. */
+  openItems: OpenItems
+  entryUrl: string
+}): RenderedMail & { subject: string } {
+  return {
+    subject: `Entry ${input.compId} accepted — ${input.competitionName}`,
+    ...renderMail({
+      greeting: `Hello ${input.entrantName},`,
+      paragraphs: [
+        `the organiser accepted your entry ${input.entryLabel} in ${input.competitionName}.`,
+        input.openItems.length
+          ? 'Before the event, put right what is still open on your entry:'
+          : 'Nothing is open on your entry at the moment. Check it once more before you travel.',
+      ],
+      list: input.openItems,
+      action: { label: 'Open your entry', url: input.entryUrl },
+    }),
+  }
+}
+
+export function entryRejectedMail(input: {
+  entrantName: string
+  entryLabel: string
+  compId: string
+  competitionName: string
+  reason: string
+  entryUrl: string
+}): RenderedMail & { subject: string } {
+  return {
+    subject: `Entry ${input.compId} needs changes — ${input.competitionName}`,
+    ...renderMail({
+      greeting: `Hello ${input.entrantName},`,
+      paragraphs: [
+        `the organiser did not accept your entry ${input.entryLabel} in ${input.competitionName}. Their reason:`,
+        input.reason,
+        'Put it right on your entry and submit it again.',
+      ],
+      action: { label: 'Change and resubmit your entry', url: input.entryUrl },
+    }),
+  }
+}
+
+export function paymentReceivedMail(input: {
+  entrantName: string
+  compId: string
+  competitionName: string
+  /** The amount as written, e.g. "€150.00". */
+  money: string
+  entryUrl: string
+}): RenderedMail & { subject: string } {
+  return {
+    subject: `Payment received: ${input.compId} at ${input.competitionName}`,
+    ...renderMail({
+      greeting: `Hello ${input.entrantName},`,
+      paragraphs: [
+        `we have received your card payment of ${input.money} for the entry fee of ${input.compId} at ${input.competitionName}. Thank you.`,
+        'Your entry shows the payment; anything else still open is listed there.',
+      ],
+      action: { label: 'Open your entry', url: input.entryUrl },
+      footer: 'Gridmark, for the competition office. This message was sent automatically; replies are not read.',
+    }),
+  }
+}
+
+export function refundMail(input: {
+  entrantName: string
+  compId: string
+  competitionName: string
+  money: string
+  /** The whole fee was refunded (nothing paid remains). */
+  full: boolean
+  entryUrl: string
+}): RenderedMail & { subject: string } {
+  return {
+    subject: `Refund: ${input.compId} at ${input.competitionName}`,
+    ...renderMail({
+      greeting: `Hello ${input.entrantName},`,
+      paragraphs: [
+        `the competition office has refunded ${input.money} of the entry fee for ${input.compId} at ${input.competitionName} to the card you paid with. It may take a few days to show on your statement.`,
+        input.full
+          ? 'Nothing of the fee remains paid. Your entry shows the refund.'
+          : 'The rest of the fee stays paid. Your entry shows the refund and what remains paid.',
+      ],
+      action: { label: 'Open your entry', url: input.entryUrl },
+      footer: 'Gridmark, for the competition office. This message was sent automatically; replies are not read.',
+    }),
+  }
+}
+
+export function documentRejectedMail(input: {
+  entrantName: string
+  compId: string
+  competitionName: string
+  /** The document's kind as written, e.g. "Insurance certificate". */
+  kindLabel: string
+  filename: string
+  reason: string
+  entryUrl: string
+}): RenderedMail & { subject: string } {
+  return {
+    subject: `${input.kindLabel} not accepted — ${input.competitionName}`,
+    ...renderMail({
+      greeting: `Hello ${input.entrantName},`,
+      paragraphs: [
+        `A scrutineer of ${input.competitionName} could not accept the ${input.kindLabel.toLowerCase()} you uploaded for entry ${input.compId} (${input.filename}).`,
+        `Reason: ${input.reason}`,
+        'Upload a corrected document on your entry; it replaces the rejected one and goes back to the review queue.',
+      ],
+      action: { label: 'Upload a corrected document', url: input.entryUrl },
+    }),
+  }
+}

@@ -22,6 +22,7 @@ import { stringify } from 'csv-stringify/sync'
 import { audit } from '#domain/audit/audit'
 import { dossierChanged } from '#domain/board/dossier-changed'
 import { enqueueMail } from '#domain/mail/outbox'
+import { paymentReceivedMail, refundMail } from '#domain/mail/templates'
 import { iso } from '#domain/read-model/values'
 import { useDb } from '#server/utils/db'
 import { httpError } from '#server/utils/errors'
@@ -229,6 +230,11 @@ interface EntryMailInfo {
   competition_name: string
 }
 
+/** The entrant's entry page, where a payment or a refund shows. */
+function entryPageUrl(competitionId: string, entryId: string): string {
+  return `${siteUrl()}/competitions/${competitionId}/entries/${entryId}`
+}
+
 async function entryMailInfo(trx: Knex, entryId: string): Promise<EntryMailInfo> {
   return trx('entries as e')
     .join('users as u', 'u.id', 'e.entrant_user_id')
@@ -257,10 +263,12 @@ async function markPaid(trx: Knex.Transaction, payment: PaymentRow, session: Str
   })
   const info = await entryMailInfo(trx, payment.entry_id)
   const money = formatMoney(amount, payment.currency)
+  const mail = paymentReceivedMail({ entrantName: info.name, compId: info.comp_id, competitionName: info.competition_name, money, entryUrl: entryPageUrl(payment.competition_id, payment.entry_id) })
   await enqueueMail(trx, {
     to: info.email,
-    subject: `Payment received: ${info.comp_id} at ${info.competition_name}`,
-    text: `Hello ${info.name},\n\nwe have received your card payment of ${money} for the entry fee of ${info.comp_id} at ${info.competition_name}. Thank you.\n\nGridmark, for the competition office`,
+    subject: mail.subject,
+    text: mail.text,
+    html: mail.html,
     template: PAYMENT_MAIL_TEMPLATES.received,
     competitionId: payment.competition_id,
     entryId: payment.entry_id,
@@ -302,10 +310,15 @@ async function recordRefund(trx: Knex.Transaction, paymentId: string, refundedTo
   })
   const info = await entryMailInfo(trx, payment.entry_id)
   const money = formatMoney(delta, payment.currency)
+  const mail = refundMail({
+    entrantName: info.name, compId: info.comp_id, competitionName: info.competition_name, money,
+    full: entry.paid_minor === 0, entryUrl: entryPageUrl(payment.competition_id, payment.entry_id),
+  })
   await enqueueMail(trx, {
     to: info.email,
-    subject: `Refund: ${info.comp_id} at ${info.competition_name}`,
-    text: `Hello ${info.name},\n\nthe competition office has refunded ${money} of the entry fee for ${info.comp_id} at ${info.competition_name} to the card you paid with. It may take a few days to show on your statement.\n\nGridmark, for the competition office`,
+    subject: mail.subject,
+    text: mail.text,
+    html: mail.html,
     template: PAYMENT_MAIL_TEMPLATES.refund,
     competitionId: payment.competition_id,
     entryId: payment.entry_id,

@@ -51,11 +51,16 @@ export interface EntrantRow {
   entrant_name: string
 }
 
-/** The director's actions that count on `day` (that day's, and waivers for the whole competition), in the order taken. */
+/**
+ * The director's actions that count on `day` (that day's, and waivers for the whole
+ * competition), in the order taken. A withdrawn waiver counts nowhere, so it is left out here,
+ * where the board, the grid check and the phone's pack all read them.
+ */
 export function actionsQuery(db: Knex, competitionId: string, day: IsoDate, entryIds?: readonly string[]) {
   const q = db('director_actions as a').join('users as u', 'u.id', 'a.actor_id')
     .where('a.competition_id', competitionId)
     .where(w => w.where('a.day', day).orWhereNull('a.day'))
+    .whereNull('a.withdrawn_at')
     .orderBy([{ column: 'a.created_at' }, { column: 'a.id' }])
     .select('a.id', 'a.entry_id', 'a.kind', 'a.check_id', 'a.unit_id', 'a.subject', 'a.reason', 'a.created_at', 'u.name as actor_name',
       'a.day')

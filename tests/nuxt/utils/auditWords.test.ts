@@ -7,6 +7,7 @@ describe('audit words', () => {
     expect(auditActionWords('director.hold')).toBe('Held')
     expect(auditActionWords('director.release')).toBe('Released')
     expect(auditActionWords('director.waiver')).toBe('Finding waived')
+    expect(auditActionWords('director.waiver-withdrawn')).toBe('Waiver withdrawn')
     expect(auditActionWords('day.reopened')).toBe('Day opened again')
     expect(auditActionWords('weather.changed')).toBe('weather.changed')
   })

@@ -38,6 +38,8 @@ beforeAll(async () => {
   submitted = await createEntry({ competitionId, classId, entrantUserId: e.user.id, status: 'submitted', compId: 'RM1' })
   accepted = await createEntry({ competitionId, classId, entrantUserId: e.user.id, status: 'accepted', compId: 'RM2' })
   draft = await createEntry({ competitionId, classId, entrantUserId: e.user.id, status: 'draft', compId: 'RM3' })
+  // RM2's pilot has paid: their reminder says nothing of the fee.
+  await testDb()('entries').where({ id: accepted }).update({ payment_status: 'paid' })
   await testDb()('units').insert([
     { entry_id: accepted, competition_id: competitionId, kind: 'collision-warning', model: 'CW-1', serial: 'CW100', radio_id: 'ABC123', firmware_expires_on: '2031-06-15' },
     { entry_id: accepted, competition_id: competitionId, kind: 'flight-recorder', model: 'FR-2', serial: 'FR200', approval_level: 'all-flights' },
@@ -88,6 +90,10 @@ describe('POST /api/admin/reminders/run', () => {
     expect(forAccepted.links).toContain(`${baseUrl}/competitions/${competitionId}/checks#firmware.valid-through-contest`)
     expect(forSubmitted.links).toContain(`${baseUrl}/competitions/${competitionId}/checks#recorder.present`)
     expect(forAccepted.text).not.toContain('No flight recorder')
+    // Only what is actually missing: the unpaid entry is told of its fee, the paid one is not.
+    expect(forSubmitted.text).toContain('The entry fee is not paid yet')
+    expect(forAccepted.text).not.toMatch(/entry fee/i)
+    expect(forAccepted.links).toContain(`${baseUrl}/competitions/${competitionId}/entries/${accepted}`)
 
     // Running again (even later in the window) sends nothing more.
     const again = await run('2031-06-05T08:00:00Z')

@@ -77,6 +77,7 @@ describe('hold and release', () => {
     expect(mail).toHaveLength(1)
     expect(mail[0].to_address).toBe(w.entrant.email)
     expect(mail[0].text_body).toContain('Canopy lock does not engage fully')
+    expect(mail[0].text_body).toContain(`Open your entry:\n${baseUrl}/competitions/${w.competitionId}/entries/${ready}`)
     // The director's hold is its own message: no second "held" e-mail from the board.
     expect(await testDb()('mail_outbox').where({ entry_id: ready, template: 'board-held' })).toHaveLength(0)
 
@@ -93,6 +94,7 @@ describe('hold and release', () => {
     const mail = await testDb()('mail_outbox').where({ entry_id: ready, template: 'director-release' })
     expect(mail).toHaveLength(1)
     expect(mail[0].text_body).toContain('may launch once it is ready')
+    expect(mail[0].text_body).toContain(`Open your entry:\n${baseUrl}/competitions/${w.competitionId}/entries/${ready}`)
     const again = await release(ready, { reason: 'Again' })
     expect(again.status).toBe(409)
     expect(again.body.message).toMatch(/waiver/)

@@ -312,6 +312,13 @@ describe('submitting', () => {
       ['entry-submitted', w.organiser.email],
     ])
     expect(mails[0].subject).toBe('Entry KT submitted — Entries Cup')
+    // Each links to the entry's page: the entrant's to act on it, the organiser's to decide.
+    const page = `${baseUrl}/competitions/${w.competitionId}/entries/${entryId}`
+    expect(mails[0].text_body).toContain(`Open your entry:\n${page}`)
+    expect(mails[0].html_body).toContain(`href="${page}"`)
+    expect(mails[1].subject).toBe('New entry to review: KT — Entries Cup')
+    expect(mails[1].text_body).toContain(`Review the entry:\n${page}`)
+    expect(mails[1].text_body).toContain('reject it with a reason')
     expect((await auditRows(entryId, 'entry.submitted')).length).toBe(1)
     const again = await w.entrant.client.post(`${path()}/submit`)
     expect(again.status).toBe(409)
@@ -341,6 +348,7 @@ describe('deciding', () => {
     const mail = (await mailRows(entryId)).find(m => m.template === 'entry-rejected')
     expect(mail.to_address).toBe(w.entrant.email)
     expect(mail.text_body).toContain('The MTOM does not match the flight manual.')
+    expect(mail.text_body).toContain(`Change and resubmit your entry:\n${baseUrl}/competitions/${w.competitionId}/entries/${entryId}`)
     const [row] = await auditRows(entryId, 'entry.rejected')
     expect(row.details).toMatchObject({ reason: 'The MTOM does not match the flight manual.', to: 'rejected' })
 
@@ -356,6 +364,11 @@ describe('deciding', () => {
     expect(res.body.entry.decisionReason).toBeNull()
     const mail = (await mailRows(entryId)).find(m => m.template === 'entry-accepted')
     expect(mail.to_address).toBe(w.entrant.email)
+    expect(mail.text_body).toContain(`Open your entry:\n${baseUrl}/competitions/${w.competitionId}/entries/${entryId}`)
+    // Only what is open is listed, each with its rule; what is done (here the fee, when paid) is not.
+    const paid = (await testDb()('entries').where({ id: entryId }).first()).payment_status === 'paid'
+    expect(mail.text_body.includes('The entry fee is not paid yet')).toBe(!paid)
+    expect(mail.text_body).not.toContain('make sure')
     expect((await w.organiser.client.post(`${path()}/accept`)).status).toBe(409)
     const patch = await w.entrant.client.request('PATCH', path(), { pilotPhone: '2' })
     expect(patch.status).toBe(403)

@@ -218,6 +218,7 @@ describe('review queue', () => {
     const mail = await testDb()('mail_outbox').where({ entry_id: entryId, template: 'document-rejected' }).first()
     expect(mail).toMatchObject({ to_address: ownerEmail, competition_id: competitionId })
     expect(mail.text_body).toContain('The certificate ends before the last contest day.')
+    expect(mail.text_body).toContain(`Upload a corrected document:\n${baseUrl}/competitions/${competitionId}/entries/${entryId}`)
     expect(await testDb()('audit_log').where({ subject_id: ins.id, action: 'document.rejected' }).first()).toBeTruthy()
   })
 

@@ -59,6 +59,7 @@ describe('POST /api/competitions/:id/invitations', () => {
     const link = invitationLink(mail!)
     expect(link.startsWith(`${baseUrl}/invitations/`)).toBe(true)
     expect(mail!.html).toContain(`href="${link}"`)
+    expect(mail!.text).toContain(`Open the invitation:\n${link}`)
 
     // Only the token's hash is stored; an audit entry records the invitation.
     const row = await testDb()('invitations').where({ id: res.body.invitation.id }).first()

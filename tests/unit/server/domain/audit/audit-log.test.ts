@@ -25,4 +25,9 @@ describe('timelineSummary', () => {
     expect(timelineSummary('waiver', { checkId: 'entry.paid', scope: 'competition', day: null, reason: 'Paid in cash' }))
       .toBe('Waived entry.paid for the whole competition: Paid in cash')
   })
+
+  it('says a waiver was withdrawn, and why', () => {
+    expect(timelineSummary('waiver', { withdrawn: true, checkId: 'entry.paid', scope: 'day', day: '2027-07-13', reason: 'No cash was received' }))
+      .toBe('Waiver of entry.paid withdrawn: No cash was received')
+  })
 })

@@ -3,7 +3,10 @@
 // with the hardware caution in full, the one shared text.
 import { describe, expect, it } from 'vitest'
 import { HARDWARE_CAUTION, type Finding } from '#shared/engine'
-import { findingItems, readinessMail, renderMail, ruleLink } from '#domain/mail/templates'
+import {
+  documentRejectedMail, entryAcceptedMail, entryRejectedMail, entrySubmittedMail, entryToReviewMail, findingItems,
+  invitationMail, paymentReceivedMail, readinessMail, refundMail, reminderMail, renderMail, ruleLink, waiverMail,
+} from '#domain/mail/templates'
 
 const BASE = 'https://gridmark.example'
 const expired: Finding = { checkId: 'firmware.valid-through-contest', severity: 'blocking', reason: 'The firmware expires 2027-07-18.', fixHint: 'Update it.', caution: HARDWARE_CAUTION, unitId: 'u1' }
@@ -41,5 +44,103 @@ describe('readinessMail (hold and release)', () => {
     expect(mail.text).toContain(HARDWARE_CAUTION)
     // The HTML part escapes the caution's apostrophes like any other text.
     expect(mail.html).toContain('Follow the manufacturer’s instructions.')
+  })
+})
+
+// Every e-mail ends with the page where its reader acts, in both parts, and says only what
+// fits its case.
+const ENTRY = `${BASE}/competitions/c-1/entries/e-1`
+const withLink = (mail: { text: string, html: string }, label: string, url: string) => {
+  expect(mail.text).toContain(`${label}:\n${url}`)
+  expect(mail.html).toContain(`href="${url}"`)
+}
+
+describe('waiverMail', () => {
+  const granted = {
+    event: 'granted' as const, entrantName: 'Ann', compId: 'K7', competitionName: 'Moor Open', competitionId: 'c-1',
+    checkId: 'entry.paid', checkRule: 'The entry fee is paid before the first contest day.', finding: 'The entry fee is not paid yet.',
+    scope: 'day' as const, day: '2027-07-12', lastContestDay: '2027-07-20', grantedBy: 'Dana Director', grantReason: 'Paid in cash', base: BASE, entryUrl: ENTRY,
+  }
+  it('on a grant: the check in words with its rule, the day, who and why, and the entry page', () => {
+    const mail = waiverMail(granted)
+    expect(mail.subject).toBe('A finding on K7 is waived — Moor Open')
+    expect(mail.text).toContain('Dana Director waived one finding on your entry K7 at Moor Open, for 12 July 2027 only.')
+    expect(mail.text).toContain('The director’s reason: Paid in cash')
+    expect(mail.text).toContain('  - The entry fee is paid before the first contest day. What the check found: The entry fee is not paid yet.\n    Rule: entry.paid\n    https://gridmark.example/competitions/c-1/checks#entry.paid')
+    expect(mail.text).toContain('counts again on the next day')
+    withLink(mail, 'See the waiver on your entry', ENTRY)
+  })
+
+  it('for the whole competition: runs to the last contest day', () => {
+    const mail = waiverMail({ ...granted, scope: 'competition', day: null })
+    expect(mail.text).toContain('for the whole competition (to 20 July 2027)')
+    expect(mail.text).toContain('may withdraw a waiver')
+  })
+
+  it('on a withdrawal: who withdrew it and why, what counts again, held again or not', () => {
+    const mail = waiverMail({ ...granted, event: 'withdrawn', withdrawnBy: 'Dana Director', withdrawalReason: 'No cash was received', heldAgain: true })
+    expect(mail.subject).toBe('A waiver on K7 is withdrawn — Moor Open')
+    expect(mail.text).toContain('the contest director Dana Director withdrew the waiver granted for 12 July 2027 only on your entry K7 at Moor Open.')
+    expect(mail.text).toContain('The reason for withdrawing it: No cash was received')
+    expect(mail.text).toContain('It had been granted by Dana Director: Paid in cash')
+    expect(mail.text).toContain('held on today’s board')
+    expect(waiverMail({ ...granted, event: 'withdrawn', withdrawnBy: 'Dana Director', withdrawalReason: 'x', heldAgain: false }).text).not.toContain('held on today’s board')
+    withLink(mail, 'Open your entry', ENTRY)
+  })
+})
+
+describe('the entry’s e-mails link to its page and list only what is open', () => {
+  const common = { entrantName: 'Ann', entryLabel: 'K7 (Glider 15, D-1234)', compId: 'K7', competitionName: 'Moor Open', entryUrl: ENTRY }
+
+  it('submitted: what the dossier still asks for, or that nothing is needed', () => {
+    const asks = entrySubmittedMail({ ...common, missing: ['Upload the insurance certificate.'] })
+    expect(asks.text).toContain('Meanwhile, the dossier still asks for:\n\n  - Upload the insurance certificate.')
+    withLink(asks, 'Open your entry', ENTRY)
+    const none = entrySubmittedMail({ ...common, missing: [] })
+    expect(none.text).toContain('nothing more is needed from you for now')
+    expect(none.text).not.toContain('IGC')
+  })
+
+  it('to review (the organiser): the entry page, where it is accepted or rejected', () => {
+    const mail = entryToReviewMail({ pilotName: 'Ann', entryLabel: common.entryLabel, compId: 'K7', competitionName: 'Moor Open', entryUrl: ENTRY })
+    expect(mail.subject).toBe('New entry to review: K7 — Moor Open')
+    withLink(mail, 'Review the entry', ENTRY)
+  })
+
+  it('accepted: a paid pilot is not told about the fee; what is open is listed', () => {
+    const paid = entryAcceptedMail({ ...common, openItems: [] })
+    expect(paid.text).not.toMatch(/fee/)
+    expect(paid.text).toContain('Nothing is open on your entry at the moment.')
+    withLink(paid, 'Open your entry', ENTRY)
+    const unpaidMail = entryAcceptedMail({ ...common, openItems: [{ text: 'Blocking: The entry fee is not paid yet.', link: ruleLink(BASE, 'c-1', 'entry.paid') }] })
+    expect(unpaidMail.text).toContain('put right what is still open on your entry:\n\n  - Blocking: The entry fee is not paid yet.')
+  })
+
+  it('rejected: the organiser’s reason and the page to change and resubmit', () => {
+    const mail = entryRejectedMail({ ...common, reason: 'The MTOM does not match.' })
+    expect(mail.text).toContain('The MTOM does not match.')
+    withLink(mail, 'Change and resubmit your entry', ENTRY)
+  })
+
+  it('payment received and refunds: the amount, what remains paid, and the entry page', () => {
+    withLink(paymentReceivedMail({ entrantName: 'Ann', compId: 'K7', competitionName: 'Moor Open', money: '€300.00', entryUrl: ENTRY }), 'Open your entry', ENTRY)
+    const full = refundMail({ entrantName: 'Ann', compId: 'K7', competitionName: 'Moor Open', money: '€300.00', full: true, entryUrl: ENTRY })
+    expect(full.text).toContain('Nothing of the fee remains paid.')
+    withLink(full, 'Open your entry', ENTRY)
+    expect(refundMail({ entrantName: 'Ann', compId: 'K7', competitionName: 'Moor Open', money: '€50.00', full: false, entryUrl: ENTRY }).text).toContain('The rest of the fee stays paid.')
+  })
+
+  it('document rejected: the reason and where to upload a corrected one', () => {
+    const mail = documentRejectedMail({ entrantName: 'Ann', compId: 'K7', competitionName: 'Moor Open', kindLabel: 'Insurance certificate', filename: 'ins.pdf', reason: 'Expired.', entryUrl: ENTRY })
+    expect(mail.text).toContain('could not accept the insurance certificate you uploaded for entry K7 (ins.pdf).')
+    withLink(mail, 'Upload a corrected document', ENTRY)
+  })
+
+  it('invitation and reminder keep their pages: the invitation, the entry', () => {
+    const inv = invitationMail({ competitionName: 'Moor Open', role: 'scrutineer', invitedByName: 'Olga', url: `${BASE}/invitations/t.k`, expiresAt: new Date('2027-07-01T00:00:00Z') })
+    withLink(inv, 'Open the invitation', `${BASE}/invitations/t.k`)
+    const reminder = reminderMail({ competitionName: 'Moor Open', firstContestDay: '2027-07-12', pilotName: 'Ann', compId: 'K7', openItems: [], url: ENTRY })
+    expect(reminder.text).not.toMatch(/fee/)
+    withLink(reminder, 'Open your entry', ENTRY)
   })
 })
