@@ -1,6 +1,7 @@
 // Findings: the check engine (shared/engine) run over the dossiers the read model loads —
 // one entry's for its page, a few for an entrant's list, the whole competition's for the
 // staff's tables, exports and the pre-event reminder.
+import { entryVerdict } from '#shared/utils/entry-verdict'
 import type { Knex } from 'knex'
 import { blockingFirst, evaluate, type Finding } from '#shared/engine'
 import type { CompetitionFindings, EntryFindings, FindingCounts } from '#shared/types/api-findings'
@@ -12,16 +13,13 @@ export interface EvaluatedEntry {
   findings: Finding[]
 }
 
-/** Findings counted as every screen counts them: the pilot's blocking ones, those in review, advisory. */
+/**
+ * Findings counted as every screen counts them (`entryVerdict`, competition-wide waivers aside):
+ * the pilot's blocking ones, those waiting for review, advisory.
+ */
 export function countFindings(findings: readonly Finding[]): FindingCounts {
-  let blocking = 0
-  let inReview = 0
-  for (const f of findings) {
-    if (f.severity !== 'blocking') continue
-    if (f.awaiting === 'review') inReview++
-    else blocking++
-  }
-  return { blocking, advisory: findings.length - blocking - inReview, inReview }
+  const v = entryVerdict({ status: 'accepted', findings })
+  return { blocking: v.pilot.length, advisory: v.advisory.length, inReview: v.inReview.length }
 }
 
 /**
