@@ -370,9 +370,11 @@ describe('deciding', () => {
     expect(mail.text_body.includes('The entry fee is not paid yet')).toBe(!paid)
     expect(mail.text_body).not.toContain('make sure')
     expect((await w.organiser.client.post(`${path()}/accept`)).status).toBe(409)
-    const patch = await w.entrant.client.request('PATCH', path(), { pilotPhone: '2' })
+    // Accepted: the entrant keeps contact data current, but the competition ID is the office's.
+    expect((await w.entrant.client.request('PATCH', path(), { pilotPhone: '+44 7700 900222' })).status).toBe(200)
+    const patch = await w.entrant.client.request('PATCH', path(), { compId: 'KZ' })
     expect(patch.status).toBe(403)
-    expect(patch.body.message).toBe('This entry is accepted: only the organiser can change it now.')
+    expect(patch.body.message).toBe('The entry is accepted: only the office changes its competition ID now. Ask them with a message from the entry page.')
   })
 })
 
@@ -384,7 +386,8 @@ describe('my entries', () => {
     expect(mine).toMatchObject({ competitionName: 'Entries Cup', className: 'Standard', compId: 'KT', status: 'accepted', paymentStatus: 'unpaid' })
     expect(mine.missing).toContain('Pay the entry fee.')
     expect(mine.missing).toContain('Upload the airworthiness review.')
-    expect(mine.nextStep).toMatch(/^The entry is accepted\. Before the event: /)
+    // Its findings are the pilot's next step (the first one to put right), not "complete".
+    expect(mine.nextStep).toMatch(/^The entry is accepted, but \d+ findings keep the glider from flying\. Put right first: /)
     expect(res.body.entries.every((e: { id: string }) => e.id !== undefined)).toBe(true)
     expect((await w.otherEntrant.client.get('/api/me/entries')).body.entries.some((e: { id: string }) => e.id === entryId)).toBe(false)
   })

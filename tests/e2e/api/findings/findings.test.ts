@@ -90,7 +90,7 @@ describe('GET /api/competitions/:id/entries/:entryId/findings', () => {
     const { body } = await w.entrant.client.get('/api/me/entries')
     const mine = body.entries.find((e: any) => e.id === entryId)
     const { body: f } = await w.entrant.client.get(findingsPath)
-    expect(mine.findings).toEqual({ blocking: f.blocking, advisory: f.advisory })
+    expect(mine.findings).toEqual({ blocking: f.blocking, advisory: f.advisory, inReview: f.inReview })
     expect(mine.findings.blocking).toBeGreaterThan(0)
   })
 })
@@ -204,7 +204,7 @@ describe('the staff entries table: findings column, filter and CSV', () => {
     expect(res.status).toBe(200)
     const fx = res.body.rows.find((r: any) => r.compId === 'FX')
     const { body: f } = await w.entrant.client.get(findingsPath)
-    expect(fx.findings).toEqual({ blocking: f.blocking, advisory: f.advisory })
+    expect(fx.findings).toEqual({ blocking: f.blocking, advisory: f.advisory, inReview: f.inReview })
   })
 
   it('filters by has blocking, has advisory and none, server side', async () => {
