@@ -4,6 +4,8 @@ import { MESSAGES } from '#shared/constants/messages'
 export interface ErrorSummaryItem {
   /** The id of the field to jump to, or undefined for a whole-form message. */
   fieldId?: string
+  /** The field's name as its label shows it; the summary reads it from the label when absent. */
+  label?: string
   message: string
 }
 
@@ -11,7 +13,7 @@ export interface ErrorSummaryItem {
  * Error state for one form. Client-side zod errors and the API's 400 body share one shape
  * ({ fieldErrors, formErrors }), so both land in the same place and read the same to the user.
  */
-export function useFormErrors<F extends string>(fields: readonly F[], fieldId: (field: F) => string) {
+export function useFormErrors<F extends string>(fields: readonly F[], fieldId: (field: F) => string, labelOf?: (field: F) => string | undefined) {
   // shallowRef: each update replaces the whole object, and a generic key type survives unwrapping.
   const fieldErrors = shallowRef<Partial<Record<F, string[]>>>({})
   const formErrors = shallowRef<string[]>([])
@@ -19,7 +21,7 @@ export function useFormErrors<F extends string>(fields: readonly F[], fieldId: (
   const summary = computed<ErrorSummaryItem[]>(() => [
     ...fields.flatMap((f) => {
       const first = fieldErrors.value[f]?.[0]
-      return first ? [{ fieldId: fieldId(f), message: first }] : []
+      return first ? [{ fieldId: fieldId(f), label: labelOf?.(f), message: first }] : []
     }),
     ...formErrors.value.map(message => ({ message })),
   ])

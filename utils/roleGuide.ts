@@ -102,6 +102,35 @@ export const ROLE_GUIDE: Record<Role, RoleGuide> = {
   },
 }
 
+/**
+ * The header's links per role in each competition held: the page a role works from, and its
+ * second most used. Entrants have none here: "My entries" serves every competition at once.
+ */
+export const HEADER_LINKS: Record<Role, RoleLink[]> = {
+  organiser: [
+    { label: 'Entries', path: '/entries' },
+    { label: 'Set-up', path: '/setup' },
+  ],
+  director: [
+    { label: 'Readiness board', path: '/board' },
+    { label: 'Contest days', path: '/days' },
+  ],
+  scrutineer: [
+    { label: 'Launch grid', path: '/grid' },
+    { label: 'Document review', path: '/documents' },
+  ],
+  entrant: [],
+}
+
+/** The header links of one competition for the roles held there, once each, in role order. */
+export function headerLinksOf(competitionId: string, roles: readonly Role[]): { label: string, to: string }[] {
+  const seen = new Set<string>()
+  return sortRoles(roles)
+    .flatMap(role => HEADER_LINKS[role])
+    .filter(link => !seen.has(link.path) && seen.add(link.path))
+    .map(link => ({ label: link.label, to: roleLinkTo(competitionId, link.path) }))
+}
+
 export function sortRoles(roles: readonly Role[]): Role[] {
   return ROLE_ORDER.filter(r => roles.includes(r))
 }

@@ -58,15 +58,37 @@ export type WaiverWithdrawBody = z.infer<typeof waiverWithdrawBodySchema>
 
 export const waiverParamsSchema = competitionParamsSchema.extend({ entryId: uuid, actionId: uuid })
 
-export const AUDIT_PAGE_SIZE = 100
+export const AUDIT_PAGE_SIZE = 50
 
-/** GET …/audit — filters combine; `before` pages back by id. */
+/**
+ * The audit page's cursor: the time (UTC, to the microsecond) and id of the last row shown,
+ * as `2026-12-04T09:12:33.123456Z_42`. Rows are ordered by (time, id), newest first.
+ */
+export const AUDIT_CURSOR_PATTERN = /^(\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}(?:\.\d{1,6})?Z)_(\d{1,15})$/
+const BAD_CURSOR = 'This page link of the audit log is not valid: start again from the newest rows.'
+export const auditCursorSchema = z.string({ error: BAD_CURSOR })
+  .regex(AUDIT_CURSOR_PATTERN, { error: BAD_CURSOR })
+  // A real instant (zod runs this even after the pattern failed, so it reads defensively).
+  .refine((v) => {
+    const at = AUDIT_CURSOR_PATTERN.exec(v)?.[1]
+    if (at === undefined) return true
+    const t = Date.parse(at) // rolls 30 February over: compare back so the database never sees it
+    return !Number.isNaN(t) && new Date(t).toISOString().slice(0, 19) === at.slice(0, 19)
+  }, { error: BAD_CURSOR })
+  .transform((v) => {
+    const [, at, id] = AUDIT_CURSOR_PATTERN.exec(v)!
+    return { at: at!, id: Number(id) }
+  })
+export type AuditCursor = z.output<typeof auditCursorSchema>
+export const auditCursorOf = (c: AuditCursor) => `${c.at}_${c.id}`
+
+/** GET …/audit — filters combine; `before` pages back from the cursor of the last row shown. */
 export const auditQuerySchema = z.object({
   day: isoDate.optional(),
   entryId: uuid.optional(),
   actorId: uuid.optional(),
   action: z.string().trim().min(1).max(60).regex(/^[a-z0-9.-]+$/, { error: 'An action is written like grid-check.recorded.' }).optional(),
-  before: z.coerce.number({ error: 'Page with the id of the last row shown.' }).int().positive().optional(),
+  before: auditCursorSchema.optional(),
   limit: z.coerce.number({ error: 'Ask for a number of rows.' }).int().min(1).max(500, { error: 'Ask for at most 500 rows at a time.' }).optional(),
 })
 export type AuditQuery = z.infer<typeof auditQuerySchema>

@@ -207,8 +207,8 @@ export interface AuditLogItem {
 
 export interface AuditPage {
   rows: AuditLogItem[]
-  /** Pass as `before` for the next (older) page; null at the end. */
-  nextBefore: number | null
+  /** Pass as `before` for the next (older) page (the last row's time and id); null at the end. */
+  nextBefore: string | null
   /** For the filters: who and what appear in this competition's log. */
   actors: { id: string, name: string }[]
   actions: string[]

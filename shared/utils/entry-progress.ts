@@ -63,6 +63,9 @@ const REQUIRED_FIELDS: { field: keyof ProgressEntry, text: string }[] = [
   { field: 'emptyMassKg', text: 'Enter the glider’s empty mass.' },
 ]
 
+/** The entry's own fields submitting needs (a draft may be saved without them). */
+export const FIELDS_NEEDED_TO_SUBMIT: readonly (keyof ProgressEntry)[] = REQUIRED_FIELDS.map(f => f.field)
+
 function blank(v: unknown): boolean {
   return v === null || v === undefined || (typeof v === 'string' && v.trim() === '')
 }

@@ -1,7 +1,7 @@
 // The organiser's set-up page and the firmware catalogue, in a competition of the test's own.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { GOOD_PASSWORD } from '../support/api'
-import { closeTestDb, testDb } from '../support/db'
+import { closeTestDb, createClass, testDb } from '../support/db'
 import { gotoApp, launchBrowser, openPage, screenshot, signInThroughForm, type Browser } from '../support/browser'
 import { competitionWithRoles, type RoleClients } from '../support/setup'
 
@@ -157,6 +157,61 @@ describe('set-up page', () => {
     }
     finally {
       await page.close()
+    }
+  })
+})
+
+describe('set-up page keeps every change', () => {
+  it('saves a changed class fee with "Save set-up", so it survives a reload, and asks before unsaved changes are left', async () => {
+    const own = await competitionWithRoles(baseUrl, 'Browser Fee Cup')
+    const classId = await createClass(own.competitionId, 'Club', 20000)
+    const email = (await testDb()('users').where({ id: own.ids.organiser }).first('email')).email
+    await browser.context.clearCookies()
+    const page = await openPage(browser.context, baseUrl, '/sign-in', 'desk')
+    const dialogs: string[] = []
+    try {
+      const path = `/competitions/${own.competitionId}/setup`
+      await signInThroughForm(page, baseUrl, email, GOOD_PASSWORD, path)
+      const club = page.getByRole('form', { name: 'Class Club' })
+      await club.getByLabel('Entry fee (EUR)').fill('210')
+      await club.getByTestId('setup-class-unsaved').waitFor()
+      // The page's own save takes the class change with it.
+      await page.getByRole('button', { name: 'Save set-up' }).click()
+      await expect.poll(() => page.getByTestId('setup-saved').textContent()).toContain('with 1 class')
+      expect((await testDb()('classes').where({ id: classId }).first()).entry_fee_minor).toBe(21000)
+      await gotoApp(page, baseUrl, path)
+      expect(await page.getByRole('form', { name: 'Class Club' }).getByLabel('Entry fee (EUR)').inputValue()).toBe('210.00')
+      await screenshot(page, 'setup-saved-with-class-desk')
+
+      // A change not saved: leaving asks first; staying keeps it, leaving then goes.
+      await page.getByRole('form', { name: 'Class Club' }).getByLabel('Entry fee (EUR)').fill('999')
+      page.once('dialog', (d) => {
+        dialogs.push(`${d.type()}: ${d.message()}`)
+        void d.dismiss()
+      })
+      await page.locator('main').getByRole('link', { name: 'Firmware catalogue' }).click()
+      await expect.poll(() => dialogs.length).toBe(1)
+      expect(dialogs[0]).toBe('confirm: You have changes that are not saved. Leave this page and lose them?')
+      expect(new URL(page.url()).pathname).toBe(path)
+      expect(await page.getByRole('form', { name: 'Class Club' }).getByLabel('Entry fee (EUR)').inputValue()).toBe('999')
+
+      // Closing the tab gets the browser's own warning.
+      page.once('dialog', (d) => {
+        dialogs.push(d.type())
+        void d.dismiss()
+      })
+      await page.close({ runBeforeUnload: true })
+      await expect.poll(() => dialogs.length).toBe(2)
+      expect(dialogs[1]).toBe('beforeunload')
+      expect(page.isClosed()).toBe(false)
+
+      page.once('dialog', d => void d.accept())
+      await page.locator('main').getByRole('link', { name: 'Firmware catalogue' }).click()
+      await page.waitForURL(url => url.pathname === `/competitions/${own.competitionId}/firmware`)
+      expect((await testDb()('classes').where({ id: classId }).first()).entry_fee_minor).toBe(21000)
+    }
+    finally {
+      if (!page.isClosed()) await page.close()
     }
   })
 })

@@ -1,10 +1,10 @@
 // Reading the audit log: the organiser's and director's audit page (filter by day, entry,
-// actor and action; paged back by id) and an entry's timeline (every grid check, finding
+// actor and action; paged back by (time, id)) and an entry's timeline (every grid check, finding
 // change, hold, release and waiver, with who and when). The log itself is written by
 // `audit()` in the transaction of each change (audit.ts) and is append-only.
 import type { Knex } from 'knex'
 import type { IsoDate } from '#shared/engine'
-import { AUDIT_PAGE_SIZE, type AuditQuery } from '#shared/schemas/board'
+import { AUDIT_PAGE_SIZE, auditCursorOf, type AuditQuery } from '#shared/schemas/board'
 import type { AuditPage, AuditLogItem, EntryTimeline, TimelineItem, TimelineKind } from '#shared/types/api-board'
 import { READINESS_LABELS, type Readiness } from '#shared/constants/readiness'
 import { useDb } from '#server/utils/db'
@@ -63,9 +63,12 @@ export async function auditPage(competition: { id: string, time_zone: string }, 
   if (query.entryId) forEntry(q, query.entryId)
   if (query.actorId) q.where('a.actor_user_id', query.actorId)
   if (query.action) q.where('a.action', query.action)
-  if (query.before) q.where('a.id', '<', query.before)
+  // Keyset paging on (time, id): stable while new rows arrive, and cheap however far back.
+  if (query.before) q.whereRaw('(a.at, a.id) < (?::timestamptz, ?)', [query.before.at, query.before.id])
+  // The cursor keeps the microseconds PostgreSQL stores (a JavaScript Date would drop them).
+  q.select(db.raw(`to_char(a.at at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"') as cursor_at`))
   const [rows, actors, actions] = await Promise.all([
-    q.orderBy('a.id', 'desc').limit(limit + 1) as Promise<AuditJoinedRow[]>,
+    q.orderBy([{ column: 'a.at', order: 'desc' }, { column: 'a.id', order: 'desc' }]).limit(limit + 1) as Promise<(AuditJoinedRow & { cursor_at: string })[]>,
     db('audit_log as a').join('users as u', 'u.id', 'a.actor_user_id').where('a.competition_id', competition.id)
       .distinct('u.id', 'u.name').orderBy('u.name') as Promise<{ id: string, name: string }[]>,
     db('audit_log').where({ competition_id: competition.id }).distinct('action').orderBy('action') as Promise<{ action: string }[]>,
@@ -73,7 +76,7 @@ export async function auditPage(competition: { id: string, time_zone: string }, 
   const page = rows.slice(0, limit)
   return {
     rows: page.map(toAuditRow),
-    nextBefore: rows.length > limit ? Number(page[page.length - 1]!.id) : null,
+    nextBefore: rows.length > limit ? auditCursorOf({ at: page[page.length - 1]!.cursor_at, id: Number(page[page.length - 1]!.id) }) : null,
     actors: actors.map(a => ({ id: a.id, name: a.name })),
     actions: actions.map(a => a.action),
   }

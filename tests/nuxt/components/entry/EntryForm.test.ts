@@ -25,6 +25,34 @@ const initial: EntryView = {
 }
 
 describe('EntryForm', () => {
+  it('starts a new entry with the signed-in pilot’s name and marks what saving and submitting need', async () => {
+    const session = useSessionStore()
+    session.user = { id: 'u1', email: 'rosa@example.org', name: 'Rosa Pilot', isAdmin: false }
+    const form = await mountSuspended(EntryForm, { props: { mode: 'create', classes, submitLabel: 'Save', busyLabel: '…', action: async () => {} } })
+    cleanups.push(() => {
+      form.unmount()
+      session.user = null
+    })
+    expect((form.get('#entry-new-pilotName').element as HTMLInputElement).value).toBe('Rosa Pilot')
+    expect(form.get('[data-testid="entry-signed-in-as"]').text()).toContain('rosa@example.org')
+    const mark = (f: string) => form.find(`label[for="entry-new-${f}"] [data-mark]`).attributes('data-mark')
+    expect(['classId', 'pilotName', 'gliderType', 'registration', 'compId'].map(mark)).toEqual(Array(5).fill('required'))
+    expect(['pilotNationality', 'pilotLicenceNumber', 'pilotPhone', 'emergencyContact', 'spanM', 'mtomKg', 'emptyMassKg'].map(mark)).toEqual(Array(7).fill('submit'))
+    expect(form.find('label[for="entry-new-copilotName"] [data-mark]').exists()).toBe(false)
+  })
+
+  it('keeps the stored pilot name when changing an entry', async () => {
+    const session = useSessionStore()
+    session.user = { id: 'u1', email: 'rosa@example.org', name: 'Rosa Pilot', isAdmin: false }
+    const form = await mountSuspended(EntryForm, { props: { mode: 'edit', classes, initial, submitLabel: 'Save', busyLabel: '…', action: async () => {} } })
+    cleanups.push(() => {
+      form.unmount()
+      session.user = null
+    })
+    expect((form.get('#entry-edit-pilotName').element as HTMLInputElement).value).toBe('Erin Entrant')
+    expect(form.find('[data-testid="entry-signed-in-as"]').exists()).toBe(false)
+  })
+
   it('shows the chosen class’s limits beside the class select', async () => {
     const form = await mountSuspended(EntryForm, { props: { mode: 'create', classes, submitLabel: 'Save', busyLabel: '…', action: async () => {} } })
     cleanups.push(() => form.unmount())

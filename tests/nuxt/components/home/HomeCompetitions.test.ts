@@ -28,12 +28,21 @@ describe('HomeCompetitions', () => {
     expect(home.find('[data-testid="admin-note"]').exists()).toBe(false)
   })
 
-  it('explains the empty state', async () => {
+  it('offers someone in no competition yet the open ones, each with a way to enter a glider', async () => {
+    registerEndpoint('/api/competitions/open', () => ({
+      competitions: [{
+        competitionId: 'c5', name: 'Spring Open', airfieldName: 'Hill Field', firstContestDay: '2027-05-01',
+        lastContestDay: '2027-05-08', registrationClosesOn: null, classes: [{ id: 'k1', name: 'Club' }], myEntries: 0,
+      }],
+    }))
     const session = useSessionStore()
     session.user = user
     session.memberships = []
     const home = await mountSuspended(HomeCompetitions)
-    expect(home.get('[data-testid="no-competitions"]').text()).toContain('No competitions yet')
+    expect(home.get('[data-testid="no-competitions"]').text()).toContain('You take part in no competition yet')
+    const open = home.get('[data-testid="home-open-competition"]')
+    expect(open.text()).toContain('Spring Open')
+    expect(open.get('a[href="/competitions/c5/entries/new"]').text()).toContain('Enter a glider')
   })
 
   it('shows site admins the administration note and every competition, not only their memberships', async () => {
