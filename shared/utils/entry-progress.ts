@@ -3,6 +3,7 @@
 import { DOCUMENT_KIND_LABELS, type DocumentKind, type EntryStatus, type PaymentStatus } from '../constants/entries'
 import type { CompetitionRules } from '../schemas/competition'
 import type { Finding } from '../engine/types'
+import type { DirectorAction } from '../engine/readiness'
 import { entryVerdict, type Actor } from './entry-verdict'
 
 export interface ProgressEntry {
@@ -30,6 +31,9 @@ export interface ProgressInput {
   paymentStatus: PaymentStatus
   /** The engine's findings, so the next step says what blocks and who acts (entry-verdict.ts). */
   findings?: readonly Finding[]
+  /** The open contest day and the director's actions that count on it (its waivers lift findings for that day). */
+  day?: string | null
+  actions?: readonly DirectorAction[]
 }
 
 export interface MissingItem {
@@ -124,7 +128,7 @@ export function entryProgress(input: ProgressInput): EntryProgress {
   }
 
   const submittable = !missing.some(m => m.blocksSubmit)
-  const verdict = entryVerdict({ status: entry.status, findings: input.findings ?? [] })
+  const verdict = entryVerdict({ status: entry.status, findings: input.findings ?? [], day: input.day ?? null, actions: input.actions ?? [] })
   return {
     missing: entry.status === 'withdrawn' ? [] : missing,
     submittable,
@@ -157,6 +161,10 @@ function nextStep(entry: ProgressEntry, missing: MissingItem[], submittable: boo
         : `Wait for the organiser to accept the entry.${reviewing}`
     case 'accepted':
       if (toFix) return `The entry is accepted, but ${count === 1 ? '1 finding keeps' : `${count} findings keep`} the glider from flying. Put right first: ${toFix.fixHint}${reviewing}`
+      if (verdict.waived.some(f => f.severity === 'blocking')) {
+        const waived = verdict.waived.filter(f => f.severity === 'blocking')
+        return `The entry is accepted and nothing blocks today: the contest director waived ${waived.length === 1 ? '1 finding' : `${waived.length} findings`} (see Findings). Put ${waived.length === 1 ? 'it' : 'them'} right before the waiver ends: ${waived[0]!.fixHint}${reviewing}`
+      }
       if (first) return `The entry is accepted. Before the event: ${first}${reviewing}`
       if (reviewing) return `The entry is accepted.${reviewing}`
       return 'The entry is accepted and nothing blocks. Bring the glider to scrutineering.'

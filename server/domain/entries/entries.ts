@@ -27,6 +27,8 @@ import { enqueueMail } from '#domain/mail/outbox'
 import { entryAcceptedMail, entryRejectedMail, entrySubmittedMail, entryToReviewMail, ruleLink } from '#domain/mail/templates'
 import { rolesInCompetition } from '#domain/people/memberships'
 import { iso, num } from '#domain/read-model/values'
+import { actionsQuery, type BoardActionRow, toTileAction } from '#domain/read-model/day-inputs'
+import type { TileAction } from '#shared/utils/board-tile'
 import type { EntryAccess } from '#server/utils/authz'
 import { together, useDb } from '#server/utils/db'
 import { httpError } from '#server/utils/errors'
@@ -414,14 +416,23 @@ export async function createEntry(user: User, competitionId: string, body: Entry
 // ---------------------------------------------------------------------------------------
 // The dossier
 
+/** The open day and the director's actions that count on it for one entry (none while no day is open). */
+async function openDayActions(competitionId: string, entryId: string, db: Knex): Promise<{ day: string | null, actions: TileAction[] }> {
+  const open = await db('board_days').where({ competition_id: competitionId }).whereNull('closed_at').first('day') as { day: string } | undefined
+  if (!open) return { day: null, actions: [] }
+  const rows = await actionsQuery(db, competitionId, open.day, [entryId]) as BoardActionRow[]
+  return { day: open.day, actions: rows.map(toTileAction) }
+}
+
 export async function loadDossier(access: EntryAccess, db: Knex = useDb()): Promise<EntryDossier> {
   const entry = await readEntry(db, access.entry.id)
-  const [units, classes, window, extras, findings] = await together(db, [
+  const [units, classes, window, extras, findings, onTheDay] = await together(db, [
     () => listUnits([entry.id], db),
     () => listClasses(entry.competition_id, db),
     () => registrationWindow(entry.competition_id, db),
     () => dossierExtras([entry.id], db),
     () => entryFindings(entry.competition_id, entry.id, db),
+    () => openDayActions(entry.competition_id, entry.id, db),
   ] as const)
   const { documents, igcFiles, payments } = extras.get(entry.id) ?? NO_EXTRAS
   const rules = rulesOf(access.competition.settings)
@@ -449,7 +460,7 @@ export async function loadDossier(access: EntryAccess, db: Knex = useDb()): Prom
     documents,
     igcFiles,
     payments,
-    progress: entryProgress({ entry: view, units: unitViews, rules, documents, igcFiles, paymentStatus: entry.payment_status, findings: findings.findings }),
+    progress: entryProgress({ entry: view, units: unitViews, rules, documents, igcFiles, paymentStatus: entry.payment_status, findings: findings.findings, ...onTheDay }),
     findings: findings.findings,
     can: permissions(access, entry, window),
     roles: access.roles as Role[],

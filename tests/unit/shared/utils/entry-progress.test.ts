@@ -87,6 +87,10 @@ describe('entryProgress', () => {
     const k7 = { checkId: 'firmware.valid-through-contest', severity: 'blocking' as const, reason: 'The firmware expires 2027-07-15.', fixHint: 'Update the firmware, then enter the new version and expiry date.' }
     const inReview = { checkId: 'documents.required', severity: 'blocking' as const, awaiting: 'review' as const, reason: 'The insurance document is waiting for a scrutineer’s review.', fixHint: 'Nothing for the pilot to do.' }
     expect(progress({ entry: { ...complete, status: 'accepted' }, findings: [k7] }).nextStep).toBe('The entry is accepted, but 1 finding keeps the glider from flying. Put right first: Update the firmware, then enter the new version and expiry date.')
+    // G5's case: the director waived the finding for the open day; the next step agrees with "Ready".
+    const waiver = { kind: 'waiver' as const, day: '2027-07-13', checkId: 'firmware.valid-through-contest' }
+    expect(progress({ entry: { ...complete, status: 'accepted' }, findings: [k7], day: '2027-07-13', actions: [waiver] }).nextStep)
+      .toBe('The entry is accepted and nothing blocks today: the contest director waived 1 finding (see Findings). Put it right before the waiver ends: Update the firmware, then enter the new version and expiry date.')
     expect(progress({ entry: { ...complete, status: 'accepted' }, findings: [inReview] })).toMatchObject({
       nextStep: 'The entry is accepted. One document waits for a scrutineer’s review; nothing for you to do there.',
       open: { pilot: 0, inReview: 1, actor: 'office' },
