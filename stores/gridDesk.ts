@@ -1,5 +1,6 @@
 import { dateInZone } from '#shared/engine'
 import type { GridCheckBody } from '#shared/schemas/grid'
+import { withUnitsShown } from '#shared/utils/units-shown'
 import type { GridCheckResult, GridPack, GridPackEntry } from '#shared/types/api-grid'
 import {
   attentionItems, dismissAttention, enqueueCheck, idbQueueStorage, loadPack, queuedChecks, saveScan, savePack, scansOf,
@@ -90,12 +91,24 @@ export const useGridDeskStore = defineStore('gridDesk', () => {
     void sync()
   }
 
+  /**
+   * "The unit shows another version": the kept pack takes the units as shown, so the glider
+   * reads the same on this phone before the server's next pack says so too.
+   */
+  async function keepUnitsShown(body: GridCheckBody): Promise<void> {
+    const kept = pack.value?.entries.find(e => e.dossier.entry.id === body.entryId)
+    if (!pack.value || !kept || !body.unitsShown?.length) return
+    kept.dossier = withUnitsShown(kept.dossier, body.unitsShown)
+    await savePack(JSON.parse(JSON.stringify(pack.value)) as GridPack)
+  }
+
   /** Writes the check to IndexedDB first, then tries to send it. */
   async function submit(input: { competitionId: string, compId: string, gliderType: string, body: GridCheckBody, readiness: LocalScan['readiness'], outcome: LocalScan['outcome'] }): Promise<'recorded' | 'waiting' | 'attention'> {
     // Plain data only: IndexedDB cannot clone Vue's reactive proxies (a weigh-in typed in a form).
     const body = JSON.parse(JSON.stringify(input.body)) as GridCheckBody
     const item: QueuedCheck = { idempotencyKey: body.idempotencyKey, competitionId: input.competitionId, compId: input.compId, userId: useSessionStore().user?.id, body, queuedAt: new Date().toISOString(), attempts: 0 }
     await enqueueCheck(item)
+    await keepUnitsShown(body)
     await saveScan({
       idempotencyKey: item.idempotencyKey, competitionId: input.competitionId, day: input.body.day, entryId: input.body.entryId,
       compId: input.compId, gliderType: input.gliderType, readiness: input.readiness, outcome: input.outcome, checkedAt: input.body.checkedAt,

@@ -31,6 +31,13 @@ export const DEFAULT_CHECKLIST: readonly ChecklistItem[] = [
 ]
 
 /**
+ * The checklist item whose fourth answer is "the unit shows another version": the scrutineer
+ * types what the collision-warning unit displays and the check corrects the dossier. A
+ * competition's own checklist without this item offers the same under the units.
+ */
+export const UNIT_VERSION_ITEM_ID = 'cwu-firmware'
+
+/**
  * The item a class without water ballast adds to the day's checklist by itself (FAI Sporting
  * Code Section 3: the Club class flies without water ballast). Failing it raises the finding
  * `ballast.class-rule`.

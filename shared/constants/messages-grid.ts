@@ -7,4 +7,5 @@ export const GRID_MESSAGES = {
   gridUnknownItem: (itemId: string) => `“${itemId}” is not on this competition’s checklist; reload the grid page to get the current checklist.`,
   gridDuplicateItem: (itemId: string) => `“${itemId}” is answered twice; answer each checklist item once.`,
   gridDayOutOfRange: 'A grid check is for today or a recent day (within 14 days), not for a day in the future.',
+  gridUnitShownUnknown: 'The version shown is for a collision-warning unit this glider no longer has in its dossier. Reload the glider on the grid and record what its unit shows again.',
 } as const

@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { CHECK_RESULTS, FOUND_BY } from '../constants/grid'
 import { isoDate } from './competition'
+import { collisionWarningUnitSchema } from './entry'
 import { uuid } from './params'
 
 export { checklistItemSchema, checklistSchema } from './competition'
@@ -26,6 +27,16 @@ export const weighInInputSchema = z.object({
 }, { error: 'Send the weigh-in as an object.' })
 export type WeighInInput = z.infer<typeof weighInInputSchema>
 
+/**
+ * "The unit shows another version": what a collision-warning unit's own display showed on the
+ * grid where it differs from the dossier. The check corrects the unit in the dossier (the same
+ * audited change as the unit form) and the checks run on what the unit showed.
+ */
+export const unitShownSchema = collisionWarningUnitSchema.pick({ firmwareVersion: true, firmwareExpiresOn: true }).extend({
+  unitId: uuid,
+}).strict()
+export type UnitShown = z.infer<typeof unitShownSchema>
+
 /** One grid check as the phone sends it (queued offline under its own idempotency key). */
 export const gridCheckBodySchema = z.object({
   idempotencyKey: uuid,
@@ -37,7 +48,11 @@ export const gridCheckBodySchema = z.object({
   weighIn: weighInInputSchema.nullable().optional(),
   notes: z.string().trim().max(2000, { error: 'Keep the notes under 2,000 characters.' }).optional(),
   foundBy: z.enum(FOUND_BY).optional(),
-}, { error: 'Send the grid check as an object.' }).strict()
+  unitsShown: z.array(unitShownSchema).max(4, { error: 'A glider carries at most four collision-warning units.' }).optional(),
+}, { error: 'Send the grid check as an object.' }).strict().refine(
+  b => new Set((b.unitsShown ?? []).map(u => u.unitId)).size === (b.unitsShown ?? []).length,
+  { error: 'Each unit’s shown version is sent once.', path: ['unitsShown'] },
+)
 export type GridCheckBody = z.infer<typeof gridCheckBodySchema>
 
 export const gridDayQuerySchema = z.object({ day: isoDate })

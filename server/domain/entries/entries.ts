@@ -21,6 +21,7 @@ import { effectiveRoles } from '#shared/utils/access'
 import type { Role } from '#shared/constants/roles'
 import { audit } from '#domain/audit/audit'
 import { dossierChanged, noteChangeAfterAcceptance } from '#domain/board/dossier-changed'
+import { UNIT_FIELDS, writeUnitChange, type UnitField } from './unit-changes'
 import { findCompetition, listClasses } from '#domain/competitions/competitions'
 import { countFindings, entryFindings, findingsByEntry } from '#domain/findings/findings'
 import { enqueueMail } from '#domain/mail/outbox'
@@ -318,19 +319,6 @@ function fieldValue(row: EntryRow, field: EntryField): unknown {
   return NUMERIC_FIELDS.has(field) ? num(v as string | null) : (v ?? null)
 }
 
-const UNIT_FIELDS = {
-  model: 'model',
-  serial: 'serial',
-  firmwareVersion: 'firmware_version',
-  radioId: 'radio_id',
-  firmwareExpiresOn: 'firmware_expires_on',
-  firmwareUpdatedOn: 'firmware_updated_on',
-  obstacleDbVersion: 'obstacle_db_version',
-  obstacleDbExpiresOn: 'obstacle_db_expires_on',
-  approvalLevel: 'approval_level',
-  igcRecorderId: 'igc_recorder_id',
-} as const satisfies Record<string, keyof UnitRow>
-type UnitField = keyof typeof UNIT_FIELDS
 
 /** Every column of a unit from its body; fields the kind does not have are null. */
 function unitColumnsFromBody(body: UnitBody): Record<string, string | null> {
@@ -546,19 +534,10 @@ export async function updateUnit(access: EntryAccess, unitId: string, body: Unit
     if (current.kind !== body.kind) throw httpError(400, MESSAGES.unitKindFixed)
     if (body.kind === 'collision-warning') await assertRadioIdFree(trx, entry.competition_id, body.radioId, entry.id, unitId)
 
-    const next = unitColumnsFromBody(body)
-    const changed = (Object.entries(UNIT_FIELDS) as [UnitField, keyof UnitRow][])
-      .filter(([, column]) => (current[column] ?? null) !== next[column])
+    const changed = await writeUnitChange(trx, {
+      competitionId: entry.competition_id, entryId: entry.id, current, next: unitColumnsFromBody(body), actorUserId: access.user.id,
+    })
     if (!changed.length) return toUnitView(current)
-    await trx('units').where({ id: unitId }).update({ ...next, updated_at: trx.fn.now() })
-    await trx('entries').where({ id: entry.id }).update({ updated_at: trx.fn.now() })
-    for (const [field, column] of changed) {
-      await audit(trx, {
-        actorUserId: access.user.id, competitionId: entry.competition_id, action: 'unit.updated', subjectType: 'unit', subjectId: unitId,
-        details: { entryId: entry.id, field, from: current[column] ?? null, to: next[column] },
-      })
-    }
-    await noteChangeAfterAcceptance(trx, [entry.id])
     await dossierChanged(trx, entry.competition_id, [entry.id], access.user.id)
     const [row] = await trx('units').where({ id: unitId }).select(UNIT_COLUMNS)
     return toUnitView(row)

@@ -4,19 +4,23 @@
 // its weigh-in, the engine's findings including that weigh-in, the readiness, the audit row,
 // and on an open day the entry's board tile (pushed to the boards once committed).
 // Two scrutineers on one entry both get a row; the later check (by checked_at) counts.
+// "The unit shows another version" (`unitsShown`) corrects the collision-warning unit in the
+// dossier in the same transaction, through the unit form's audited change, before the checks run.
 import { createHash, randomUUID } from 'node:crypto'
 import type { Knex } from 'knex'
 import { blockingFirst, checkOutcome, evaluate, readiness, takeOffMass, withGridCheck, type DirectorAction, type Finding, type IsoDate, type Readiness } from '#shared/engine'
 import type { ChecklistItem } from '#shared/constants/grid'
 import { MESSAGES } from '#shared/constants/messages'
-import type { GridCheckBody } from '#shared/schemas/grid'
+import type { GridCheckBody, UnitShown } from '#shared/schemas/grid'
 import type { ChecklistAnswer, GridCheckList, GridCheckRecord, GridCheckResult, GridCheckSummary } from '#shared/types/api-grid'
 import type { GridCheckRow, WeighInRow } from '#shared/types/rows-grid'
-import type { CompetitionRow } from '#shared/types/rows'
+import type { CompetitionRow, UnitRow } from '#shared/types/rows'
 import type { User } from '#auth-utils'
 import { sortedJson } from '#shared/utils/board-tile'
 import { auditRow } from '#domain/audit/audit'
+import { dossierChanged } from '#domain/board/dossier-changed'
 import { refreshTiles, toTileAction } from '#domain/board/tiles'
+import { writeUnitChange } from '#domain/entries/unit-changes'
 import { boardLockKey, boardTransaction } from '#domain/board/transaction'
 import { actionsQuery, type BoardActionRow, type CheckRow, latestGridCheckIds, type TileInputs, tileInputsStatement } from '#domain/read-model/day-inputs'
 import { type CompetitionDossiers, type DossierPartRow, dossiersOf, dossierStatement } from '#domain/read-model/dossiers'
@@ -27,6 +31,7 @@ import { gridDayAllowed, todayIn } from '#shared/utils/grid-days'
 import { initialsOf } from '#shared/utils/initials'
 import { rulesOf } from '#shared/utils/rules'
 import { checklistFor } from '#shared/utils/checklist'
+import { withUnitsShown } from '#shared/utils/units-shown'
 
 // ---------------------------------------------------------------------------------------
 // Pure parts
@@ -241,6 +246,30 @@ export function withCheck(inputs: TileInputs, check: CheckRow): TileInputs | und
   return now > was ? { ...inputs, checks: inputs.checks.map(c => (c === latest ? check : c)) } : inputs
 }
 
+/**
+ * Corrects the entry's collision-warning units to what their displays showed on the grid
+ * (the unit form's audited change, naming the grid check); true when anything changed.
+ */
+async function correctUnitsShown(trx: Knex.Transaction, entry: { id: string, competition_id: string }, shown: readonly UnitShown[], user: User, context: { gridCheckId: string, day: IsoDate }): Promise<boolean> {
+  if (!shown.length) return false
+  const rows: UnitRow[] = await trx('units').where({ entry_id: entry.id, kind: 'collision-warning' }).whereIn('id', shown.map(s => s.unitId)).forUpdate()
+  if (rows.length !== shown.length) throw fieldError('unitsShown', MESSAGES.gridUnitShownUnknown)
+  let any = false
+  for (const s of shown) {
+    const current = rows.find(r => r.id === s.unitId)!
+    const changed = await writeUnitChange(trx, {
+      competitionId: entry.competition_id,
+      entryId: entry.id,
+      current,
+      next: { firmware_version: s.firmwareVersion, firmware_expires_on: s.firmwareExpiresOn },
+      actorUserId: user.id,
+      context: { via: 'grid-check', ...context },
+    })
+    any ||= changed.length > 0
+  }
+  return any
+}
+
 export async function recordGridCheck(
   competition: CompetitionRow,
   user: User,
@@ -290,11 +319,16 @@ export async function recordGridCheck(
     // The take-off mass and CG the checks read: the readings, declared ballast and occupants.
     const weighed = body.weighIn && dossier ? takeOffMass(body.weighIn, dossier.entry) : null
 
+    // The units as their displays showed them, corrected in the dossier first.
+    const gridCheckId = randomUUID()
+    const unitsCorrected = await correctUnitsShown(trx, { id: entry.id, competition_id: competition.id }, body.unitsShown ?? [], user, { gridCheckId, day: body.day })
+
     // The engine over the dossier as this check leaves it: the check as the day's latest, its
-    // weigh-in as the day's last.
+    // weigh-in as the day's last, the units as shown.
     let findings: Finding[] = []
     if (loaded?.competition && dossier) {
-      findings = blockingFirst(evaluate(withGridCheck(dossier, { day: body.day, answers: stored.answers, weighIn: body.weighIn }), loaded.competition, loaded.field, body.day))
+      const checked = withGridCheck(withUnitsShown(dossier, body.unitsShown), { day: body.day, answers: stored.answers, weighIn: body.weighIn })
+      findings = blockingFirst(evaluate(checked, loaded.competition, loaded.field, body.day))
     }
     const actions: DirectorAction[] = actionRows.map(toTileAction)
     const ready: Readiness = readiness(findings, { day: body.day, outcome }, actions, body.day)
@@ -317,7 +351,6 @@ export async function recordGridCheck(
     const cgArmM = weighed && weighed.cgArmM !== null ? Math.round(weighed.cgArmM * 10_000) / 10_000 : null
     // The check, its weigh-in and its audit row in one statement; then the entry's tile on an
     // open day (pushed to the boards after commit).
-    const gridCheckId = randomUUID()
     const writing = trx.with('g', trx('grid_checks')
       .insert({ ...columns, id: gridCheckId, answers: JSON.stringify(stored.answers), findings: JSON.stringify(findings) })
       .returning(['received_at']))
@@ -349,6 +382,7 @@ export async function recordGridCheck(
         blocking: findings.filter(f => f.severity === 'blocking').map(f => f.checkId),
         massKg,
         idempotencyKey: body.idempotencyKey,
+        ...(body.unitsShown?.length ? { unitsShown: body.unitsShown } : {}),
       },
     })))
     const [row] = await writing.select('received_at').from('g') as { received_at: Date }[]
@@ -358,11 +392,11 @@ export async function recordGridCheck(
       // that brought a weigh-in has the tile read the dossier again, with the weigh-in where
       // the stored order puts it.
       // The dossier read carries the day's latest check before this one: with this check as the
-      // latest, its answers (the class's ballast item) count.
+      // latest, its answers (the class's ballast item) count. Corrected units: read again too.
       const check: CheckRow = { entry_id: entry.id, day: body.day, checked_at: body.checkedAt, outcome, answers: stored.answers, scrutineer_name: user.name }
       const inputs = withCheck(read.inputs, check)
       const latest = inputs?.checks.includes(check) ?? false
-      const dossiers = body.weighIn || !inputs
+      const dossiers = body.weighIn || unitsCorrected || !inputs
         ? undefined
         : latest ? { ...loaded!, dossiers: loaded!.dossiers.map(d => (d.entry.id === entry.id ? { ...d, gridCheck: { day: body.day, outcome, answers: stored.answers } } : d)) } : loaded!
       await refreshTiles(trx, competition.id, body.day, changes, {
@@ -371,6 +405,10 @@ export async function recordGridCheck(
         entryIds: [entry.id],
         preloaded: { dossiers, actions: actionRows, inputs },
       })
+    }
+    else if (unitsCorrected) {
+      // A check of an earlier day corrected the dossier: the open day's board learns it too.
+      await dossierChanged(trx, competition.id, [entry.id], user.id)
     }
     // The check as stored, from what was written (one statement fewer while the lock is held).
     const gridCheck = toGridCheckRecord({

@@ -2,7 +2,7 @@
 // and agreeing with the organiser's firmware catalogue.
 import { HARDWARE_CAUTION } from '../caution'
 import { addDays, addYears, daysBetween } from '../dates'
-import type { Check, Finding } from '../types'
+import type { Check, Finding, FirmwareRelease } from '../types'
 import { collisionWarningUnits, plural, unitLabel } from './helpers'
 
 export const firmwareValidThroughContest: Check = {
@@ -87,6 +87,11 @@ function sameText(a: string, b: string): boolean {
   return a.trim().toLowerCase() === b.trim().toLowerCase()
 }
 
+/** The organiser's catalogue release for a unit family (its model) and firmware version, if listed. */
+export function catalogueRelease(catalogue: readonly FirmwareRelease[] | undefined, model: string, version: string): FirmwareRelease | undefined {
+  return catalogue?.find(r => sameText(r.family, model) && sameText(r.version, version))
+}
+
 export const firmwareCatalogueMismatch: Check = {
   id: 'firmware.catalogue-mismatch',
   severity: 'advisory',
@@ -98,7 +103,7 @@ export const firmwareCatalogueMismatch: Check = {
     const out: Finding[] = []
     for (const u of collisionWarningUnits(dossier)) {
       if (!u.firmwareVersion) continue
-      const release = catalogue.find(r => sameText(r.family, u.model) && sameText(r.version, u.firmwareVersion!))
+      const release = catalogueRelease(catalogue, u.model, u.firmwareVersion)
       if (!release || release.expiresOn === u.firmwareExpiresOn) continue
       out.push({
         checkId: this.id,
