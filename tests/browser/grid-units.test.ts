@@ -4,9 +4,8 @@
 // from the organiser's catalogue), re-checks at once, and the recorded check corrects the
 // dossier. Screenshots in artifacts/screenshots/grid-units-*.png.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { GOOD_PASSWORD } from '../support/api'
 import { closeTestDb, testDb } from '../support/db'
-import { launchBrowser, openPage, screenshot, signInThroughForm, type Browser } from '../support/browser'
+import { launchBrowser, openGridCheck, screenshot, type Browser } from '../support/browser'
 import { gridEntry, gridWorld, type GridWorld } from '../support/grid'
 
 const baseUrl = inject('baseUrl')
@@ -35,12 +34,7 @@ afterAll(async () => {
 
 describe('the units on the grid phone', () => {
   it('shows the dossier’s unit data large, and records the version the unit shows', async () => {
-    const page = await openPage(browser.context, baseUrl, '/sign-in', 'phone')
-    const gridPath = `/competitions/${w.competitionId}/grid`
-    await signInThroughForm(page, baseUrl, w.scrutineer.email, GOOD_PASSWORD, gridPath)
-    await page.locator('[data-testid="grid-scanner"][data-ready="true"]').waitFor()
-    await page.goto(`${baseUrl}${gridPath}/${entryId}`)
-    await page.locator('[data-testid="grid-check"][data-ready="true"]').waitFor()
+    const page = await openGridCheck(browser, baseUrl, w.scrutineer.email, w.competitionId, entryId)
 
     const cw = page.locator('[data-testid="grid-unit"][data-kind="collision-warning"]')
     expect(await cw.getByTestId('grid-unit-firmware').textContent()).toContain('7.20')

@@ -3,9 +3,8 @@
 // sum, and the class-limit finding it raises (Standard, 525 kg). Screenshot in
 // artifacts/screenshots/grid-weigh-in-terms.png.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { GOOD_PASSWORD } from '../support/api'
 import { closeTestDb, createEntry } from '../support/db'
-import { launchBrowser, openPage, screenshot, signInThroughForm, type Browser } from '../support/browser'
+import { launchBrowser, openGridCheck, screenshot, type Browser } from '../support/browser'
 import { entriesWorld, type EntriesWorld } from '../support/entries'
 
 const baseUrl = inject('baseUrl')
@@ -26,12 +25,7 @@ afterAll(async () => {
 
 describe('the weigh-in at phone size', () => {
   it('shows the scale readings, the declared ballast and the pilot as terms of the take-off mass, and the class-limit finding', async () => {
-    const page = await openPage(browser.context, baseUrl, '/sign-in', 'phone')
-    const gridPath = `/competitions/${w.competitionId}/grid`
-    await signInThroughForm(page, baseUrl, w.scrutineer.email, GOOD_PASSWORD, gridPath)
-    await page.locator('[data-testid="grid-scanner"][data-ready="true"]').waitFor()
-    await page.goto(`${baseUrl}${gridPath}/${entryId}`)
-    await page.locator('[data-testid="grid-check"][data-ready="true"]').waitFor()
+    const page = await openGridCheck(browser, baseUrl, w.scrutineer.email, w.competitionId, entryId)
 
     await page.getByTestId('weigh-toggle').click()
     await page.getByTestId('weigh-weight-0').fill('380')

@@ -4,6 +4,7 @@ import { mkdir, mkdtemp, rm } from 'node:fs/promises'
 import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
 import { chromium, type BrowserContext, type Page } from 'playwright-core'
+import { GOOD_PASSWORD } from './api'
 
 declare module 'vitest' {
   export interface ProvidedContext {
@@ -112,4 +113,18 @@ export async function signInThroughForm(page: Page, baseUrl: string, email: stri
     page.waitForURL(url => !url.pathname.startsWith('/sign-in')),
     page.getByRole('button', { name: 'Sign in' }).click(),
   ])
+}
+
+/**
+ * A scrutineer's phone on a glider's grid check screen: signed in on the launch grid (which
+ * keeps the day's pack on the phone), then the glider's check, ready to answer.
+ */
+export async function openGridCheck(browser: Browser, baseUrl: string, email: string, competitionId: string, entryId: string): Promise<Page> {
+  const page = await openPage(browser.context, baseUrl, '/sign-in', 'phone')
+  const gridPath = `/competitions/${competitionId}/grid`
+  await signInThroughForm(page, baseUrl, email, GOOD_PASSWORD, gridPath)
+  await page.locator('[data-testid="grid-scanner"][data-ready="true"]').waitFor()
+  await page.goto(`${baseUrl}${gridPath}/${entryId}`)
+  await page.locator('[data-testid="grid-check"][data-ready="true"]').waitFor()
+  return page
 }
