@@ -2,7 +2,7 @@
 //
 //   setup      fresh PostgreSQL cluster in a new /tmp folder (fsync off, free port),
 //              database gridmark_test, migrations, demo data (browser tests sign in as the
-//              demo users), Chromium, build (if stale)
+//              demo users), Chromium, poppler-utils (the PDF tests), build (if stale)
 //   lint       eslint .
 //   typecheck  nuxt typecheck                 (both skipped with GRIDMARK_SKIP_STATIC=1)
 //   vitest     vitest run + the extra arguments, e.g. `npm test -- --project unit`
@@ -14,6 +14,7 @@ import type { ChildProcess } from 'node:child_process'
 import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { ensureBrowser } from './lib/browser'
+import { ensurePdfTools } from './lib/pdf-tools'
 import { ensureBuild } from './lib/build'
 import { artifactsDir, formatDuration, reportError, repoRoot, runInherited, ScriptError, step } from './lib/common'
 import { migrate, seed } from './lib/db'
@@ -92,6 +93,7 @@ async function setUp(): Promise<string> {
   await timed('migrations', () => migrate(url))
   await timed('demo data', () => seed(url, false, sessionSecret))
   await timed('Chromium', ensureBrowser)
+  await timed('poppler-utils', ensurePdfTools)
   await timed('build', ensureBuild)
   return url
 }

@@ -36,4 +36,9 @@ export const MESSAGES = {
   ...TAGS_MESSAGES,
   ...GRID_MESSAGES,
   ...BOARD_MESSAGES,
+
+  // --- The tracking list and the glider report (the office's paperwork) ---
+  trackingStaffOnly: 'The tracking list is for the competition’s organisers, scrutineers and contest director: it lists every glider’s radio IDs.',
+  trackingNoBoard: (day: string) => `No board was opened for ${day}. Leave out the board filter for every accepted entry, or open the day first.`,
+  reportClassStaffOnly: 'A class’s glider reports are for the competition’s organisers, scrutineers and contest director; an entrant prints their own entry’s report from the entry page.',
 } as const

@@ -61,7 +61,7 @@ describe('staff entries table', () => {
       await expect.poll(() => count(page)).toContain('1–1 of 1 entry')
       expect(await page.getByTestId('entry-row').first().textContent()).toMatch(/Accepted.*Paid|Accepted.*Unpaid|Accepted.*Refunded/)
       await screenshot(page, 'entries-filtered-wall')
-      const link = page.getByTestId('entry-row').first().getByRole('link')
+      const link = page.getByTestId('entry-row').first().getByRole('link').first()
       expect(await link.getAttribute('href')).toMatch(new RegExp(`^/competitions/${t.competitionId}/entries/[0-9a-f-]{36}$`))
       expect(await page.getByTestId('entries-export').getAttribute('href')).toContain('q=d-1007')
     }

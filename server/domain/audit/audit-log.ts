@@ -1,13 +1,15 @@
 // Reading the audit log: the organiser's and director's audit page (filter by day, entry,
 // actor and action; paged back by (time, id)) and an entry's timeline (every grid check, finding
-// change, hold, release and waiver, with who and when). The log itself is written by
-// `audit()` in the transaction of each change (audit.ts) and is append-only.
+// change, hold, release and waiver, with who and when), and the findings of some entries that
+// came and went (the glider report). The log itself is written by `audit()` in the transaction
+// of each change (audit.ts) and is append-only.
 import type { Knex } from 'knex'
 import type { IsoDate } from '#shared/engine'
 import { AUDIT_PAGE_SIZE, auditCursorOf, type AuditQuery } from '#shared/schemas/board'
 import type { AuditPage, AuditLogItem, EntryTimeline, TimelineItem, TimelineKind } from '#shared/types/api-board'
 import { READINESS_LABELS, type Readiness } from '#shared/constants/readiness'
 import { useDb } from '#server/utils/db'
+import type { FindingChange } from '#shared/utils/board-tile'
 import { iso } from '#domain/read-model/values'
 
 export interface AuditJoinedRow {
@@ -166,4 +168,39 @@ export async function entryTimeline(competitionId: string, entry: { id: string, 
   ]
   items.sort((a, b) => (a.at < b.at ? 1 : a.at > b.at ? -1 : 0))
   return { entryId: entry.id, compId: entry.comp_id, items }
+}
+
+// ---------------------------------------------------------------------------------------
+// Findings that came and went
+
+/** One `findings.changed` row of an entry: what appeared and what went, when and why. */
+export interface FindingChangeRecord {
+  entryId: string
+  at: string
+  day: IsoDate | null
+  cause: string | null
+  added: FindingChange[]
+  removed: FindingChange[]
+}
+
+/**
+ * The `findings.changed` rows of some entries (written while a day is open, as the board's
+ * tiles change), oldest first: what the glider report reads to name the findings fixed since.
+ */
+export async function findingChangesOf(competitionId: string, entryIds: readonly string[], db: Knex = useDb()): Promise<FindingChangeRecord[]> {
+  if (!entryIds.length) return []
+  const rows = await db('audit_log').where({ competition_id: competitionId, action: 'findings.changed', subject_type: 'entry' })
+    .whereIn('subject_id', [...entryIds]).orderBy([{ column: 'at' }, { column: 'id' }])
+    .select('subject_id', 'at', 'details') as { subject_id: string, at: Date, details: Record<string, unknown> | null }[]
+  return rows.map((r) => {
+    const d = r.details ?? {}
+    return {
+      entryId: r.subject_id,
+      at: iso(r.at),
+      day: typeof d.day === 'string' ? d.day as IsoDate : null,
+      cause: typeof d.cause === 'string' ? d.cause : null,
+      added: Array.isArray(d.added) ? d.added as FindingChange[] : [],
+      removed: Array.isArray(d.removed) ? d.removed as FindingChange[] : [],
+    }
+  })
 }

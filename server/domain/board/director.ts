@@ -6,7 +6,7 @@
 // then on. The engine's `readiness` reads these actions: a hold wins over everything, a
 // release ends the day's hold, a waiver lifts only its own finding.
 import type { Knex } from 'knex'
-import { blockingFirst, checkById, evaluate, type IsoDate } from '#shared/engine'
+import { blockingFirst, checkById, evaluate, type Finding, type IsoDate } from '#shared/engine'
 import { MESSAGES } from '#shared/constants/messages'
 import type { HoldBody, WaiverBody, WaiverWithdrawBody } from '#shared/schemas/board'
 import type { BoardEntryDetail, BoardFinding, DirectorActionRecord, DirectorActionResult, EntryWaiver } from '#shared/types/api-board'
@@ -296,6 +296,32 @@ export async function entryWaivers(access: CompetitionAccess, entryId: string, d
 }
 
 /**
+ * Each finding with the waiver that lifts it among `actions` (those that count on the day in
+ * question, in the order taken: the latest matching waiver wins). A withdrawn waiver lifts
+ * nothing; it stays in the list of actions, marked withdrawn.
+ */
+export function withWaivers(findings: readonly Finding[], actions: readonly DirectorActionRecord[]): BoardFinding[] {
+  const waivers = actions.filter(a => a.kind === 'waiver' && !a.withdrawal)
+  return findings.map((f) => {
+    const w = waivers.findLast(a => a.checkId === f.checkId
+      && (a.unitId === null || a.unitId === (f.unitId ?? null))
+      && (a.subject === null || a.subject === (f.subject ?? null)))
+    return { ...f, waiver: w ? { id: w.id, scope: w.scope!, reason: w.reason, by: w.actor.name, at: w.at } : null }
+  })
+}
+
+/**
+ * Every action of the director on some entries of a competition, on any day, withdrawn
+ * waivers included, oldest first: what the glider report lists.
+ */
+export async function directorActionsOf(competitionId: string, entryIds: readonly string[], db: Knex = useDb()): Promise<(DirectorActionRecord & { entryId: string })[]> {
+  if (!entryIds.length) return []
+  const rows = await actionQuery(db).where('a.competition_id', competitionId).whereIn('a.entry_id', [...entryIds])
+    .orderBy([{ column: 'a.created_at' }, { column: 'a.id' }]) as ActionRowWithActor[]
+  return rows.map(r => ({ ...toDirectorActionRecord(r), entryId: r.entry_id }))
+}
+
+/**
  * One entry on the board of a day (the open day, else the latest): its tile, every finding
  * the engine gives now with the waiver that lifts it, and the director's actions of the day
  * and of the whole competition.
@@ -318,18 +344,10 @@ export async function boardEntryDetail(access: CompetitionAccess, entryId: strin
   const dossier = loaded?.dossiers[0]
   const findings = loaded?.competition && dossier ? blockingFirst(evaluate(dossier, loaded.competition, loaded.field, evalDay)) : []
   const actions = actionRows.map(toDirectorActionRecord)
-  // A withdrawn waiver lifts nothing; it stays in the list of actions, marked withdrawn.
-  const waivers = actions.filter(a => a.kind === 'waiver' && !a.withdrawal)
-  const withWaivers: BoardFinding[] = findings.map((f) => {
-    const w = waivers.findLast(a => a.checkId === f.checkId
-      && (a.unitId === null || a.unitId === (f.unitId ?? null))
-      && (a.subject === null || a.subject === (f.subject ?? null)))
-    return { ...f, waiver: w ? { id: w.id, scope: w.scope!, reason: w.reason, by: w.actor.name, at: w.at } : null }
-  })
   return {
     day: shown,
     tile,
-    findings: withWaivers,
+    findings: withWaivers(findings, actions),
     actions,
     canDirect: access.roles.includes('director') && shown?.status === 'open',
     changedAfterAcceptanceAt: loaded?.rows[0]?.changed_after_acceptance_at ?? null,

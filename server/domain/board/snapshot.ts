@@ -138,3 +138,9 @@ export async function entryDayReadiness(competitionId: string, entryId: string, 
   const actions = actionRows.map(toTileAction)
   return { day, readiness: tile?.readiness ?? null, headline: tile?.headline ?? null, hold: tile?.hold ?? null, lastCheck: tile?.lastCheck ?? null, actions }
 }
+
+/** The entries with a tile on a day's board (the accepted entries when the day was last refreshed). */
+export async function entryIdsOnBoard(competitionId: string, day: IsoDate, db: Knex = useDb()): Promise<string[]> {
+  const rows = await db('board_tiles').where({ competition_id: competitionId, day }).select('entry_id') as { entry_id: string }[]
+  return rows.map(r => r.entry_id)
+}

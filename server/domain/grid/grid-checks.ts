@@ -163,6 +163,14 @@ export async function entryGridChecks(competitionId: string, entryId: string, db
   return { gridChecks: rows.map(toGridCheckRecord) }
 }
 
+/** Every check of some entries on every day, oldest first (the glider report reads them in order). */
+export async function gridChecksOf(competitionId: string, entryIds: readonly string[], db: Knex = useDb()): Promise<GridCheckRecord[]> {
+  if (!entryIds.length) return []
+  const rows = await gridCheckQuery(db).where('g.competition_id', competitionId).whereIn('g.entry_id', [...entryIds])
+    .orderBy([{ column: 'g.day' }, { column: 'g.checked_at' }, { column: 'g.received_at' }, { column: 'g.id' }]) as GridCheckJoinedRow[]
+  return rows.map(toGridCheckRecord)
+}
+
 /** Every check of one day in a competition, newest first. */
 export async function dayGridChecks(competitionId: string, day: IsoDate, db: Knex = useDb()): Promise<GridCheckList> {
   const rows = await gridCheckQuery(db).where({ 'g.competition_id': competitionId, 'g.day': day }).orderBy([...newestFirst]) as GridCheckJoinedRow[]

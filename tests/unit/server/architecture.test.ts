@@ -55,6 +55,7 @@ const LAYERS: readonly (readonly string[])[] = [
   ['competitions'],
   ['people'],
   ['grid', 'entries', 'files', 'payments', 'tags'],
+  ['reports'],
 ]
 const layerOf = (area: string) => LAYERS.findIndex(l => l.includes(area))
 
