@@ -189,7 +189,8 @@ export async function entryPayments(access: EntryAccess): Promise<EntryPaymentsR
     },
     competitionName: competition.name,
     fee: { entryFeeMinor: state.entryFeeMinor, lateFeeMinor: state.lateFeeMinor, lateFeeApplies: state.lateFeeApplies, totalMinor: state.totalMinor, currency: state.currency },
-    amountDueMinor: state.owedMinor,
+    // A withdrawn entry owes nothing more, whatever its class's fee.
+    amountDueMinor: entry.status === 'withdrawn' ? 0 : state.owedMinor,
     canPay: isOwner && blocked === null,
     payBlockedReason: isOwner ? blocked : null,
     canRecord: access.roles.includes('organiser'),

@@ -289,6 +289,8 @@ describe('refund of a card payment in full', () => {
     expect(refundMails[1].text_body).toContain(`Reason: ${reason}`)
     expect(refundMails[1].text_body).toContain(`Open your entry:\n${baseUrl}/competitions/${s.competitionId}/entries/${s.entryId}`)
     expect(await entryRow(s.entryId)).toMatchObject({ payment_status: 'refunded', paid_minor: 0 })
+    // The withdrawn entry owes nothing more.
+    expect((await s.entrant.get(paths(s).payments)).body).toMatchObject({ amountDueMinor: 0, canPay: false, entry: { paymentStatus: 'refunded' } })
   })
 
   it('refuses a second refund', async () => {
