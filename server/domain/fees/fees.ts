@@ -53,6 +53,7 @@ export interface SettledChange {
   from: PaymentStatus
   to: PaymentStatus
   owedMinor: number
+  currency: string
 }
 
 /**
@@ -86,8 +87,8 @@ export async function settleEntryPayments(trx: Knex, competitionId: string, entr
     .join('classes as k', 'k.id', 'e.class_id')
     .join('competitions as c', 'c.id', 'e.competition_id')
     .whereIn('e.id', ids)
-    .select<{ id: string, payment_status: PaymentStatus, paid_minor: number, waived_minor: number, owed: number, refunded: boolean }[]>(
-      'e.id', 'e.payment_status', 'e.paid_minor', 'e.waived_minor',
+    .select<{ id: string, payment_status: PaymentStatus, paid_minor: number, waived_minor: number, currency: string, owed: number, refunded: boolean }[]>(
+      'e.id', 'e.payment_status', 'e.paid_minor', 'e.waived_minor', 'c.currency',
       trx.raw(`${OWED_SQL}::int as owed`),
       trx.raw(`exists (select 1 from payments p where p.entry_id = e.id and p.method <> 'waived' and p.refunded_minor > 0) as refunded`),
     )
@@ -97,7 +98,7 @@ export async function settleEntryPayments(trx: Knex, competitionId: string, entr
       ? 'paid'
       : r.refunded && r.paid_minor + r.waived_minor === 0 ? 'refunded' : 'unpaid'
     if (next === r.payment_status) continue
-    changes.push({ entryId: r.id, from: r.payment_status, to: next, owedMinor: r.owed })
+    changes.push({ entryId: r.id, from: r.payment_status, to: next, owedMinor: r.owed, currency: r.currency })
   }
   for (const c of changes) {
     await trx('entries').where({ id: c.entryId }).update({ payment_status: c.to, updated_at: trx.fn.now() })
@@ -109,7 +110,7 @@ export async function settleEntryPayments(trx: Knex, competitionId: string, entr
       action: 'payment.status-changed',
       subjectType: 'entry',
       subjectId: c.entryId,
-      details: { from: c.from, to: c.to, owedMinor: c.owedMinor },
+      details: { from: c.from, to: c.to, owedMinor: c.owedMinor, currency: c.currency },
     })))
   }
   return changes

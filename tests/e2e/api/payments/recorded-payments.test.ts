@@ -60,7 +60,7 @@ describe('a bank transfer recorded by the office', () => {
     const [audit] = await auditFor(s.entryId, 'payment.recorded')
     expect(audit).toMatchObject({ actor_user_id: expect.any(String), details: { paymentId: res.body.payment.id, method: 'bank-transfer', amountMinor: 30000, paidOn: yesterday } })
     const status = await auditFor(s.entryId, 'payment.status-changed')
-    expect(status.map(a => a.details)).toEqual([{ from: 'unpaid', to: 'paid', owedMinor: 0 }])
+    expect(status.map(a => a.details)).toEqual([{ from: 'unpaid', to: 'paid', owedMinor: 0, currency: 'EUR' }])
     const mails = await mailFor(s.entryId)
     expect(mails.map(m => m.template)).toEqual(['payment-recorded'])
     expect(mails[0].subject).toBe('Payment recorded: ' + (await entryRow(s.entryId)).comp_id + ' at Fee Trophy')
