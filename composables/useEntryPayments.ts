@@ -1,7 +1,7 @@
 import type { CompetitionPaymentsResponse, EntryPaymentsResponse } from '#shared/types/api-payments'
-import type { PaymentRowStatus } from '#shared/constants/payments'
+import type { PaymentMethod, PaymentRowStatus } from '#shared/constants/payments'
 
-/** GET /api/competitions/:id/entries/:entryId/payments — fee due, payment state and history. */
+/** GET /api/competitions/:id/entries/:entryId/payments — fee due, what is owed, every payment and refund. */
 export function useEntryPayments(competitionId: MaybeRefOrGetter<string>, entryId: MaybeRefOrGetter<string>) {
   return useFetch<EntryPaymentsResponse>(
     () => `/api/competitions/${encodeURIComponent(toValue(competitionId))}/entries/${encodeURIComponent(toValue(entryId))}/payments`,
@@ -9,13 +9,13 @@ export function useEntryPayments(competitionId: MaybeRefOrGetter<string>, entryI
   )
 }
 
-/** GET /api/competitions/:id/payments — the organiser's payments table. */
-export function useCompetitionPayments(competitionId: MaybeRefOrGetter<string>, status: MaybeRefOrGetter<PaymentRowStatus | ''>) {
+/** GET /api/competitions/:id/payments — the organiser's payments table, by status and method. */
+export function useCompetitionPayments(competitionId: MaybeRefOrGetter<string>, status: MaybeRefOrGetter<PaymentRowStatus | ''>, method: MaybeRefOrGetter<PaymentMethod | ''> = '') {
   return useFetch<CompetitionPaymentsResponse>(
     () => `/api/competitions/${encodeURIComponent(toValue(competitionId))}/payments`,
     {
-      key: () => `competition-payments:${toValue(competitionId)}:${toValue(status)}`,
-      query: computed(() => (toValue(status) ? { status: toValue(status) } : {})),
+      key: () => `competition-payments:${toValue(competitionId)}:${toValue(status)}:${toValue(method)}`,
+      query: computed(() => ({ ...(toValue(status) ? { status: toValue(status) } : {}), ...(toValue(method) ? { method: toValue(method) } : {}) })),
     },
   )
 }

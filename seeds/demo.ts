@@ -159,7 +159,7 @@ export async function seedDemo(knex: Knex, opts: { reset?: boolean, tagSecret?: 
     await seedDemoDocuments(trx, competition.id)
     await seedDemoIgcFiles(trx, competition.id)
     await seedDemoWeighIn(trx, competition.id, idByEmail.get('scrutineer@gridmark.example')!)
-    await seedDemoPayments(trx, competition.id)
+    await seedDemoPayments(trx, competition.id, organiser ?? null)
     await seedDemoTags(trx, competition.id, tagSecret)
 
     await trx('audit_log').insert({

@@ -1,5 +1,7 @@
 import type { AuditLogItem } from '#shared/types/api-board'
 import { READINESS_LABELS, type Readiness } from '#shared/constants/readiness'
+import { PAYMENT_METHOD_LABELS, type PaymentMethod } from '#shared/constants/payments'
+import { formatMoney } from '#shared/utils/money'
 
 // The audit log speaks in words: each action the server records gets a short name, and each row
 // a one-line description from its details. An action not listed here shows as it is stored, so a
@@ -34,6 +36,10 @@ export const AUDIT_ACTION_WORDS: Record<string, string> = {
   'payment.checkout-started': 'Card payment started',
   'payment.paid': 'Entry fee paid',
   'payment.refunded': 'Entry fee refunded',
+  'payment.recorded': 'Payment recorded',
+  'payment.waived': 'Entry fee waived',
+  'payment.waiver-withdrawn': 'Fee waiver withdrawn',
+  'payment.status-changed': 'Payment state changed',
   'tag.issued': 'Tag issued',
   'tag.reissued': 'Tag reissued',
   'tag.revoked': 'Tag revoked',
@@ -101,6 +107,20 @@ export function auditDescription(item: Pick<AuditLogItem, 'action' | 'details'>)
     case 'day.opened':
     case 'day.reopened':
       return `${day ?? ''}${text(d.kind) ? ` (${d.kind} day)` : ''}${typeof d.entries === 'number' ? `, ${d.entries} on the board` : ''}`
+    case 'payment.paid':
+    case 'payment.recorded':
+    case 'payment.waived':
+    case 'payment.refunded':
+    case 'payment.waiver-withdrawn': {
+      const minor = typeof d.amountMinor === 'number' ? d.amountMinor : typeof d.refundedMinor === 'number' ? d.refundedMinor : null
+      const amount = minor === null ? '' : formatMoney(minor, text(d.currency) ?? 'EUR')
+      const method = typeof d.method === 'string' && d.method in PAYMENT_METHOD_LABELS ? PAYMENT_METHOD_LABELS[d.method as PaymentMethod] : ''
+      return [[amount, method.toLowerCase()].filter(Boolean).join(', '), text(d.paidOn), reason].filter(Boolean).join(': ')
+    }
+    case 'payment.status-changed': {
+      const owed = typeof d.owedMinor === 'number' && d.owedMinor > 0 ? ` (${formatMoney(d.owedMinor, text(d.currency) ?? 'EUR')} owed)` : ''
+      return `${value(d.from)} → ${value(d.to)}${owed}`
+    }
     case 'day.closed': {
       const counts = d.readiness && typeof d.readiness === 'object' ? Object.entries(d.readiness as Record<string, number>) : []
       const tally = counts.map(([state, n]) => `${n} ${readinessWord(state).toLowerCase()}`).join(', ')

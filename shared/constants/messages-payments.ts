@@ -8,7 +8,14 @@ export const PAYMENTS_MESSAGES = {
   webhookSignatureMissing: 'This notification has no payment service signature, so it was not processed.',
   webhookSignatureInvalid: 'The signature on this notification does not match the payment service’s, so it was not processed.',
   webhookBodyInvalid: 'This notification is not a payment service event.',
-  refundNeedsWithdrawal: 'Only a withdrawn entry can be refunded. Withdraw the entry first.',
-  refundNothingPaid: 'This entry has no card payment to refund.',
-  refundAlreadyDone: 'This entry’s payment has already been refunded.',
+
+  // ——— Payments any way: recorded payments, waivers, refunds of any part ———
+  paymentNotFound: 'No such payment on this entry.',
+  paymentDateInFuture: (today: string) => `A payment cannot be dated after today (${today}, in the competition’s time zone).`,
+  nothingToWaive: 'Nothing of the fee is owed, so there is nothing to waive.',
+  waiverTooLarge: (owed: string) => `Only ${owed} of the fee is owed; waive at most that.`,
+  refundNotPaid: 'This payment was never completed, so there is nothing to refund.',
+  refundAlreadyDone: 'This payment has already been refunded in full.',
+  refundTooMuch: (remaining: string) => `At most ${remaining} of this payment can still be refunded.`,
+  refundServiceDown: 'The payment service could not be reached just now. Nothing was refunded; please try again in a moment.',
 } as const

@@ -137,7 +137,11 @@ export interface Dossier {
   units: EngineUnit[]
   documents: EngineDocument[]
   igcFiles: EngineIgcFile[]
-  payment: { status: PaymentStatus }
+  /**
+   * The fee's state; `owedMinor` (what is still to pay, in minor units of `currency`) where the
+   * loader knows it, so the finding can say how much.
+   */
+  payment: { status: PaymentStatus, owedMinor?: number, currency?: string }
   weighIns: WeighInRecord[]
   gridCheck?: GridCheck | null
 }

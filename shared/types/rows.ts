@@ -114,7 +114,12 @@ export interface EntryRow {
   decided_by: string | null
   withdrawn_at: Date | null
   payment_status: PaymentStatus
+  /** Money received, net of refunds (waivers not included). */
   paid_minor: number
+  /** Waived by the office, net of waivers withdrawn. */
+  waived_minor: number
+  /** YYYY-MM-DD: the day of the entry's first payment or waiver. */
+  first_paid_on: string | null
   created_at: Date
   updated_at: Date
 }

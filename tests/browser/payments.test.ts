@@ -1,5 +1,6 @@
 // The entrant pays the entry fee by card on the payment service's page and comes back to
-// see it paid; the organiser sees the payment in the payments table and refunds a withdrawal.
+// see it paid; the organiser sees the payment in the payments table and refunds it from the
+// entry's payment page with a reason; the organiser records a cash payment from the entry page.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { GOOD_PASSWORD } from '../support/api'
 import { gotoApp, launchBrowser, openPage, screenshot, signInThroughForm, type Browser } from '../support/browser'
@@ -65,7 +66,7 @@ describe('card payment of the entry fee', () => {
     }
   })
 
-  it('the organiser sees it in the payments table and refunds the withdrawn entry after confirming', async () => {
+  it('the organiser sees it in the payments table and refunds the withdrawn entry from its payment page, with a reason', async () => {
     await testDb()('entries').where({ id: s.entryId }).update({ status: 'withdrawn', withdrawn_at: new Date() })
     await browser.context.clearCookies()
     const page = await openPage(browser.context, baseUrl, '/', 'wall')
@@ -79,21 +80,74 @@ describe('card payment of the entry fee', () => {
       })
       expect(await row.textContent()).toContain('Ada Brightwater')
       expect(await row.textContent()).toContain('€320.50')
+      expect(await row.textContent()).toContain('Card')
       expect(await page.getByTestId('total-collected').textContent()).toContain('€320.50')
       await screenshot(page, 'payments-organiser-wall')
 
-      page.once('dialog', dialog => void dialog.accept())
-      await row.getByRole('button', { name: /Refund/ }).click()
-      await page.getByText('Refunded €320.50 to Ada Brightwater (KM7).').waitFor()
-      await page.getByTestId('total-refunded').filter({ hasText: '€320.50' }).waitFor()
+      await row.getByRole('link', { name: /Refund/ }).click()
+      await page.waitForURL(url => url.pathname.endsWith('/payment'))
+      await page.getByRole('button', { name: /^Refund…/ }).click()
+      const form = page.getByTestId('payment-refund-form')
+      expect(await form.getByLabel(/Amount refunded/).inputValue()).toBe('320.50')
+      // A refund without a reason is refused beside the field; nothing moves.
+      await form.getByRole('button', { name: 'Refund' }).click()
+      await page.getByTestId('error-summary').filter({ hasText: 'Give the reason for the refund' }).waitFor()
+      await form.getByLabel('Reason').fill('Withdrew before the event.')
+      await form.getByRole('button', { name: 'Refund' }).click()
+      await page.getByTestId('payment-notice').filter({ hasText: 'Refunded €320.50.' }).waitFor()
+      expect(await page.getByTestId('payment-refund').first().textContent()).toContain('Withdrew before the event.')
       expect(await entryRow(s.entryId)).toMatchObject({ payment_status: 'refunded', paid_minor: 0 })
       await screenshot(page, 'payments-organiser-refunded-wall')
 
-      await page.setViewportSize({ width: 390, height: 844 })
       await gotoApp(page, baseUrl, path)
+      await page.getByTestId('total-refunded').filter({ hasText: '€320.50' }).waitFor()
+      await page.setViewportSize({ width: 390, height: 844 })
       await page.locator('[data-payment-card="KM7"]').waitFor()
       await noSidewaysScroll(page)
       await screenshot(page, 'payments-organiser-phone')
+    }
+    finally {
+      await page.close()
+    }
+  })
+})
+
+describe('a payment made another way', () => {
+  it('the organiser records a cash payment from the entry page and sees the entry paid', async () => {
+    const cash = await paymentScene(baseUrl, { feeMinor: 15000 })
+    await testDb()('entries').where({ id: cash.entryId }).update({ comp_id: 'KC2', pilot_name: 'Cora Fieldfare' })
+    await browser.context.clearCookies()
+    const page = await openPage(browser.context, baseUrl, '/', 'desk')
+    try {
+      const path = `/competitions/${cash.competitionId}/entries/${cash.entryId}`
+      await signInThroughForm(page, baseUrl, cash.organiserEmail, GOOD_PASSWORD, path)
+      const status = page.getByTestId('payment-status')
+      await status.filter({ hasText: /Entry fee:\s*Not paid yet/ }).waitFor()
+      expect(await page.getByTestId('payment-owed').textContent()).toBe('€150.00 to pay')
+
+      await page.getByTestId('record-payment').click()
+      const form = page.getByTestId('payment-record-form')
+      await form.getByLabel('How was it paid?').selectOption('cash')
+      expect(await form.getByLabel(/^Amount/).inputValue()).toBe('150.00')
+      await form.getByLabel(/Receipt number/).fill('R-0117')
+      await screenshot(page, 'payment-record-cash-desk')
+      await form.getByRole('button', { name: 'Record the payment' }).click()
+
+      await page.getByTestId('payment-notice').filter({ hasText: 'Recorded €150.00' }).waitFor()
+      await status.filter({ hasText: /Entry fee:\s*Paid/ }).waitFor()
+      await page.getByTestId('payment-owed').waitFor({ state: 'detached' })
+      expect(await entryRow(cash.entryId)).toMatchObject({ payment_status: 'paid', paid_minor: 15000 })
+      const [payment] = await testDb()('payments').where({ entry_id: cash.entryId })
+      expect(payment).toMatchObject({ method: 'cash', reference: 'R-0117', amount_minor: 15000 })
+      await screenshot(page, 'payment-record-cash-paid-desk')
+
+      // The payment page lists it with its method, reference and who recorded it.
+      await gotoApp(page, baseUrl, `${path}/payment`)
+      const item = page.locator(`[data-payment-id="${payment.id}"]`)
+      await item.waitFor()
+      expect(await item.textContent()).toContain('Cash')
+      expect(await item.textContent()).toContain('reference R-0117')
+      expect(await item.textContent()).toContain('recorded by Office Organiser')
     }
     finally {
       await page.close()

@@ -18,6 +18,7 @@ import type { ClassRow, CompetitionDayRow } from '#shared/types/rows'
 import type { CompetitionSetupResponse, SetupClass } from '#shared/types/setup'
 import { audit } from '#domain/audit/audit'
 import { dossierChanged } from '#domain/board/dossier-changed'
+import { settleEntryPayments } from '#domain/fees/fees'
 import { useDb } from '#server/utils/db'
 import { fieldError, httpError } from '#server/utils/errors'
 import { rulesOf } from '#shared/utils/rules'
@@ -196,7 +197,8 @@ export async function updateCompetitionSetup(competitionId: string, patch: Compe
       subjectId: competitionId,
       details: { changes },
     })
-    // The rules and the contest days are read by every check.
+    // The late fee changes what entries owe; the rules and the contest days are read by every check.
+    if (changes.lateFeeMinor || changes.lateFeeAfter || changes.timeZone) await settleEntryPayments(trx, competitionId, 'all', actorUserId)
     await dossierChanged(trx, competitionId, 'all', actorUserId)
     return competitionSetup(competitionId, trx)
   })
@@ -270,6 +272,8 @@ export async function updateCompetitionClass(competitionId: string, classId: str
       await audit(trx, { actorUserId, competitionId, action: 'class.changed', subjectType: 'class', subjectId: classId, details: { changes } })
       // Its limits are read by the checks of its entries, its place orders them on the board.
       const entries = await trx('entries').where({ class_id: classId }).pluck('id') as string[]
+      // A new fee changes what each of its entries owes.
+      if (changes.entryFeeMinor) await settleEntryPayments(trx, competitionId, entries, actorUserId)
       await dossierChanged(trx, competitionId, entries, actorUserId)
     }
     const { count } = await trx('entries').where({ class_id: classId }).count('* as count').first() as { count: string }

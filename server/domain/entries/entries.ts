@@ -23,6 +23,7 @@ import { audit } from '#domain/audit/audit'
 import { dossierChanged, noteChangeAfterAcceptance } from '#domain/board/dossier-changed'
 import { UNIT_FIELDS, writeUnitChange, type UnitField } from './unit-changes'
 import { findCompetition, listClasses } from '#domain/competitions/competitions'
+import { settleEntryPayments } from '#domain/fees/fees'
 import { countFindings, entryFindings, findingsByEntry } from '#domain/findings/findings'
 import { enqueueMail } from '#domain/mail/outbox'
 import { entryAcceptedMail, entryRejectedMail, entrySubmittedMail, entryToReviewMail, ruleLink } from '#domain/mail/templates'
@@ -494,6 +495,8 @@ export async function updateEntry(access: EntryAccess, patch: EntryPatch): Promi
         details: { field: c.field, from: c.from, to: c.to },
       })
     }
+    // Another class has another fee: a dearer one leaves the difference owed.
+    if (changes.class_id !== undefined) await settleEntryPayments(trx, competition.id, [current.id], user.id)
     await noteChangeAfterAcceptance(trx, [current.id])
     await dossierChanged(trx, competition.id, [current.id], user.id)
   })

@@ -5,6 +5,7 @@ import { ROLE_LABELS } from '#shared/constants/roles'
 import type { InvitableRole } from '#shared/constants/invitations'
 import { HARDWARE_CAUTION, type Finding } from '#shared/engine'
 import { rulebookPath } from '#shared/utils/rulebook'
+import type { PaymentMethod, RecordedPaymentMethod } from '#shared/constants/payments'
 
 export interface MailAction {
   label: string
@@ -395,24 +396,83 @@ export function paymentReceivedMail(input: {
   }
 }
 
+// ——— Payments any way: recorded payments, waivers and refunds of any part ———————————————
+
+/** How a payment was made, in a sentence: "by bank transfer". */
+const PAID_BY_WORDS: Record<PaymentMethod, string> = {
+  'card': 'by card',
+  'bank-transfer': 'by bank transfer',
+  'cash': 'in cash',
+  'other': 'another way',
+  'waived': 'as a waiver',
+}
+
+/** A payment the office recorded (bank transfer, cash, another way) or a waiver of the fee. */
+export function paymentRecordedMail(input: {
+  entrantName: string
+  compId: string
+  competitionName: string
+  money: string
+  method: RecordedPaymentMethod
+  /** The day it was paid, as written ("3 March 2027"). */
+  day: string
+  reference: string | null
+  reason: string | null
+  /** What is still owed, as written, or null when the fee is now paid. */
+  owed: string | null
+  entryUrl: string
+}): RenderedMail & { subject: string } {
+  const waived = input.method === 'waived'
+  const what = `the entry fee of ${input.compId} at ${input.competitionName}`
+  return {
+    subject: `${waived ? 'Entry fee waived' : 'Payment recorded'}: ${input.compId} at ${input.competitionName}`,
+    ...renderMail({
+      greeting: `Hello ${input.entrantName},`,
+      paragraphs: [
+        waived
+          ? `the competition office has waived ${input.money} of ${what}.`
+          : `the competition office has recorded your payment of ${input.money} ${PAID_BY_WORDS[input.method]} on ${input.day}${input.reference ? ` (reference ${input.reference})` : ''} for ${what}. Thank you.`,
+        ...(input.reason ? [`${waived ? 'Reason' : 'Note'}: ${input.reason}`] : []),
+        input.owed ? `${input.owed} of the entry fee is still to pay.` : 'Your entry fee is now paid.',
+      ],
+      action: { label: 'Open your entry', url: input.entryUrl },
+      footer: 'Gridmark, for the competition office. This message was sent automatically; replies are not read.',
+    }),
+  }
+}
+
+/** A refund of (part of) one payment: through the payment service for a card, recorded otherwise. */
 export function refundMail(input: {
   entrantName: string
   compId: string
   competitionName: string
   money: string
-  /** The whole fee was refunded (nothing paid remains). */
+  method: PaymentMethod
+  /** The office's reason; null for a refund made at the payment service itself. */
+  reason: string | null
+  /** Nothing of the money paid remains. */
   full: boolean
+  /** What is owed now, as written, where the entry is still in the competition; else null. */
+  owed: string | null
   entryUrl: string
 }): RenderedMail & { subject: string } {
+  const what = `the entry fee for ${input.compId} at ${input.competitionName}`
+  const first = input.method === 'card'
+    ? `the competition office has refunded ${input.money} of ${what} to the card you paid with. It may take a few days to show on your statement.`
+    : input.method === 'waived'
+      ? `the competition office has withdrawn ${input.money} of the waiver of ${what}.`
+      : `the competition office has refunded ${input.money} of ${what}, which you paid ${PAID_BY_WORDS[input.method]}. Ask the office if it has not reached you within a few days.`
   return {
-    subject: `Refund: ${input.compId} at ${input.competitionName}`,
+    subject: `${input.method === 'waived' ? 'Waiver withdrawn' : 'Refund'}: ${input.compId} at ${input.competitionName}`,
     ...renderMail({
       greeting: `Hello ${input.entrantName},`,
       paragraphs: [
-        `the competition office has refunded ${input.money} of the entry fee for ${input.compId} at ${input.competitionName} to the card you paid with. It may take a few days to show on your statement.`,
+        first,
+        ...(input.reason ? [`Reason: ${input.reason}`] : []),
         input.full
           ? 'Nothing of the fee remains paid. Your entry shows the refund.'
           : 'The rest of the fee stays paid. Your entry shows the refund and what remains paid.',
+        ...(input.owed ? [`${input.owed} of the entry fee is now to pay.`] : []),
       ],
       action: { label: 'Open your entry', url: input.entryUrl },
       footer: 'Gridmark, for the competition office. This message was sent automatically; replies are not read.',

@@ -10,6 +10,7 @@ import type { EntryStatus, PaymentStatus } from '#shared/constants/entries'
 import { rulesOf } from '#shared/utils/rules'
 import { useDb } from '#server/utils/db'
 import { latestGridCheckIds } from './day-inputs'
+import { OWED_SQL } from './fees'
 import { num } from './values'
 
 // ---------------------------------------------------------------------------------------
@@ -24,6 +25,9 @@ export interface FindingsEntryRow {
   copilot_name: string | null
   status: EntryStatus
   payment_status: PaymentStatus
+  /** What is still owed of the fee (minor units) and its currency, for the finding's words. */
+  owed_minor?: number | null
+  currency?: string | null
   mtom_kg: string | number | null
   cg_forward_limit_m: string | number | null
   cg_aft_limit_m: string | number | null
@@ -156,6 +160,12 @@ export function toEngineEntry(r: FindingsEntryRow): EngineEntry {
   }
 }
 
+export function toEnginePayment(r: FindingsEntryRow): Dossier['payment'] {
+  return r.owed_minor === undefined || r.owed_minor === null
+    ? { status: r.payment_status }
+    : { status: r.payment_status, owedMinor: Number(r.owed_minor), currency: r.currency ?? undefined }
+}
+
 export function toEngineUnit(r: FindingsUnitRow): EngineUnit {
   if (r.kind === 'collision-warning') {
     return {
@@ -252,7 +262,7 @@ export function toDossiers(
   const byEntry = new Map<string, Dossier>()
   const out: Dossier[] = []
   for (const r of entries) {
-    const d: Dossier = { entry: toEngineEntry(r), units: [], documents: [], igcFiles: [], payment: { status: r.payment_status }, weighIns: [] }
+    const d: Dossier = { entry: toEngineEntry(r), units: [], documents: [], igcFiles: [], payment: toEnginePayment(r), weighIns: [] }
     byEntry.set(r.id, d)
     out.push(d)
   }
@@ -347,8 +357,9 @@ const PARTS = {
       ['e.mtom_kg::text', 'mtom_kg'], ['e.cg_forward_limit_m::text', 'cg_forward_limit_m'], ['e.cg_aft_limit_m::text', 'cg_aft_limit_m'],
       ['e.class_id', 'class_id'], ['k.name', 'class_name'], ['k.code', 'class_code'], ['e.span_m::text', 'span_m'], ['e.motor_glider', 'motor_glider'],
       ['e.pilot_mass_kg::text', 'pilot_mass_kg'], ['e.copilot_mass_kg::text', 'copilot_mass_kg'], ['e.pilot_arm_m::text', 'pilot_arm_m'],
-      ['e.copilot_arm_m::text', 'copilot_arm_m'], ['e.ballast_arm_m::text', 'ballast_arm_m'], ['e.changed_after_acceptance_at', 'changed_after_acceptance_at']],
-    from: 'entries e join classes k on k.id = e.class_id where e.competition_id = :competitionId',
+      ['e.copilot_arm_m::text', 'copilot_arm_m'], ['e.ballast_arm_m::text', 'ballast_arm_m'], ['e.changed_after_acceptance_at', 'changed_after_acceptance_at'],
+      [OWED_SQL, 'owed_minor'], ['c.currency', 'currency']],
+    from: 'entries e join classes k on k.id = e.class_id join competitions c on c.id = e.competition_id where e.competition_id = :competitionId',
     order: 'e.comp_id, e.id',
     entry: 'e.id',
   },

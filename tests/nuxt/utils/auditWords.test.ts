@@ -28,4 +28,17 @@ describe('audit words', () => {
     expect(auditDescription({ action: 'tag.issued', details: { tagId: 't', shortCode: 'HY369FYA' } })).toBe('short code HY36-9FYA')
     expect(auditDescription({ action: 'entry.rejected', details: { from: 'submitted', to: 'rejected', reason: 'No insurance' } })).toBe('submitted → rejected · reason: No insurance')
   })
+
+  it('describes payments by amount, method, day and reason, and a change of paid state with what is owed', () => {
+    expect(auditActionWords('payment.recorded')).toBe('Payment recorded')
+    expect(auditActionWords('payment.waived')).toBe('Entry fee waived')
+    expect(auditDescription({ action: 'payment.recorded', details: { method: 'bank-transfer', amountMinor: 30000, currency: 'EUR', paidOn: '2027-03-03' } }))
+      .toBe('€300.00, bank transfer: 2027-03-03')
+    expect(auditDescription({ action: 'payment.waived', details: { method: 'waived', amountMinor: 5000, currency: 'EUR', paidOn: '2027-03-03', reason: 'Club guest' } }))
+      .toBe('€50.00, fee waived: 2027-03-03: Club guest')
+    expect(auditDescription({ action: 'payment.refunded', details: { method: 'card', refundedMinor: 2500, currency: 'GBP', reason: 'Paid twice' } }))
+      .toBe('£25.00, card: Paid twice')
+    expect(auditDescription({ action: 'payment.status-changed', details: { from: 'paid', to: 'unpaid', owedMinor: 15000, currency: 'EUR' } }))
+      .toBe('paid → unpaid (€150.00 owed)')
+  })
 })

@@ -50,7 +50,7 @@ function exportsOf(path: string): Map<string, 'callable' | 'other'> {
 const LAYERS: readonly (readonly string[])[] = [
   ['read-model'],
   ['audit', 'realtime', 'findings'],
-  ['mail'],
+  ['mail', 'fees'],
   ['board'],
   ['competitions'],
   ['people'],

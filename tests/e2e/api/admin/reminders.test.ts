@@ -91,7 +91,7 @@ describe('POST /api/admin/reminders/run', () => {
     expect(forSubmitted.links).toContain(`${baseUrl}/competitions/${competitionId}/checks#recorder.present`)
     expect(forAccepted.text).not.toContain('No flight recorder')
     // Only what is actually missing: the unpaid entry is told of its fee, the paid one is not.
-    expect(forSubmitted.text).toContain('The entry fee is not paid yet')
+    expect(forSubmitted.text).toContain('€300.00 of the entry fee is still to pay')
     expect(forAccepted.text).not.toMatch(/entry fee/i)
     expect(forAccepted.links).toContain(`${baseUrl}/competitions/${competitionId}/entries/${accepted}`)
 

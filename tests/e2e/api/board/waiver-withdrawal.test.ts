@@ -24,7 +24,7 @@ beforeAll(async () => {
   expect((await w.scrutineer.client.post(`${w.base}/grid-checks`, checkBody(unpaid))).status).toBe(201)
   // Held on the grid by its unpaid fee: the board's own e-mail, with the entry page.
   const [held] = await testDb()('mail_outbox').where({ entry_id: unpaid, template: 'board-held' })
-  expect(held.text_body).toContain('The entry fee is not paid yet')
+  expect(held.text_body).toContain('€300.00 of the entry fee is still to pay')
   expect(held.text_body).toContain(`Open your entry:\n${baseUrl}/competitions/${w.competitionId}/entries/${unpaid}`)
   socket = await boardSocket(baseUrl, w.director.client)
   await joinBoard(socket, w.competitionId)

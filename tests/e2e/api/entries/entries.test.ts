@@ -367,7 +367,7 @@ describe('deciding', () => {
     expect(mail.text_body).toContain(`Open your entry:\n${baseUrl}/competitions/${w.competitionId}/entries/${entryId}`)
     // Only what is open is listed, each with its rule; what is done (here the fee, when paid) is not.
     const paid = (await testDb()('entries').where({ id: entryId }).first()).payment_status === 'paid'
-    expect(mail.text_body.includes('The entry fee is not paid yet')).toBe(!paid)
+    expect(mail.text_body.includes('of the entry fee is still to pay')).toBe(!paid)
     expect(mail.text_body).not.toContain('make sure')
     expect((await w.organiser.client.post(`${path()}/accept`)).status).toBe(409)
     // Accepted: the entrant keeps contact data current, but the competition ID is the office's.

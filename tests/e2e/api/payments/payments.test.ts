@@ -1,5 +1,6 @@
 // Card payments against the local payment fake and the real SDK: checkout, the signed
-// notification, exactly-once processing, refunds, the organiser's table, and every refusal.
+// notification, exactly-once processing, a full refund with its reason, the organiser's table,
+// and every refusal. (Recorded payments, waivers and part refunds: recorded-payments.test.ts.)
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { ApiClient, signedUpClient } from '../../../support/api'
 import { closeTestDb, createEntry, testDb } from '../../../support/db'
@@ -16,7 +17,7 @@ afterAll(closeTestDb)
 const paths = (s: PaymentScene, entryId = s.entryId) => ({
   checkout: `/api/competitions/${s.competitionId}/entries/${entryId}/checkout`,
   payments: `/api/competitions/${s.competitionId}/entries/${entryId}/payments`,
-  refund: `/api/competitions/${s.competitionId}/entries/${entryId}/refund`,
+  refunds: (paymentId: string) => `/api/competitions/${s.competitionId}/entries/${entryId}/payments/${paymentId}/refunds`,
   table: `/api/competitions/${s.competitionId}/payments`,
 })
 
@@ -234,35 +235,38 @@ describe('a failed card payment', () => {
   })
 })
 
-describe('refund', () => {
+describe('refund of a card payment in full', () => {
   let s: PaymentScene
+  let paymentId: string
+  const reason = 'Withdrew before the event.'
   beforeAll(async () => {
     s = await paymentScene(baseUrl, { feeMinor: 25000 })
     await payEntry(s)
-  })
-
-  it('refuses to refund an entry that is not withdrawn', async () => {
-    const res = await s.organiser.post(paths(s).refund)
-    expect(res.status).toBe(409)
-    expect(res.body.message).toBe('Only a withdrawn entry can be refunded. Withdraw the entry first.')
-  })
-
-  it('refuses the entrant, the scrutineer and others', async () => {
+    paymentId = (await paymentRows(s.entryId))[0].id
     await testDb()('entries').where({ id: s.entryId }).update({ status: 'withdrawn', withdrawn_at: new Date() })
-    expect((await s.entrant.post(paths(s).refund)).status).toBe(403)
-    expect((await s.scrutineer.post(paths(s).refund)).status).toBe(403)
-    expect((await s.otherEntrant.post(paths(s).refund)).status).toBe(404)
-    expect((await new ApiClient(baseUrl).post(paths(s).refund)).status).toBe(401)
+  })
+
+  it('refuses the entrant, the scrutineer and others, and a body without a reason', async () => {
+    const path = paths(s).refunds(paymentId)
+    const body = { amountMinor: 25000, reason }
+    expect((await s.entrant.post(path, body)).status).toBe(403)
+    expect((await s.scrutineer.post(path, body)).status).toBe(403)
+    expect((await s.otherEntrant.post(path, body)).status).toBe(404)
+    expect((await new ApiClient(baseUrl).post(path, body)).status).toBe(401)
     const stranger = await signedUpClient(baseUrl, 'Stranger')
-    expect((await stranger.client.post(paths(s).refund)).status).toBe(404)
-    expect((await s.organiser.request('POST', paths(s).refund, { amount: 5 })).status).toBe(400)
+    expect((await stranger.client.post(path, body)).status).toBe(404)
+    const noReason = await s.organiser.post(path, { amountMinor: 25000 })
+    expect(noReason.status).toBe(400)
+    expect(noReason.body.message).toContain('Give the reason for the refund')
     expect(await entryRow(s.entryId)).toMatchObject({ payment_status: 'paid', paid_minor: 25000 })
   })
 
-  it('refunds a withdrawn entry in full: refunded, paid 0, audited and e-mailed once', async () => {
-    const res = await s.organiser.post(paths(s).refund)
+  it('refunds the withdrawn entry in full: refunded, paid 0, audited and e-mailed once with the reason', async () => {
+    const res = await s.organiser.post(paths(s).refunds(paymentId), { amountMinor: 25000, reason })
     expect(res.status).toBe(200)
-    expect(res.body.payment).toMatchObject({ status: 'refunded', refundedMinor: 25000 })
+    expect(res.body.payment).toMatchObject({ status: 'refunded', refundedMinor: 25000, refundableMinor: 0, method: 'card' })
+    expect(res.body.payment.refunds).toHaveLength(1)
+    expect(res.body.payment.refunds[0]).toMatchObject({ amountMinor: 25000, reason, status: 'succeeded', recordedByName: 'Office Organiser' })
     expect(await entryRow(s.entryId)).toMatchObject({ payment_status: 'refunded', paid_minor: 0 })
     // The service's own notification of the refund follows; it changes nothing more.
     const [payment] = await paymentRows(s.entryId)
@@ -274,27 +278,37 @@ describe('refund', () => {
     await waitFor(() => testDb()('payment_events').where({ event_id: refundEvent.id }), r => r.length === 1, 3000)
     expect(await fakePost(serviceEnv, '/__test/deliver', { eventId: refundEvent.id })).toMatchObject({ body: { webhookStatus: 200 } })
     expect(payment).toMatchObject({ status: 'refunded', refunded_minor: 25000 })
-    expect(await auditFor(s.entryId, 'payment.refunded')).toHaveLength(1)
+    expect(await testDb()('payment_refunds').where({ payment_id: paymentId })).toHaveLength(1)
     const audits = await auditFor(s.entryId, 'payment.refunded')
+    expect(audits).toHaveLength(1)
     expect(audits[0].actor_user_id).not.toBeNull()
+    expect(audits[0].details).toMatchObject({ paymentId, method: 'card', refundedMinor: 25000, reason })
     const refundMails = await mailFor(s.entryId)
     expect(refundMails.map(m => m.template)).toEqual(['payment-received', 'payment-refund'])
     expect(refundMails[1].text_body).toContain('Nothing of the fee remains paid.')
+    expect(refundMails[1].text_body).toContain(`Reason: ${reason}`)
     expect(refundMails[1].text_body).toContain(`Open your entry:\n${baseUrl}/competitions/${s.competitionId}/entries/${s.entryId}`)
     expect(await entryRow(s.entryId)).toMatchObject({ payment_status: 'refunded', paid_minor: 0 })
+    // The withdrawn entry owes nothing more.
+    expect((await s.entrant.get(paths(s).payments)).body).toMatchObject({ amountDueMinor: 0, canPay: false, entry: { paymentStatus: 'refunded' } })
   })
 
   it('refuses a second refund', async () => {
-    const res = await s.organiser.post(paths(s).refund)
+    const res = await s.organiser.post(paths(s).refunds(paymentId), { amountMinor: 100, reason })
     expect(res.status).toBe(409)
-    expect(res.body.message).toBe('This entry’s payment has already been refunded.')
+    expect(res.body.message).toBe('This payment has already been refunded in full.')
   })
 
-  it('refuses to refund a withdrawn entry that never paid', async () => {
-    const unpaid = await createEntry({ competitionId: s.competitionId, classId: s.classId, entrantUserId: (await testDb()('entries').where({ id: s.entryId }).first()).entrant_user_id, status: 'withdrawn' })
-    const res = await s.organiser.post(paths(s, unpaid).refund)
+  it('refuses to refund a checkout that was never paid, and a payment of another entry', async () => {
+    const other = await createEntry({ competitionId: s.competitionId, classId: s.classId, entrantUserId: (await entryRow(s.entryId)).entrant_user_id, status: 'submitted' })
+    expect((await s.entrant.post(paths(s, other).checkout)).status).toBe(201)
+    const [pending] = await paymentRows(other)
+    const res = await s.organiser.post(paths(s, other).refunds(pending.id), { amountMinor: 100, reason })
     expect(res.status).toBe(409)
-    expect(res.body.message).toBe('This entry has no card payment to refund.')
+    expect(res.body.message).toBe('This payment was never completed, so there is nothing to refund.')
+    const elsewhere = await s.organiser.post(paths(s, other).refunds(paymentId), { amountMinor: 100, reason })
+    expect(elsewhere.status).toBe(404)
+    expect(elsewhere.body.message).toBe('No such payment on this entry.')
   })
 
   it('refuses a checkout for the withdrawn entry', async () => {
@@ -356,7 +370,7 @@ describe('access and bad input', () => {
 })
 
 describe('the organiser’s payments table', () => {
-  it('lists payments with their entries, totals and refundability, filters by status, and exports CSV', async () => {
+  it('lists payments with their entries, totals and refundability, filters by status, and exports CSV with each refund', async () => {
     const s = await paymentScene(baseUrl, { feeMinor: 10000 })
     await payEntry(s)
     const second = await createEntry({ competitionId: s.competitionId, classId: s.classId, entrantUserId: (await entryRow(s.entryId)).entrant_user_id, compId: 'Q7', status: 'submitted' })
@@ -368,15 +382,16 @@ describe('the organiser’s payments table', () => {
     const all = await s.organiser.get(paths(s).table)
     expect(all.status).toBe(200)
     expect(all.body.rows).toHaveLength(3)
-    expect(all.body.totals).toMatchObject({ collectedMinor: 20000, refundedMinor: 0, netMinor: 20000, count: 3 })
+    expect(all.body.totals).toMatchObject({ collectedMinor: 20000, refundedMinor: 0, netMinor: 20000, waivedMinor: 0, count: 3 })
     const q7 = all.body.rows.find((r: { compId: string }) => r.compId === 'Q7')
-    expect(q7).toMatchObject({ status: 'paid', refundable: true, entrantName: 'Paying Pilot', amountMinor: 10000, currency: 'EUR' })
-    expect(all.body.rows.filter((r: { refundable: boolean }) => r.refundable)).toHaveLength(1)
+    expect(q7).toMatchObject({ status: 'paid', method: 'card', refundable: true, entrantName: 'Paying Pilot', amountMinor: 10000, currency: 'EUR' })
+    // Any paid payment can be refunded, withdrawn or not; a pending checkout cannot.
+    expect(all.body.rows.filter((r: { refundable: boolean }) => r.refundable)).toHaveLength(2)
 
     const pending = await s.organiser.get(`${paths(s).table}?status=pending`)
     expect(pending.body.rows.map((r: { compId: string }) => r.compId)).toEqual(['Z9'])
 
-    expect((await s.organiser.post(paths(s, second).refund)).status).toBe(200)
+    expect((await s.organiser.post(paths(s, second).refunds(q7.id), { amountMinor: 10000, reason: 'Withdrew in May.' })).status).toBe(200)
     const after = await s.organiser.get(paths(s).table)
     expect(after.body.totals).toMatchObject({ collectedMinor: 20000, refundedMinor: 10000, netMinor: 10000 })
 
@@ -384,8 +399,9 @@ describe('the organiser’s payments table', () => {
     expect(csv.status).toBe(200)
     expect(csv.headers.get('content-type')).toContain('text/csv')
     const text = await csv.text()
-    expect(text.split('\n')[0]).toBe('competition_id,pilot,entrant,entry_status,amount,refunded,currency,status,created_at,paid_at,refunded_at')
-    expect(text).toContain('Q7,Test Pilot,Paying Pilot,withdrawn,100.00,100.00,EUR,refunded')
+    expect(text.split('\n')[0]).toBe('competition_id,pilot,entrant,entry_status,kind,payment_id,method,amount,refunded,currency,status,date,reference,reason,recorded_by,created_at')
+    expect(text).toContain(`Q7,Test Pilot,Paying Pilot,withdrawn,payment,${q7.id},card,100.00,100.00,EUR,refunded,`)
+    expect(text).toMatch(new RegExp(`Q7,Test Pilot,Paying Pilot,withdrawn,refund,${q7.id},card,100.00,,EUR,succeeded,\\d{4}-\\d{2}-\\d{2},,Withdrew in May.,Office Organiser,`))
     expect((await s.entrant.get(`${paths(s).table}/export.csv`)).status).toBe(403)
   })
 })

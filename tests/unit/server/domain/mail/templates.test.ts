@@ -5,7 +5,7 @@ import { describe, expect, it } from 'vitest'
 import { HARDWARE_CAUTION, type Finding } from '#shared/engine'
 import {
   documentRejectedMail, entryAcceptedMail, entryRejectedMail, entrySubmittedMail, entryToReviewMail, findingItems,
-  invitationMail, paymentReceivedMail, readinessMail, refundMail, reminderMail, renderMail, ruleLink, waiverMail,
+  invitationMail, paymentReceivedMail, paymentRecordedMail, readinessMail, refundMail, reminderMail, renderMail, ruleLink, waiverMail,
 } from '#domain/mail/templates'
 
 const BASE = 'https://gridmark.example'
@@ -124,10 +124,11 @@ describe('the entry’s e-mails link to its page and list only what is open', ()
 
   it('payment received and refunds: the amount, what remains paid, and the entry page', () => {
     withLink(paymentReceivedMail({ entrantName: 'Ann', compId: 'K7', competitionName: 'Moor Open', money: '€300.00', entryUrl: ENTRY }), 'Open your entry', ENTRY)
-    const full = refundMail({ entrantName: 'Ann', compId: 'K7', competitionName: 'Moor Open', money: '€300.00', full: true, entryUrl: ENTRY })
+    const full = refundMail({ entrantName: 'Ann', compId: 'K7', competitionName: 'Moor Open', money: '€300.00', method: 'card', reason: 'Withdrew before the event.', full: true, owed: null, entryUrl: ENTRY })
     expect(full.text).toContain('Nothing of the fee remains paid.')
+    expect(full.text).toContain('Reason: Withdrew before the event.')
     withLink(full, 'Open your entry', ENTRY)
-    expect(refundMail({ entrantName: 'Ann', compId: 'K7', competitionName: 'Moor Open', money: '€50.00', full: false, entryUrl: ENTRY }).text).toContain('The rest of the fee stays paid.')
+    expect(refundMail({ entrantName: 'Ann', compId: 'K7', competitionName: 'Moor Open', money: '€50.00', method: 'card', reason: null, full: false, owed: null, entryUrl: ENTRY }).text).toContain('The rest of the fee stays paid.')
   })
 
   it('document rejected: the reason and where to upload a corrected one', () => {
@@ -142,5 +143,36 @@ describe('the entry’s e-mails link to its page and list only what is open', ()
     const reminder = reminderMail({ competitionName: 'Moor Open', firstContestDay: '2027-07-12', pilotName: 'Ann', compId: 'K7', openItems: [], url: ENTRY })
     expect(reminder.text).not.toMatch(/fee/)
     withLink(reminder, 'Open your entry', ENTRY)
+  })
+})
+
+describe('payments any way: recorded payments, waivers, refunds', () => {
+  const base = { entrantName: 'Ann', compId: 'K7', competitionName: 'Moor Open', entryUrl: `${BASE}/competitions/c-1/entries/e-1` }
+  it('a bank transfer recorded: the amount, how, the day and reference, and that the fee is paid', () => {
+    const mail = paymentRecordedMail({ ...base, money: '€300.00', method: 'bank-transfer', day: '3 March 2027', reference: 'KM-0042', reason: null, owed: null })
+    expect(mail.subject).toBe('Payment recorded: K7 at Moor Open')
+    expect(mail.text).toContain('recorded your payment of €300.00 by bank transfer on 3 March 2027 (reference KM-0042)')
+    expect(mail.text).toContain('Your entry fee is now paid.')
+  })
+
+  it('a part payment in cash says what is still to pay', () => {
+    const mail = paymentRecordedMail({ ...base, money: '€100.00', method: 'cash', day: '3 March 2027', reference: null, reason: null, owed: '€200.00' })
+    expect(mail.text).toContain('€100.00 in cash on 3 March 2027 for the entry fee')
+    expect(mail.text).toContain('€200.00 of the entry fee is still to pay.')
+  })
+
+  it('a waiver gives its reason', () => {
+    const mail = paymentRecordedMail({ ...base, money: '€300.00', method: 'waived', day: '3 March 2027', reference: null, reason: 'Guest pilot of the club.', owed: null })
+    expect(mail.subject).toBe('Entry fee waived: K7 at Moor Open')
+    expect(mail.text).toContain('has waived €300.00 of the entry fee of K7 at Moor Open.')
+    expect(mail.text).toContain('Reason: Guest pilot of the club.')
+  })
+
+  it('a recorded refund of cash names how it was paid, its reason and what is owed again', () => {
+    const mail = refundMail({ ...base, money: '€50.00', method: 'cash', reason: 'Paid twice.', full: false, owed: '€20.00' })
+    expect(mail.subject).toBe('Refund: K7 at Moor Open')
+    expect(mail.text).toContain('refunded €50.00 of the entry fee for K7 at Moor Open, which you paid in cash.')
+    expect(mail.text).toContain('Reason: Paid twice.')
+    expect(mail.text).toContain('€20.00 of the entry fee is now to pay.')
   })
 })
