@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { APPROVAL_LEVELS, DOCUMENT_KINDS } from '../constants/entries'
 import { DEFAULT_CHECKLIST } from '../constants/grid'
+import { DEFAULT_REMINDER_DAYS, MAX_REMINDER_DAYS, MAX_REMINDER_DAYS_BEFORE } from '../utils/reminder-schedule'
 
 /** A calendar date as the competition's office writes it: YYYY-MM-DD. */
 export const isoDate = z
@@ -107,6 +108,24 @@ export const currencySchema = z
     return !known || known.includes(code)
   }, { error: 'That is not an ISO 4217 currency code.' })
 
+/**
+ * The pre-event reminder schedule: whole days before the first contest day, each at most once,
+ * kept largest first. An empty list sends no reminders (shared/utils/reminder-schedule.ts).
+ */
+export const reminderDaysSchema = z
+  .array(
+    z.number({ error: 'Enter each reminder as a whole number of days, e.g. 30, 14, 3.' })
+      .int({ error: 'Enter each reminder as a whole number of days, e.g. 30, 14, 3.' })
+      .min(1, { error: 'A reminder goes at least 1 day before the first contest day.' })
+      .max(MAX_REMINDER_DAYS_BEFORE, { error: `A reminder goes at most ${MAX_REMINDER_DAYS_BEFORE} days before the first contest day.` }),
+    { error: 'Send the reminder days as a list of numbers.' },
+  )
+  .max(MAX_REMINDER_DAYS, { error: `Schedule at most ${MAX_REMINDER_DAYS} reminders.` })
+  .refine(list => new Set(list).size === list.length, { error: 'A reminder day is listed twice.' })
+  .transform(list => [...list].sort((a, b) => b - a))
+
+export { DEFAULT_REMINDER_DAYS }
+
 const optionalDate = isoDate.nullable().optional()
 const minorUnits = (label: string) =>
   z.number({ error: `Enter the ${label} as a number.` }).int({ error: `Enter the ${label} in whole cents.` }).min(0, { error: `The ${label} cannot be negative.` }).max(100_000_000, { error: `The ${label} looks too large.` })
@@ -125,6 +144,7 @@ const setupFields = {
   registrationClosesOn: optionalDate,
   lateFeeAfter: optionalDate,
   lateFeeMinor: minorUnits('late fee'),
+  reminderDays: reminderDaysSchema,
   rules: competitionRulesSchema,
 }
 
