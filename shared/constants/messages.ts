@@ -28,6 +28,12 @@ export const MESSAGES = {
   referenceMissing: 'It refers to something that does not exist (any more).',
   databaseDown: 'The database is not reachable just now. Nothing was changed; please try again in a moment.',
   unexpected: 'Something went wrong on our side. Nothing was changed; please try again.',
+
+  // ——— Withdrawals and the reminder schedule ———
+  withdrawEntrantOrOrganiser: 'Only the entry’s own entrant, or the competition’s organiser for the pilot, can withdraw it.',
+  withdrawReasonRequired: 'Say why the office withdraws this entry: the pilot is told the reason.',
+  withdrawReasonTooLong: 'Keep the reason under 1000 characters.',
+
   ...MAIL_MESSAGES,
   ...PAYMENTS_MESSAGES,
   ...FILES_MESSAGES,
