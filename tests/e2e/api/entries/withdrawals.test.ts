@@ -1,4 +1,3 @@
-/* eslint-disable @typescript-eslint/no-explicit-any -- response bodies are what the tests assert */
 // Withdrawing an entry through the real route, read back from the SMTP capture: the entrant's
 // own withdrawal confirms to them and tells every organiser the refund due (the money received,
 // paid first through the payment fake); the organiser withdraws for the pilot only with a reason,
