@@ -33,6 +33,12 @@ export const MESSAGES = {
   withdrawEntrantOrOrganiser: 'Only the entry’s own entrant, or the competition’s organiser for the pilot, can withdraw it.',
   withdrawReasonRequired: 'Say why the office withdraws this entry: the pilot is told the reason.',
   withdrawReasonTooLong: 'Keep the reason under 1000 characters.',
+  reminderDayWhole: 'Enter each reminder as a whole number of days, e.g. 30, 14, 3.',
+  reminderDayTooSoon: 'A reminder goes at least 1 day before the first contest day.',
+  reminderDayTooEarly: (max: number) => `A reminder goes at most ${max} days before the first contest day.`,
+  reminderDaysList: 'Send the reminder days as a list of numbers.',
+  reminderDaysTooMany: (max: number) => `Schedule at most ${max} reminders.`,
+  reminderDayTwice: 'A reminder day is listed twice.',
 
   ...MAIL_MESSAGES,
   ...PAYMENTS_MESSAGES,

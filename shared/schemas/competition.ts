@@ -1,7 +1,8 @@
 import { z } from 'zod'
 import { APPROVAL_LEVELS, DOCUMENT_KINDS } from '../constants/entries'
 import { DEFAULT_CHECKLIST } from '../constants/grid'
-import { DEFAULT_REMINDER_DAYS, MAX_REMINDER_DAYS, MAX_REMINDER_DAYS_BEFORE } from '../utils/reminder-schedule'
+import { MAX_REMINDER_DAYS, MAX_REMINDER_DAYS_BEFORE } from '../utils/reminder-schedule'
+import { MESSAGES } from '../constants/messages'
 
 /** A calendar date as the competition's office writes it: YYYY-MM-DD. */
 export const isoDate = z
@@ -114,17 +115,15 @@ export const currencySchema = z
  */
 export const reminderDaysSchema = z
   .array(
-    z.number({ error: 'Enter each reminder as a whole number of days, e.g. 30, 14, 3.' })
-      .int({ error: 'Enter each reminder as a whole number of days, e.g. 30, 14, 3.' })
-      .min(1, { error: 'A reminder goes at least 1 day before the first contest day.' })
-      .max(MAX_REMINDER_DAYS_BEFORE, { error: `A reminder goes at most ${MAX_REMINDER_DAYS_BEFORE} days before the first contest day.` }),
-    { error: 'Send the reminder days as a list of numbers.' },
+    z.number({ error: MESSAGES.reminderDayWhole })
+      .int({ error: MESSAGES.reminderDayWhole })
+      .min(1, { error: MESSAGES.reminderDayTooSoon })
+      .max(MAX_REMINDER_DAYS_BEFORE, { error: MESSAGES.reminderDayTooEarly(MAX_REMINDER_DAYS_BEFORE) }),
+    { error: MESSAGES.reminderDaysList },
   )
-  .max(MAX_REMINDER_DAYS, { error: `Schedule at most ${MAX_REMINDER_DAYS} reminders.` })
-  .refine(list => new Set(list).size === list.length, { error: 'A reminder day is listed twice.' })
+  .max(MAX_REMINDER_DAYS, { error: MESSAGES.reminderDaysTooMany(MAX_REMINDER_DAYS) })
+  .refine(list => new Set(list).size === list.length, { error: MESSAGES.reminderDayTwice })
   .transform(list => [...list].sort((a, b) => b - a))
-
-export { DEFAULT_REMINDER_DAYS }
 
 const optionalDate = isoDate.nullable().optional()
 const minorUnits = (label: string) =>
