@@ -17,7 +17,9 @@ export function useEntryActions(competitionId: MaybeRefOrGetter<string>) {
     deleteUnit: (entryId: string, unitId: string) =>
       $fetch(`${entry(entryId)}/units/${encodeURIComponent(unitId)}`, { method: 'DELETE' }),
     submit: (entryId: string) => $fetch<EntryDossier>(`${entry(entryId)}/submit`, { method: 'POST' }),
-    withdraw: (entryId: string) => $fetch<EntryDossier>(`${entry(entryId)}/withdraw`, { method: 'POST' }),
+    /** The entrant withdraws their entry; the organiser withdraws it for the pilot with a reason. */
+    withdraw: (entryId: string, reason?: string) =>
+      $fetch<EntryDossier>(`${entry(entryId)}/withdraw`, { method: 'POST', ...(reason ? { body: { reason } } : {}) }),
     accept: (entryId: string) => $fetch<EntryDossier>(`${entry(entryId)}/accept`, { method: 'POST' }),
     reject: (entryId: string, reason: string) => $fetch<EntryDossier>(`${entry(entryId)}/reject`, { method: 'POST', body: { reason } }),
     /** Staff: the pilot's and co-pilot's mass with parachute from the registration weighing. */

@@ -29,6 +29,7 @@ import * as m20261206000200 from './20261206000200_changed_after_acceptance'
 import * as m20261206000300 from './20261206000300_entry_messages'
 import * as m20261207000300 from './20261207000300_waiver_withdrawal'
 import * as m20261208000100 from './20261208000100_payments_any_way'
+import * as m20261208000200 from './20261208000200_reminder_schedule'
 
 type Migration = Knex.Migration
 
@@ -61,6 +62,7 @@ const migrations: Record<string, Migration> = {
   '20261206000300_entry_messages': m20261206000300,
   '20261207000300_waiver_withdrawal': m20261207000300,
   '20261208000100_payments_any_way': m20261208000100,
+  '20261208000200_reminder_schedule': m20261208000200,
 }
 
 export const migrationSource: Knex.MigrationSource<string> = {

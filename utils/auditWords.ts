@@ -104,6 +104,10 @@ export function auditDescription(item: Pick<AuditLogItem, 'action' | 'details'>)
       if (r && r.from !== r.to) parts.push(`${readinessWord(r.from) || 'not on the board'} → ${readinessWord(r.to)}`)
       return `${day ? `${day}: ` : ''}${parts.join('; ')}`
     }
+    case 'entry.withdrawn': {
+      const by = d.by === 'office' ? ' by the office for the pilot' : d.by === 'entrant' ? ' by the entrant' : ''
+      return `${value(d.from)} → withdrawn${by}${reason ? ` · reason: ${reason}` : ''}`
+    }
     case 'day.opened':
     case 'day.reopened':
       return `${day ?? ''}${text(d.kind) ? ` (${d.kind} day)` : ''}${typeof d.entries === 'number' ? `, ${d.entries} on the board` : ''}`

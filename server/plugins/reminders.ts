@@ -1,5 +1,7 @@
-// Runs the pre-event reminder job on a timer (runtime config reminders.intervalMs; 0 turns it
-// off, as the tests do — they trigger it through POST /api/admin/reminders/run).
+// Runs the reminder job on a timer (runtime config reminders.intervalMs; 0 turns it off, as the
+// tests do — they trigger it through POST /api/admin/reminders/run with a chosen instant). Each
+// run sends what the competitions' schedules make due that day (server/domain/mail/reminders.ts),
+// so an hourly run is plenty and a missed run costs nothing but lateness.
 import { runReminders } from '#domain/mail/reminders'
 
 export default defineNitroPlugin((nitroApp) => {
@@ -11,7 +13,7 @@ export default defineNitroPlugin((nitroApp) => {
     if (running) return
     running = runReminders()
       .then((r) => {
-        if (r.queued) console.info(`[gridmark] queued ${r.queued} pre-event reminder(s)`)
+        if (r.queued) console.info(`[gridmark] queued ${r.queued} reminder(s)`)
       })
       .catch(error => console.warn(`[gridmark] reminder job: ${(error as Error).message}`))
       .finally(() => { running = undefined })

@@ -28,6 +28,18 @@ export const MESSAGES = {
   referenceMissing: 'It refers to something that does not exist (any more).',
   databaseDown: 'The database is not reachable just now. Nothing was changed; please try again in a moment.',
   unexpected: 'Something went wrong on our side. Nothing was changed; please try again.',
+
+  // ——— Withdrawals and the reminder schedule ———
+  withdrawEntrantOrOrganiser: 'Only the entry’s own entrant, or the competition’s organiser for the pilot, can withdraw it.',
+  withdrawReasonRequired: 'Say why the office withdraws this entry: the pilot is told the reason.',
+  withdrawReasonTooLong: 'Keep the reason under 1000 characters.',
+  reminderDayWhole: 'Enter each reminder as a whole number of days, e.g. 30, 14, 3.',
+  reminderDayTooSoon: 'A reminder goes at least 1 day before the first contest day.',
+  reminderDayTooEarly: (max: number) => `A reminder goes at most ${max} days before the first contest day.`,
+  reminderDaysList: 'Send the reminder days as a list of numbers.',
+  reminderDaysTooMany: (max: number) => `Schedule at most ${max} reminders.`,
+  reminderDayTwice: 'A reminder day is listed twice.',
+
   ...MAIL_MESSAGES,
   ...PAYMENTS_MESSAGES,
   ...FILES_MESSAGES,

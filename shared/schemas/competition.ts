@@ -1,6 +1,8 @@
 import { z } from 'zod'
 import { APPROVAL_LEVELS, DOCUMENT_KINDS } from '../constants/entries'
 import { DEFAULT_CHECKLIST } from '../constants/grid'
+import { MAX_REMINDER_DAYS, MAX_REMINDER_DAYS_BEFORE } from '../utils/reminder-schedule'
+import { MESSAGES } from '../constants/messages'
 
 /** A calendar date as the competition's office writes it: YYYY-MM-DD. */
 export const isoDate = z
@@ -107,6 +109,22 @@ export const currencySchema = z
     return !known || known.includes(code)
   }, { error: 'That is not an ISO 4217 currency code.' })
 
+/**
+ * The pre-event reminder schedule: whole days before the first contest day, each at most once,
+ * kept largest first. An empty list sends no reminders (shared/utils/reminder-schedule.ts).
+ */
+export const reminderDaysSchema = z
+  .array(
+    z.number({ error: MESSAGES.reminderDayWhole })
+      .int({ error: MESSAGES.reminderDayWhole })
+      .min(1, { error: MESSAGES.reminderDayTooSoon })
+      .max(MAX_REMINDER_DAYS_BEFORE, { error: MESSAGES.reminderDayTooEarly(MAX_REMINDER_DAYS_BEFORE) }),
+    { error: MESSAGES.reminderDaysList },
+  )
+  .max(MAX_REMINDER_DAYS, { error: MESSAGES.reminderDaysTooMany(MAX_REMINDER_DAYS) })
+  .refine(list => new Set(list).size === list.length, { error: MESSAGES.reminderDayTwice })
+  .transform(list => [...list].sort((a, b) => b - a))
+
 const optionalDate = isoDate.nullable().optional()
 const minorUnits = (label: string) =>
   z.number({ error: `Enter the ${label} as a number.` }).int({ error: `Enter the ${label} in whole cents.` }).min(0, { error: `The ${label} cannot be negative.` }).max(100_000_000, { error: `The ${label} looks too large.` })
@@ -125,6 +143,7 @@ const setupFields = {
   registrationClosesOn: optionalDate,
   lateFeeAfter: optionalDate,
   lateFeeMinor: minorUnits('late fee'),
+  reminderDays: reminderDaysSchema,
   rules: competitionRulesSchema,
 }
 

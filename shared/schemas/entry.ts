@@ -2,6 +2,7 @@ import { z } from 'zod'
 import { entryParamsSchema } from './params'
 import { APPROVAL_LEVELS, MOTOR_GLIDER_KINDS } from '../constants/entries'
 import { isoDate } from './competition'
+import { MESSAGES } from '../constants/messages'
 
 const text = (label: string, max = 120) =>
   z.string({ error: `Enter the ${label}.` }).trim().min(1, { error: `Enter the ${label}.` }).max(max, { error: `Keep the ${label} under ${max} characters.` })
@@ -160,6 +161,25 @@ export const entryRejectSchema = z.object({
   reason: z.string({ error: 'Give the entrant a reason.' }).trim()
     .min(3, { error: 'Give the entrant a reason.' })
     .max(1000, { error: 'Keep the reason under 1000 characters.' }),
+}, { error: 'Send the reason as a JSON object.' })
+
+/**
+ * POST …/withdraw: nothing from the entrant (a reason is optional); the organiser withdrawing
+ * for the pilot must give one (the domain checks that, as it knows who is calling).
+ */
+export const entryWithdrawSchema = z.object({
+  reason: z.string({ error: MESSAGES.withdrawReasonRequired }).trim()
+    .max(1000, { error: MESSAGES.withdrawReasonTooLong })
+    .optional()
+    .transform(r => (r ? r : undefined)),
+}, { error: 'Send the reason as a JSON object.' })
+export type EntryWithdrawBody = z.output<typeof entryWithdrawSchema>
+
+/** The organiser's form withdrawing an entry for the pilot: the reason is required. */
+export const entryWithdrawForPilotSchema = z.object({
+  reason: z.string({ error: MESSAGES.withdrawReasonRequired }).trim()
+    .min(3, { error: MESSAGES.withdrawReasonRequired })
+    .max(1000, { error: MESSAGES.withdrawReasonTooLong }),
 }, { error: 'Send the reason as a JSON object.' })
 
 export { entryParamsSchema }

@@ -89,7 +89,10 @@ export interface EntryPermissions {
   /** Shown when edit is false, or to explain until when editing stays possible. */
   editNote: string
   submit: boolean
+  /** The entrant withdraws their own entry. */
   withdraw: boolean
+  /** The organiser withdraws someone else's entry for the pilot, with a reason. */
+  withdrawForPilot: boolean
   decide: boolean
 }
 

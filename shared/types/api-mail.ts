@@ -38,6 +38,8 @@ export interface InvitationAccepted {
 export interface ReminderRunResult {
   queued: number
   entryIds: string[]
+  /** Each reminder queued: its entry and kind (`pre-event-30`, `draft-14`, …). */
+  reminders: { entryId: string, kind: string }[]
 }
 
 /** One person in GET /api/competitions/:id/memberships, with each role's membership id. */

@@ -33,6 +33,8 @@ export interface CompetitionSetupResponse {
   registrationClosesOn: string | null
   lateFeeAfter: string | null
   lateFeeMinor: number
+  /** Days before the first contest day on which reminders go out, largest first (shared/utils/reminder-schedule.ts). */
+  reminderDays: number[]
   rules: CompetitionRules
   classes: SetupClass[]
 }

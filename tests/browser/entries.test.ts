@@ -222,4 +222,42 @@ describe('entrant registration in the browser', () => {
       await page.close()
     }
   })
+
+  it('lets the organiser withdraw an entry for the pilot: a reason, a confirmation, and the pilot is told why', async () => {
+    const classId = (await testDb()('classes').where({ competition_id: competitionId, name: 'Standard' }).first()).id
+    const id = await completeEntry(entrant.client, competitionId, entryBody(classId, { compId: 'WP', registration: 'G-WDRW', pilotName: 'Bea Browser' }), '6C7D8E')
+    expect((await entrant.client.post(`/api/competitions/${competitionId}/entries/${id}/submit`)).status).toBe(200)
+    expect((await organiser.client.post(`/api/competitions/${competitionId}/entries/${id}/accept`)).status).toBe(200)
+
+    await browser.context.clearCookies()
+    const page = await openPage(browser.context, baseUrl, '/sign-in', 'desk')
+    try {
+      await signInThroughForm(page, baseUrl, organiser.email, GOOD_PASSWORD, `/competitions/${competitionId}/entries/${id}`)
+      // The entrant's own button is not the office's.
+      expect(await page.getByRole('button', { name: 'Withdraw the entry…' }).count()).toBe(0)
+      await page.getByRole('button', { name: 'Withdraw for the pilot…' }).click()
+      const form = page.getByTestId('withdraw-for-pilot-form')
+      await form.getByRole('button', { name: 'Withdraw for the pilot…' }).click()
+      await page.locator('#withdraw-reason-error').getByText('Say why the office withdraws this entry: the pilot is told the reason.').waitFor()
+      await form.getByLabel('Why does the office withdraw it?').fill('The pilot phoned: the trailer broke down on the way.')
+      await form.getByRole('button', { name: 'Withdraw for the pilot…' }).click()
+      // A confirmation first: nothing is withdrawn yet.
+      await form.getByTestId('withdraw-confirm').getByText('Withdraw WP for good?').waitFor()
+      expect((await testDb()('entries').where({ id }).first()).status).toBe('accepted')
+      await screenshot(page, 'entry-withdraw-for-pilot-desk')
+      await form.getByRole('button', { name: 'Yes, withdraw for the pilot' }).click()
+      await page.getByTestId('entry-status').getByText('Withdrawn').waitFor()
+      expect(await page.getByRole('button', { name: 'Withdraw for the pilot…' }).count()).toBe(0)
+
+      const audit = await testDb()('audit_log').where({ subject_id: id, action: 'entry.withdrawn' }).first()
+      expect(audit.actor_user_id).toBe(organiser.user.id)
+      expect(audit.details).toMatchObject({ by: 'office', reason: 'The pilot phoned: the trailer broke down on the way.' })
+      const told = await testDb()('mail_outbox').where({ entry_id: id, template: 'entry-withdrawn' }).first()
+      expect(told.to_address).toBe(entrant.email)
+      expect(told.text_body).toContain('Their reason: The pilot phoned: the trailer broke down on the way.')
+    }
+    finally {
+      await page.close()
+    }
+  })
 })

@@ -72,6 +72,37 @@ describe('set-up page', () => {
     }
   })
 
+  it('saves the reminder schedule, and shows a clear error beside the field for a bad one', async () => {
+    await browser.context.clearCookies()
+    const page = await openPage(browser.context, baseUrl, '/sign-in', 'desk')
+    try {
+      await signInThroughForm(page, baseUrl, organiserEmail, GOOD_PASSWORD, `/competitions/${t.competitionId}/setup`)
+      const field = page.getByLabel('Send reminders (days before the first contest day)')
+      await expect.poll(() => field.inputValue()).toBe('30, 14, 3')
+      await expect.poll(() => page.getByTestId('setup-reminder-schedule').textContent()).toContain('30, 14 and 3 days before the first contest day')
+
+      await field.fill('30, 14, 14')
+      await page.getByRole('button', { name: 'Save set-up' }).click()
+      await page.locator('#setup-reminderDays-error').getByText('A reminder day is listed twice.').waitFor()
+      expect(await field.getAttribute('aria-describedby')).toContain('setup-reminderDays-error')
+      await field.fill('21, soon')
+      await page.getByRole('button', { name: 'Save set-up' }).click()
+      await page.locator('#setup-reminderDays-error').getByText('Enter each reminder as a whole number of days, e.g. 30, 14, 3.').waitFor()
+      await screenshot(page, 'setup-reminders-error-desk')
+      expect((await testDb()('competitions').where({ id: t.competitionId }).first()).settings.reminderDays).not.toEqual([21, 7])
+
+      await field.fill('7 21')
+      await page.getByRole('button', { name: 'Save set-up' }).click()
+      await page.getByTestId('setup-saved').waitFor()
+      await expect.poll(async () => (await testDb()('competitions').where({ id: t.competitionId }).first()).settings.reminderDays).toEqual([21, 7])
+      await expect.poll(() => field.inputValue()).toBe('21, 7')
+      await expect.poll(() => page.getByTestId('setup-reminder-schedule').textContent()).toContain('21 and 7 days before the first contest day')
+    }
+    finally {
+      await page.close()
+    }
+  })
+
   it('fits a phone without sideways scrolling', async () => {
     const page = await openPage(browser.context, baseUrl, `/competitions/${t.competitionId}/setup`, 'phone')
     try {

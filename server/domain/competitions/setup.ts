@@ -22,6 +22,7 @@ import { settleEntryPayments } from '#domain/fees/fees'
 import { useDb } from '#server/utils/db'
 import { fieldError, httpError } from '#server/utils/errors'
 import { rulesOf } from '#shared/utils/rules'
+import { reminderScheduleOf } from '#shared/utils/reminder-schedule'
 import { toClassSummary } from './competitions'
 
 function slugFor(name: string): string {
@@ -115,6 +116,7 @@ export async function competitionSetup(competitionId: string, db: Knex = useDb()
     registrationClosesOn: row.registration_closes_on,
     lateFeeAfter: row.late_fee_after,
     lateFeeMinor: row.late_fee_minor,
+    reminderDays: reminderScheduleOf(row.settings),
     rules: rulesOf(row.settings),
     classes,
   }
@@ -140,6 +142,7 @@ function setupValuesOf(s: CompetitionSetupResponse): SetupValues {
     registrationClosesOn: s.registrationClosesOn,
     lateFeeAfter: s.lateFeeAfter,
     lateFeeMinor: s.lateFeeMinor,
+    reminderDays: s.reminderDays,
     rules: s.rules,
   }
 }
@@ -178,7 +181,8 @@ export async function updateCompetitionSetup(competitionId: string, patch: Compe
       registration_closes_on: merged.registrationClosesOn ?? null,
       late_fee_after: merged.lateFeeAfter ?? null,
       late_fee_minor: merged.lateFeeMinor,
-      settings: merged.rules,
+      // The reminder schedule lives beside the rules in settings (it is read by no check).
+      settings: { ...merged.rules, reminderDays: merged.reminderDays },
       updated_at: trx.fn.now(),
     })
     if (changes.practiceDays || changes.contestDays) {

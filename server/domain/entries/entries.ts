@@ -1,6 +1,7 @@
 // Entries: one glider in one class of one competition. Joining (which makes the caller an
 // entrant of the competition), the dossier, field-by-field audited changes, units, and the
-// status flow draft → submitted → accepted | rejected, withdrawn by the entrant at any time.
+// status flow draft → submitted → accepted | rejected, withdrawn at any time by the entrant (or
+// by the organiser for the pilot, with a reason).
 //
 // Who may change an entry: its entrant while it is a draft, submitted or rejected AND
 // registration has not closed; the organiser (and site administrators) at any time until it
@@ -9,7 +10,7 @@ import type { Knex } from 'knex'
 import type { User } from '#auth-utils'
 import type { EntryStatus } from '#shared/constants/entries'
 import { MESSAGES } from '#shared/constants/messages'
-import type { EntryBody, EntryPatch, OccupantMasses, UnitBody } from '#shared/schemas/entry'
+import type { EntryBody, EntryPatch, EntryWithdrawBody, OccupantMasses, UnitBody } from '#shared/schemas/entry'
 import type { CompetitionClassSummary } from '#shared/types/api'
 import type {
   DossierDocument, DossierIgcFile, DossierPayment, EntryCompetitionInfo, EntryDossier, EntryPermissions,
@@ -27,6 +28,7 @@ import { settleEntryPayments } from '#domain/fees/fees'
 import { countFindings, entryFindings, findingsByEntry } from '#domain/findings/findings'
 import { enqueueMail } from '#domain/mail/outbox'
 import { entryAcceptedMail, entryRejectedMail, entrySubmittedMail, entryToReviewMail, ruleLink } from '#domain/mail/templates'
+import { entryWithdrawnMail, entryWithdrawnOfficeMail } from '#domain/mail/templates-office'
 import { rolesInCompetition } from '#domain/people/memberships'
 import { iso, num } from '#domain/read-model/values'
 import { actionsQuery, type BoardActionRow, toTileAction } from '#domain/read-model/day-inputs'
@@ -37,6 +39,7 @@ import { httpError } from '#server/utils/errors'
 import { siteUrl } from '#server/utils/site-url'
 import { reminderOpenItems } from '#shared/utils/reminder-items'
 import { rulesOf } from '#shared/utils/rules'
+import { formatMoney } from '#shared/utils/money'
 
 // ---------------------------------------------------------------------------------------
 // Reading
@@ -234,6 +237,7 @@ function permissions(access: EntryAccess, entry: EntryRow, window: RegistrationW
     editNote,
     submit: access.isOwner && (entry.status === 'draft' || entry.status === 'rejected') && !window.closed,
     withdraw: access.isOwner && entry.status !== 'withdrawn',
+    withdrawForPilot: !access.isOwner && isOrganiser(access) && entry.status !== 'withdrawn',
     decide: isOrganiser(access) && entry.status === 'submitted',
   }
 }
@@ -647,16 +651,64 @@ export async function submitEntry(access: EntryAccess): Promise<void> {
   })
 }
 
-export async function withdrawEntry(access: EntryAccess): Promise<void> {
+/**
+ * Withdraws an entry (final; its competition ID and radio IDs become free and it leaves the
+ * board). Its own entrant withdraws it; the organiser may withdraw it for the pilot, with a
+ * reason the pilot is told. The entrant gets a confirmation (or the office's reason), each
+ * organiser a notice naming the entry and the refund due: the money received for it, net of
+ * refunds (`entries.paid_minor`). Audited with who withdrew it and why.
+ */
+export async function withdrawEntry(access: EntryAccess, body: Partial<EntryWithdrawBody> = {}): Promise<void> {
   const { competition, user } = access
+  const byOffice = !access.isOwner
+  if (byOffice && !isOrganiser(access)) throw httpError(403, MESSAGES.withdrawEntrantOrOrganiser)
+  if (byOffice && !body.reason) {
+    throw httpError(400, MESSAGES.withdrawReasonRequired, { fieldErrors: { reason: [MESSAGES.withdrawReasonRequired] }, formErrors: [] })
+  }
   await useDb().transaction(async (trx) => {
     const entry: EntryRow = await trx('entries').where({ id: access.entry.id }).forUpdate().first()
     if (entry.status === 'withdrawn') throw httpError(409, MESSAGES.alreadyWithdrawn)
     await trx('entries').where({ id: entry.id }).update({ status: 'withdrawn', withdrawn_at: trx.fn.now(), updated_at: trx.fn.now() })
     await audit(trx, {
       actorUserId: user.id, competitionId: competition.id, action: 'entry.withdrawn', subjectType: 'entry', subjectId: entry.id,
-      details: { from: entry.status, to: 'withdrawn' },
+      details: {
+        from: entry.status, to: 'withdrawn', by: byOffice ? 'office' : 'entrant', paidMinor: entry.paid_minor,
+        ...(body.reason ? { reason: body.reason } : {}),
+      },
     })
+
+    const entrant = await entrantEmail(trx, entry)
+    const paid = entry.paid_minor > 0 ? formatMoney(entry.paid_minor, competition.currency) : null
+    const entryUrl = entryPageUrl(competition.id, entry.id)
+    const toEntrant = entryWithdrawnMail({
+      entrantName: entrant.name,
+      entryLabel: entryLabel(entry),
+      compId: entry.comp_id,
+      competitionName: competition.name,
+      byOffice: byOffice ? { name: user.name, reason: body.reason! } : undefined,
+      paid,
+      entryUrl,
+    })
+    await enqueueMail(trx, {
+      to: entrant.email, subject: toEntrant.subject, text: toEntrant.text, html: toEntrant.html,
+      template: 'entry-withdrawn', competitionId: competition.id, entryId: entry.id,
+    })
+    const toOffice = entryWithdrawnOfficeMail({
+      pilotName: entry.pilot_name,
+      entryLabel: entryLabel(entry),
+      compId: entry.comp_id,
+      competitionName: competition.name,
+      withdrawnBy: byOffice ? { name: user.name, office: true, reason: body.reason } : { name: entrant.name, office: false, reason: body.reason },
+      refundDue: paid,
+      // The entry's payments, where the office sees what was paid and refunds it.
+      paymentsUrl: paid ? `${entryUrl}/payment` : entryUrl,
+    })
+    for (const to of await organiserEmails(trx, competition.id)) {
+      await enqueueMail(trx, {
+        to, subject: toOffice.subject, text: toOffice.text, html: toOffice.html,
+        template: 'entry-withdrawn-office', competitionId: competition.id, entryId: entry.id,
+      })
+    }
     await dossierChanged(trx, competition.id, [entry.id], user.id)
   })
 }

@@ -166,14 +166,17 @@ export function invitationMail(input: {
 export function reminderMail(input: {
   competitionName: string
   firstContestDay: string
+  /** Days left until the first contest day, as the reminder is sent. */
+  daysLeft?: number
   pilotName: string
   compId: string
   openItems: (string | MailListItem)[]
   url: string
 }): RenderedMail & { subject: string } {
   const day = formatDay(input.firstContestDay) ?? input.firstContestDay
+  const lead = input.daysLeft ? ` (in ${input.daysLeft} ${input.daysLeft === 1 ? 'day' : 'days'})` : ''
   const paragraphs = [
-    `${input.competitionName} starts on ${day}. This is a reminder about your entry ${input.compId} (${input.pilotName}).`,
+    `${input.competitionName} starts on ${day}${lead}. This is a reminder about your entry ${input.compId} (${input.pilotName}).`,
   ]
   if (input.openItems.length) {
     paragraphs.push('These points are still open on your entry. Fixing them before you arrive saves time at scrutineering:')

@@ -27,6 +27,9 @@ describe('audit words', () => {
     expect(auditDescription({ action: 'entry.created', details: { compId: 'DX', registration: 'G-98AA', classId: 'c' } })).toBe('DX · G-98AA')
     expect(auditDescription({ action: 'tag.issued', details: { tagId: 't', shortCode: 'HY369FYA' } })).toBe('short code HY36-9FYA')
     expect(auditDescription({ action: 'entry.rejected', details: { from: 'submitted', to: 'rejected', reason: 'No insurance' } })).toBe('submitted → rejected · reason: No insurance')
+    expect(auditDescription({ action: 'entry.withdrawn', details: { from: 'accepted', to: 'withdrawn', by: 'office', reason: 'Injured', paidMinor: 0 } })).toBe('accepted → withdrawn by the office for the pilot · reason: Injured')
+    expect(auditDescription({ action: 'entry.withdrawn', details: { from: 'draft', to: 'withdrawn', by: 'entrant', paidMinor: 0 } })).toBe('draft → withdrawn by the entrant')
+    expect(auditDescription({ action: 'entry.withdrawn', details: { from: 'draft', to: 'withdrawn' } })).toBe('draft → withdrawn')
   })
 
   it('describes payments by amount, method, day and reason, and a change of paid state with what is owed', () => {

@@ -1,5 +1,5 @@
-// POST /api/admin/reminders/run — site administrators. Runs the pre-event reminder job now
-// (optionally as of a given time, for tests and dry runs of a schedule); returns what it queued.
+// POST /api/admin/reminders/run {now?} — site administrators. Runs the reminder job now, or as
+// of a given instant (the controllable clock of tests); returns what it queued, with each kind.
 import { reminderRunBodySchema } from '#shared/schemas/invitation'
 import { runReminders } from '#domain/mail/reminders'
 

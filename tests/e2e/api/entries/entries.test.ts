@@ -398,10 +398,12 @@ describe('my entries', () => {
 })
 
 describe('withdrawing', () => {
-  it('is for the entrant only; it frees the competition ID and its radio IDs', async () => {
+  it('is for the entrant (the organiser needs a reason); it frees the competition ID and its radio IDs', async () => {
     const organiser = await w.organiser.client.post(`${path()}/withdraw`)
-    expect(organiser.status).toBe(403)
-    expect(organiser.body.message).toBe('Only the entry’s own entrant can do this.')
+    expect(organiser.status).toBe(400)
+    expect(organiser.body.message).toBe('Say why the office withdraws this entry: the pilot is told the reason.')
+    const scrutineer = await w.scrutineer.client.post(`${path()}/withdraw`, { reason: 'Not theirs' })
+    expect(scrutineer.status).toBe(403)
     const res = await w.entrant.client.post(`${path()}/withdraw`)
     expect(res.status).toBe(200)
     expect(res.body.entry.status).toBe('withdrawn')

@@ -1,6 +1,6 @@
 // The set-up schemas shared by the set-up form and the API.
 import { describe, expect, it } from 'vitest'
-import { classCreateSchema, competitionSetupSchema, currencySchema, icaoSchema, isKnownTimeZone, DEFAULT_RULES } from '#shared/schemas/competition'
+import { classCreateSchema, competitionSetupSchema, competitionSetupPatchSchema, currencySchema, icaoSchema, isKnownTimeZone, DEFAULT_RULES } from '#shared/schemas/competition'
 import { firmwareCsvRowSchema } from '#shared/schemas/firmware'
 import { entryTableQuerySchema } from '#shared/schemas/entry-table'
 import { FAI_CLASSES, faiClass } from '#shared/constants/classes'
@@ -9,9 +9,29 @@ import { csvSafe } from '#shared/utils/csv-safe'
 const setup = (over: Record<string, unknown> = {}) => ({
   name: 'Kestrel Test', airfieldName: 'Test Field', airfieldIcao: null, timeZone: 'Europe/Berlin', currency: 'EUR',
   firstContestDay: '2027-05-01', lastContestDay: '2027-05-07', practiceDays: ['2027-04-30'], contestDays: ['2027-05-01', '2027-05-07'],
-  registrationOpensOn: '2027-01-01', registrationClosesOn: '2027-04-01', lateFeeAfter: null, lateFeeMinor: 0, rules: DEFAULT_RULES, ...over,
+  registrationOpensOn: '2027-01-01', registrationClosesOn: '2027-04-01', lateFeeAfter: null, lateFeeMinor: 0, reminderDays: [30, 14, 3], rules: DEFAULT_RULES, ...over,
 })
 const fieldsOf = (r: { success: boolean, error?: { issues: { path: PropertyKey[] }[] } }) => (r.error?.issues ?? []).map(i => String(i.path[0]))
+
+describe('the reminder schedule in the set-up', () => {
+  const messagesOf = (r: { error?: { issues: { message: string }[] } }) => (r.error?.issues ?? []).map(i => i.message)
+
+  it('keeps whole days from 1 to 365, largest first; none at all turns reminders off', () => {
+    expect(competitionSetupSchema.parse(setup({ reminderDays: [3, 30, 14] })).reminderDays).toEqual([30, 14, 3])
+    expect(competitionSetupSchema.parse(setup({ reminderDays: [] })).reminderDays).toEqual([])
+    expect(competitionSetupPatchSchema.parse({ reminderDays: [365, 1] }).reminderDays).toEqual([365, 1])
+  })
+
+  it('refuses what cannot be a schedule, each with its reason', () => {
+    expect(messagesOf(competitionSetupSchema.safeParse(setup({ reminderDays: [0] })))).toEqual(['A reminder goes at least 1 day before the first contest day.'])
+    expect(messagesOf(competitionSetupSchema.safeParse(setup({ reminderDays: [400] })))).toEqual(['A reminder goes at most 365 days before the first contest day.'])
+    expect(messagesOf(competitionSetupSchema.safeParse(setup({ reminderDays: [2.5] })))).toEqual(['Enter each reminder as a whole number of days, e.g. 30, 14, 3.'])
+    expect(messagesOf(competitionSetupSchema.safeParse(setup({ reminderDays: [Number.NaN] })))).toEqual(['Enter each reminder as a whole number of days, e.g. 30, 14, 3.'])
+    expect(messagesOf(competitionSetupSchema.safeParse(setup({ reminderDays: [14, 14] })))).toEqual(['A reminder day is listed twice.'])
+    expect(messagesOf(competitionSetupSchema.safeParse(setup({ reminderDays: [1, 2, 3, 4, 5, 6, 7] })))).toEqual(['Schedule at most 6 reminders.'])
+    expect(fieldsOf(competitionSetupPatchSchema.safeParse({ reminderDays: 14 }))).toEqual(['reminderDays'])
+  })
+})
 
 describe('competitionSetupSchema', () => {
   it('accepts a consistent set-up', () => {
