@@ -1,11 +1,12 @@
 // One audited way to change a unit's fields, whoever changes it: the entrant's or the office's
 // unit form (entries.ts) and the scrutineer's "the unit shows another version" on the grid
-// (grid/grid-checks.ts). One audit row per changed field; an accepted entry is marked changed.
+// (grid/grid-checks.ts). Two areas make this dossier change, so it lives beside
+// dossier-changed. One audit row per changed field; an accepted entry is marked changed.
 // The caller brings the board up to date (dossierChanged, or the grid check's own tile refresh).
 import type { Knex } from 'knex'
 import type { UnitRow } from '#shared/types/rows'
 import { audit } from '#domain/audit/audit'
-import { noteChangeAfterAcceptance } from '#domain/board/dossier-changed'
+import { noteChangeAfterAcceptance } from './dossier-changed'
 
 export const UNIT_FIELDS = {
   model: 'model',
