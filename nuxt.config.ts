@@ -41,16 +41,24 @@ export default defineNuxtConfig({
   runtimeConfig: {
     // Read at run time from the environment; the start and test scripts set them.
     databaseUrl: '',
+    // How many reverse proxies in front of the app append to X-Forwarded-For
+    // (server/utils/client-address.ts); 0 believes no header. trustProxy=true is the older switch for one.
+    trustedProxyHops: 0,
     trustProxy: false,
     // Card payments (NUXT_PAYMENTS_SECRET_KEY, …_WEBHOOK_SECRET, …_API_BASE). With real keys and
     // no apiBase the SDK talks to the real service; npm start and npm test point apiBase at
     // the local fake. Without a secret key, checkout answers that card payment is not set up.
     payments: { secretKey: '', webhookSecret: '', apiBase: '' },
+    // Only failed sign-ins count (server/domain/people/login-limit.ts): per client address, generous
+    // since a whole airfield may share one, and per account at one address.
     loginLimit: {
-      perAccount: 5,
-      perAddress: 30,
+      perAddress: 100,
+      perAccountAtAddress: 10,
       windowSeconds: 900,
     },
+    // Requests throttled per client address, successful or not.
+    signUpLimit: { perAddress: 20, windowSeconds: 3600 },
+    passwordResetLimit: { perAddress: 10, windowSeconds: 3600 },
     session: {
       name: 'gridmark-session',
       maxAge: 60 * 60 * 24 * 14,

@@ -5,9 +5,12 @@ import { createKnexConfig } from '../../knexfile'
 import { seedDemo } from '../../seeds/demo'
 import { ScriptError } from './common'
 
-/** Opens a connection pool for one task and always closes it, so the script can exit. */
+/**
+ * Opens a connection pool for one task and always closes it, so the script can exit. Without
+ * the server's statement and lock timeouts: a migration or a seed may rightly take long.
+ */
 async function withKnex<T>(url: string, task: (db: Knex) => Promise<T>): Promise<T> {
-  const db = knex(createKnexConfig(url))
+  const db = knex(createKnexConfig(url, { timeouts: false }))
   try {
     return await task(db)
   }

@@ -1,14 +1,17 @@
 // Reads an uploaded CSV file from a request: a text/csv (or text/plain) body, the first file
-// of a multipart form, or JSON {csv}. Size-capped before parsing.
+// of a multipart form, or JSON {csv}. Size-capped while it streams; no control characters but
+// tabs and line breaks.
 import type { H3Event } from 'h3'
 import { FIRMWARE_CSV_MAX_BYTES, firmwareImportJsonSchema } from '#shared/schemas/firmware'
 import { MESSAGES } from '#shared/constants/messages'
 import { httpError } from './errors'
-import { validBody } from './validation'
+import { controlCharacterError, hasControlCharacter, readLimitedBody, validBody } from './validation'
+
+/** Room for a multipart form's boundaries, or JSON's quotes and escapes, around the file. */
+const CSV_BODY_MAX_BYTES = Math.ceil(FIRMWARE_CSV_MAX_BYTES * 1.1)
 
 export async function readCatalogueUpload(event: H3Event): Promise<string> {
-  const declared = Number(getRequestHeader(event, 'content-length') ?? 0)
-  if (declared > FIRMWARE_CSV_MAX_BYTES * 1.1) throw httpError(413, MESSAGES.csvTooLarge)
+  await readLimitedBody(event, CSV_BODY_MAX_BYTES, MESSAGES.csvTooLarge)
   const type = (getRequestHeader(event, 'content-type') ?? '').toLowerCase()
   let text: string
   if (type.startsWith('text/csv') || type.startsWith('text/plain') || type.startsWith('application/csv')) {
@@ -21,12 +24,13 @@ export async function readCatalogueUpload(event: H3Event): Promise<string> {
     text = file.data.toString('utf8')
   }
   else if (type.startsWith('application/json')) {
-    text = (await validBody(event, firmwareImportJsonSchema)).csv
+    text = (await validBody(event, firmwareImportJsonSchema, { maxBytes: CSV_BODY_MAX_BYTES, tooLarge: MESSAGES.csvTooLarge })).csv
   }
   else {
     throw httpError(415, MESSAGES.csvMediaType)
   }
   if (Buffer.byteLength(text, 'utf8') > FIRMWARE_CSV_MAX_BYTES) throw httpError(413, MESSAGES.csvTooLarge)
   if (!text.trim()) throw httpError(400, MESSAGES.csvEmpty)
+  if (hasControlCharacter(text)) throw controlCharacterError(['csv'])
   return text
 }

@@ -1,6 +1,7 @@
 // The one Knex instance of this server process, created on first use.
 import knex, { type Knex } from 'knex'
 import { createKnexConfig } from '../../knexfile'
+import { noteStatement } from './errors'
 
 let instance: Knex | undefined
 
@@ -12,7 +13,11 @@ export function databaseUrl(): string {
 }
 
 export function useDb(): Knex {
-  instance ??= knex(createKnexConfig(databaseUrl()))
+  if (!instance) {
+    instance = knex(createKnexConfig(databaseUrl()))
+    // What each request sends, so an error can say "nothing was changed" when that is certain.
+    instance.on('query', noteStatement)
+  }
   return instance
 }
 

@@ -1,9 +1,60 @@
 // One mapper from whatever a handler throws to an answer a person understands: zod issues
-// → 400 with per-field messages, database constraint errors → 404/409, an unreachable
-// database → 503. Anything else is logged and becomes a plain 500.
+// → 400 with per-field messages, database constraint errors → 404/409, a busy database (full
+// pool, lock or statement timeout, deadlock) → 503 with Retry-After, an unreachable database
+// → 503. Anything else is logged and becomes a plain 500. A 5xx says "nothing was changed"
+// only when it is certain: no statement that could write was committed during the request.
+import { AsyncLocalStorage } from 'node:async_hooks'
 import { z } from 'zod'
-import { H3Error, createError, defineEventHandler, type H3Event, type EventHandlerRequest } from 'h3'
+import { H3Error, createError, defineEventHandler, setResponseHeader, type H3Event, type EventHandlerRequest } from 'h3'
 import { MESSAGES } from '#shared/constants/messages'
+
+/** Seconds a client is asked to wait after a 503 for a busy database. */
+export const BUSY_RETRY_AFTER_SECONDS = 5
+
+/**
+ * What one request has sent to the database, as far as it could have changed anything: a
+ * writing statement outside a transaction, or the COMMIT of a transaction that wrote. A
+ * transaction never committed changed nothing, whatever it wrote.
+ */
+interface RequestWrites {
+  changed: boolean
+  /** Connections (knex's ids) whose open transaction has written. */
+  dirty: Set<string>
+}
+
+const requestWrites = new AsyncLocalStorage<RequestWrites>()
+
+// A statement that may write: any of these words, outside a name (updated_at is not "update").
+// Reads that lock rows (FOR UPDATE) count too: the rule only has to err on the safe side.
+const WRITING = /\b(insert|update|delete|truncate|merge|alter|create|drop|grant|revoke|copy|call|do|lock|refresh|reindex|vacuum)\b/i
+
+/** Knex's 'query' event (server/utils/db.ts): notes what the current request may have changed. */
+export function noteStatement(query: { sql?: string, __knexUid?: string, __knexTxId?: string }): void {
+  const writes = requestWrites.getStore()
+  if (!writes || writes.changed) return
+  const sql = (query.sql ?? '').trim()
+  const connection = query.__knexUid ?? ''
+  if (/^commit\b/i.test(sql)) {
+    if (writes.dirty.has(connection)) writes.changed = true
+  }
+  else if (/^rollback;?$/i.test(sql)) {
+    writes.dirty.delete(connection)
+  }
+  else if (WRITING.test(sql)) {
+    if (query.__knexTxId) writes.dirty.add(connection)
+    else writes.changed = true
+  }
+}
+
+/** Runs a request's work with a fresh record of what it sends to the database. */
+export function trackRequestWrites<T>(work: () => T): T {
+  return requestWrites.run({ changed: false, dirty: new Set() }, work)
+}
+
+/** Whether the current request may have changed anything in the database (true outside a request). */
+export function mayHaveChanged(): boolean {
+  return requestWrites.getStore()?.changed ?? true
+}
 
 const DB_DOWN_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE', '57P01', '57P02', '57P03', '08000', '08001', '08003', '08006'])
 
@@ -37,9 +88,19 @@ function isDatabaseDown(err: unknown): boolean {
   if (!err || typeof err !== 'object') return false
   const e = err as { code?: string, name?: string, message?: string, errors?: unknown[] }
   if (e.code && DB_DOWN_CODES.has(e.code)) return true
-  if (e.name === 'KnexTimeoutError') return true
   if (Array.isArray(e.errors) && e.errors.some(isDatabaseDown)) return true // AggregateError from net
   return /Connection terminated|connect ECONNREFUSED|timeout exceeded when trying to connect/i.test(e.message ?? '')
+}
+
+/**
+ * The database is there but cannot serve this request now: no connection free in the pool,
+ * a lock or a statement that took too long (lock_timeout, statement_timeout), a deadlock or a
+ * serialisation failure. Trying again shortly is the cure.
+ */
+export function isDatabaseBusy(err: unknown): boolean {
+  if (!err || typeof err !== 'object') return false
+  const e = err as { code?: string, name?: string }
+  return e.name === 'KnexTimeoutError' || ['55P03', '57014', '40P01', '40001'].includes(e.code ?? '')
 }
 
 export function toHttpError(err: unknown): H3Error {
@@ -57,9 +118,11 @@ export function toHttpError(err: unknown): H3Error {
   if (code === '22P02' || code === '22007' || code === '22008') {
     return httpError(400, MESSAGES.invalidInput)
   }
-  if (isDatabaseDown(err)) return httpError(503, MESSAGES.databaseDown)
+  const certain = !mayHaveChanged()
+  if (isDatabaseBusy(err)) return httpError(503, certain ? MESSAGES.serverBusy : MESSAGES.serverBusyUncertain, { retryAfter: BUSY_RETRY_AFTER_SECONDS })
+  if (isDatabaseDown(err)) return httpError(503, certain ? MESSAGES.databaseDown : MESSAGES.databaseDownUncertain, { retryAfter: BUSY_RETRY_AFTER_SECONDS })
   console.error('[gridmark] unexpected error', err)
-  return httpError(500, MESSAGES.unexpected)
+  return httpError(500, certain ? MESSAGES.unexpected : MESSAGES.unexpectedUncertain)
 }
 
 /**
@@ -67,12 +130,15 @@ export function toHttpError(err: unknown): H3Error {
  * one of our mapped answers, never as a bare stack trace.
  */
 export function defineApiHandler<T>(handler: (event: H3Event<EventHandlerRequest>) => Promise<T> | T) {
-  return defineEventHandler(async (event) => {
+  return defineEventHandler(event => trackRequestWrites(async () => {
     try {
       return await handler(event)
     }
     catch (err) {
-      throw toHttpError(err)
+      const answer = toHttpError(err)
+      const retryAfter = (answer.data as { retryAfter?: number } | undefined)?.retryAfter
+      if (answer.statusCode === 503 && retryAfter) setResponseHeader(event, 'Retry-After', retryAfter)
+      throw answer
     }
-  })
+  }))
 }

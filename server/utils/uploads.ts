@@ -1,9 +1,11 @@
 // Reading one uploaded file and its text fields from a multipart form, with the size limit
-// enforced before the body is read (Content-Length) and again on the file itself.
+// enforced before the body is read (Content-Length), while it streams (a chunked body), and
+// again on the file itself. The form is held in memory once read (at most the limit).
 import type { H3Event } from 'h3'
 import type { z } from 'zod'
 import { MESSAGES } from '#shared/constants/messages'
 import { httpError } from './errors'
+import { assertPlainText, readLimitedBody } from './validation'
 
 export interface Upload<F> {
   filename: string
@@ -20,10 +22,7 @@ export async function readUpload<S extends z.ZodType>(
 ): Promise<Upload<z.output<S>>> {
   const type = getRequestHeader(event, 'content-type') ?? ''
   if (!/^multipart\/form-data/i.test(type)) throw httpError(400, MESSAGES.multipartRequired)
-  const length = Number(getRequestHeader(event, 'content-length'))
-  if (Number.isFinite(length) && length > options.maxBytes + FORM_OVERHEAD_BYTES) {
-    throw httpError(413, options.tooLarge)
-  }
+  await readLimitedBody(event, options.maxBytes + FORM_OVERHEAD_BYTES, options.tooLarge)
 
   let parts: Awaited<ReturnType<typeof readMultipartFormData>>
   try {
@@ -37,6 +36,7 @@ export async function readUpload<S extends z.ZodType>(
   for (const part of parts ?? []) {
     if (part.filename === undefined && part.name) text[part.name] = part.data.toString('utf8')
   }
+  assertPlainText(text)
   // Fields first, so a form with a wrong date and no file hears about both at once.
   const parsed = options.fields.safeParse(text)
   if (!file || file.data.length === 0) {

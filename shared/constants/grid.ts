@@ -55,3 +55,13 @@ export type FoundBy = (typeof FOUND_BY)[number]
 /** A grid check (and an opened day) is for today, tomorrow (a phone ahead of midnight), or up to 14 days back. */
 export const GRID_DAYS_BACK = 14
 export const GRID_DAYS_AHEAD = 1
+
+/**
+ * The time of a grid check (the phone's clock) is believed when it lies on the check's
+ * contest day in the competition's zone, give or take GRID_CHECK_DAY_SLACK_MINUTES, and is no
+ * later than the server's clock plus GRID_CHECK_CLOCK_SLACK_MINUTES. A check made offline and
+ * sent hours later is fine; a phone whose clock is wrong by a day or a year is refused, since
+ * the latest time of checking decides the board's tile.
+ */
+export const GRID_CHECK_DAY_SLACK_MINUTES = 120
+export const GRID_CHECK_CLOCK_SLACK_MINUTES = 5

@@ -40,6 +40,24 @@ export const MESSAGES = {
   reminderDaysTooMany: (max: number) => `Schedule at most ${max} reminders.`,
   reminderDayTwice: 'A reminder day is listed twice.',
 
+  // Requests that cannot hurt: limits while a body streams, control characters, a busy
+  // database, and "nothing was changed" only when that is certain; sign-up throttling.
+  tooManySignUps: (minutes: number) =>
+    `Too many accounts were requested from this network. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`,
+  tooManyResetRequests: (minutes: number) =>
+    `Too many password reset requests from this network. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`,
+  controlCharacter: 'Remove the invisible control character from this text (only tabs and line breaks can be kept).',
+  controlCharacterIn: (field: string) =>
+    `Some fields need attention. “${field}” holds an invisible control character; remove it (only tabs and line breaks can be kept).`,
+  bodyTooLarge: 'The request is larger than 1 MB, more than any form of Gridmark sends. Shorten the text and try again.',
+  webhookTooLarge: 'The payment notification is larger than 1 MB and was not read.',
+  serverBusy: 'The server is busy just now. Nothing was changed; please try again in a few seconds.',
+  serverBusyUncertain: 'The server is busy just now and could not finish. Part of it may have been saved: reload the page to see what was kept before you try again.',
+  databaseDownUncertain: 'The database stopped answering before this could finish. Part of it may have been saved: reload the page to see what was kept before you try again.',
+  unexpectedUncertain: 'Something went wrong on our side before this could finish. Part of it may have been saved: reload the page to see what was kept before you try again.',
+  gridCheckedAtFuture: 'The time of the check is later than now. Set the phone’s clock (date, time and time zone) and record the check again.',
+  gridCheckedAtOutsideDay: (day: string) =>
+    `The time of the check does not fall on the contest day ${day}. Check the phone’s date and time, or choose the day the glider was checked.`,
   ...MAIL_MESSAGES,
   ...PAYMENTS_MESSAGES,
   ...FILES_MESSAGES,

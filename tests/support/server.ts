@@ -40,8 +40,9 @@ export async function startServer(env: Record<string, string> = {}, port?: numbe
       PORT: String(listenPort),
       NITRO_HOST: '127.0.0.1',
       NITRO_PORT: String(listenPort),
-      // Tests speak for many clients from one machine, as a reverse proxy would.
-      NUXT_TRUST_PROXY: 'true',
+      // Tests speak for many clients from one machine, as one reverse proxy in front would:
+      // the last address of X-Forwarded-For is the client.
+      NUXT_TRUSTED_PROXY_HOPS: '1',
       ...env,
     },
     stdio: ['ignore', 'pipe', 'pipe'],

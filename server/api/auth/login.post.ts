@@ -2,7 +2,7 @@
 // 401 alike for an unknown address and a wrong password; 400 bad body; 429 when throttled.
 import { signInSchema } from '#shared/schemas/auth'
 import { MESSAGES } from '#shared/constants/messages'
-import { clearFailedLogins, guardLoginAttempt, recordFailedLogin } from '#domain/people/login-limit'
+import { takeSignInAttempt } from '#domain/people/login-limit'
 import { startSession } from '#domain/people/sessions'
 import { findUserByEmail, toPublicUser, updatePasswordHash } from '#domain/people/users'
 
@@ -11,17 +11,15 @@ let decoyHash: Promise<string> | undefined
 
 export default defineApiHandler(async (event) => {
   const body = await validBody(event, signInSchema)
-  await guardLoginAttempt(event, body.email)
+  // Counted as a failure before the password is checked, given back when it is right.
+  const attempt = await takeSignInAttempt(event, body.email)
 
   const user = await findUserByEmail(body.email)
   decoyHash ??= hashPassword('decoy password for unknown accounts')
   const valid = await verifyPassword(user?.password_hash ?? await decoyHash, body.password)
-  if (!user || !valid) {
-    await recordFailedLogin(event, body.email)
-    throw httpError(401, MESSAGES.badCredentials)
-  }
+  if (!user || !valid) throw httpError(401, MESSAGES.badCredentials)
 
-  await clearFailedLogins(body.email)
+  await attempt.succeeded()
   if (passwordNeedsReHash(user.password_hash)) {
     await updatePasswordHash(user.id, await hashPassword(body.password))
   }

@@ -27,7 +27,7 @@ import { type CompetitionDossiers, type DossierPartRow, dossiersOf, dossierState
 import { iso, num } from '#domain/read-model/values'
 import { useDb } from '#server/utils/db'
 import { fieldError, httpError } from '#server/utils/errors'
-import { gridDayAllowed, todayIn } from '#shared/utils/grid-days'
+import { gridCheckTimeProblem, gridDayAllowed, todayIn } from '#shared/utils/grid-days'
 import { initialsOf } from '#shared/utils/initials'
 import { rulesOf } from '#shared/utils/rules'
 import { checklistFor } from '#shared/utils/checklist'
@@ -315,6 +315,9 @@ export async function recordGridCheck(
     }
     if (entry.status !== 'accepted') throw httpError(409, MESSAGES.gridEntryNotAccepted)
     if (!gridDayAllowed(body.day, todayIn(competition.time_zone, now))) throw fieldError('day', MESSAGES.gridDayOutOfRange)
+    // The latest time of checking decides the tile: a phone's wrong clock must not pin it.
+    const timeProblem = gridCheckTimeProblem(body.checkedAt, body.day, competition.time_zone, now)
+    if (timeProblem) throw fieldError('checkedAt', timeProblem === 'future' ? MESSAGES.gridCheckedAtFuture : MESSAGES.gridCheckedAtOutsideDay(body.day))
 
     const dossier = loaded?.dossiers[0]
     const classBallast = dossier && loaded?.competition ? loaded.competition.classLimits[dossier.entry.classCode]?.waterBallast : undefined

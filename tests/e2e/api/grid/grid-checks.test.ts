@@ -100,9 +100,11 @@ describe('POST /api/competitions/:id/grid-checks', () => {
     expect(twice.body.data.fieldErrors.answers[0]).toContain('answered twice')
   })
 
-  it('takes today, tomorrow and 14 days back, and refuses days further out', async () => {
+  // Tomorrow is a day too, for a phone ahead of midnight; but then only a time within the slack
+  // before midnight is believed, which the unit tests of gridCheckTimeProblem hold.
+  it('takes today and 14 days back, and refuses days further out', async () => {
     const today = todayIn()
-    for (const day of [shiftDay(today, 1), shiftDay(today, -14)]) {
+    for (const day of [today, shiftDay(today, -14)]) {
       expect((await w.scrutineer.client.post(path, checkBody(entryId, { day }))).status).toBe(201)
     }
     for (const day of [shiftDay(today, 2), shiftDay(today, -15)]) {
