@@ -72,10 +72,19 @@ export default defineNuxtConfig({
     smtpUrl: '',
     mailFrom: 'Gridmark <no-reply@gridmark.invalid>',
     siteUrl: '',
-    /** Signs invitation links; empty means the session password. */
+    /**
+     * Signs invitation links (NUXT_INVITATION_SECRET). In production it is required, ≥ 32 characters
+     * and unlike the other secrets (server/plugins/production-start.ts); only the demo falls back
+     * to the session password.
+     */
     invitationSecret: '',
-    /** Signs glider tags (NUXT_TAG_SECRET); empty means the session password. Changing it invalidates every printed tag. */
+    /** Signs glider tags (NUXT_TAG_SECRET); required in production like the invitation secret. Changing it invalidates every printed tag. */
     tagSecret: '',
+    /**
+     * NUXT_DEMO_MODE=true: the demo's built server (`npm start`, the tests). It skips the checks of
+     * a production start and lets tags and invitations fall back to the session password.
+     */
+    demoMode: false,
     mailWorker: {
       intervalMs: 2000,
       batchSize: 10,

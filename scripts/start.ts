@@ -85,6 +85,9 @@ runMain(async () => {
       NITRO_HOST: host,
       DATABASE_URL: databaseUrl,
       NUXT_SESSION_PASSWORD: password,
+      // The demo: its seeded accounts and the session password signing tags and invitations are
+      // what a production start (npm run serve) refuses.
+      NUXT_DEMO_MODE: 'true',
       NODE_ENV: 'production',
     },
   })

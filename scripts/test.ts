@@ -18,7 +18,7 @@ import { ensurePdfTools } from './lib/pdf-tools'
 import { ensureBuild } from './lib/build'
 import { artifactsDir, formatDuration, reportError, repoRoot, runInherited, ScriptError, step } from './lib/common'
 import { migrate, seed } from './lib/db'
-import { clusterEnv, clusterUrl, createDatabase, ensurePostgresBinaries, isClusterRunning, startThrowawayCluster, stopCluster, throwawayDir } from './lib/postgres'
+import { APP_ROLE, clusterEnv, clusterUrl, createDatabase, ensurePostgresBinaries, isClusterRunning, randomClusterPasswords, startThrowawayCluster, stopCluster, superuserUrl, throwawayDir } from './lib/postgres'
 import type { Cluster } from './lib/postgres'
 import { randomSessionPassword } from './lib/secrets'
 import { startServices, type StartedServices } from './lib/services'
@@ -49,6 +49,9 @@ let server: RunningServer | undefined
 // Fresh per run: nothing signed in by an earlier run stays valid. Known before seeding, since
 // it also signs the demo's glider tags.
 const sessionSecret = randomSessionPassword()
+// The throwaway cluster's database passwords: the app's role for the server and the tests,
+// the superuser's only for the tests that need it (GRIDMARK_TEST_SUPERUSER_URL).
+const dbPasswords = randomClusterPasswords()
 
 // ---------------------------------------------------------------------------------------
 // Signals: finish the current step quickly, skip the rest, still clean up and report.
@@ -85,11 +88,11 @@ async function setUp(): Promise<string> {
     tempDir = throwawayDir('gridmark-test-')
     // Uploaded files of the run (demo seed and tests) live and die with it, apart from the demo's.
     process.env.NUXT_UPLOADS_DIR = join(tempDir, 'uploads')
-    cluster = await startThrowawayCluster(tempDir, binDir)
+    cluster = await startThrowawayCluster(tempDir, binDir, dbPasswords)
     return cluster
   })
-  const url = clusterUrl(testCluster, TEST_DATABASE)
-  await timed(`database ${TEST_DATABASE} on port ${testCluster.port}`, () => createDatabase(testCluster, TEST_DATABASE))
+  const url = clusterUrl(testCluster, dbPasswords, TEST_DATABASE)
+  await timed(`database ${TEST_DATABASE} on port ${testCluster.port}`, () => createDatabase(testCluster, dbPasswords, TEST_DATABASE))
   await timed('migrations', () => migrate(url))
   await timed('demo data', () => seed(url, false, sessionSecret))
   await timed('Chromium', ensureBrowser)
@@ -138,6 +141,8 @@ async function runVitest(url: string, extraArgs: string[]): Promise<StepResult> 
     DATABASE_URL: url,
     NUXT_SESSION_PASSWORD: sessionSecret,
     ...clusterEnv(cluster!),
+    GRIDMARK_TEST_SUPERUSER_URL: superuserUrl(cluster!, dbPasswords, TEST_DATABASE),
+    GRIDMARK_TEST_APP_ROLE: APP_ROLE,
     GRIDMARK_ARTIFACTS: artifactsDir,
   }
   // One built server and one set of fakes for the e2e and browser layers together

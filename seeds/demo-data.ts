@@ -1,8 +1,9 @@
 // The invented demo scenario: an invented airfield, competition, people. Any likeness to a
 // real person, club or glider is accidental.
 import type { Role } from '../shared/constants/roles'
+import { DEMO_PASSWORD } from '../shared/constants/demo'
 
-export const DEMO_PASSWORD = 'glide-demo-2027'
+export { DEMO_PASSWORD }
 
 export interface DemoPerson {
   email: string

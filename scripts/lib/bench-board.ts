@@ -31,7 +31,7 @@ import { BENCH_PASSWORD, benchToday, createBenchCompetition, createBenchUsers, t
 import { ensureBuild } from './build'
 import { formatDuration, ScriptError, step } from './common'
 import { migrate } from './db'
-import { clusterUrl, createDatabase, ensurePostgresBinaries, isClusterRunning, startThrowawayCluster, stopCluster, throwawayDir, type Cluster } from './postgres'
+import { clusterUrl, createDatabase, ensurePostgresBinaries, isClusterRunning, randomClusterPasswords, startThrowawayCluster, stopCluster, throwawayDir, type Cluster } from './postgres'
 import { randomSessionPassword } from './secrets'
 
 const BENCH_DATABASE = 'gridmark_bench'
@@ -451,15 +451,16 @@ export async function benchBoard(): Promise<BoardBenchResult> {
   let server: RunningServer | undefined
   const sockets: Socket[] = []
 
+  const dbPasswords = randomClusterPasswords()
   try {
     step('Live board: a throwaway database and the built server')
     const binDir = await timed('PostgreSQL binaries', ensurePostgresBinaries)
     cluster = await timed('bench cluster started', async () => {
       tempDir = throwawayDir('gridmark-bench-')
-      return startThrowawayCluster(tempDir, binDir)
+      return startThrowawayCluster(tempDir, binDir, dbPasswords)
     })
-    const url = clusterUrl(cluster, BENCH_DATABASE)
-    await timed(`database ${BENCH_DATABASE} on port ${cluster.port}`, () => createDatabase(cluster!, BENCH_DATABASE))
+    const url = clusterUrl(cluster, dbPasswords, BENCH_DATABASE)
+    await timed(`database ${BENCH_DATABASE} on port ${cluster.port}`, () => createDatabase(cluster!, dbPasswords, BENCH_DATABASE))
     await timed('migrations', () => migrate(url))
     await timed('build', ensureBuild)
 

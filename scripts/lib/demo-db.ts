@@ -5,8 +5,9 @@ import { createHash } from 'node:crypto'
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { localDataDir, repoRoot, ScriptError, step } from './common'
-import { clusterUrl, createDatabase, ensurePostgresBinaries, initCluster, serverUserCanReach, startCluster } from './postgres'
-import type { Cluster } from './postgres'
+import { clusterUrl, createDatabase, ensureAppRole, ensurePostgresBinaries, initCluster, randomClusterPasswords, serverUserCanReach, startCluster, trustsConnections, upgradeTrustCluster } from './postgres'
+import type { Cluster, ClusterPasswords } from './postgres'
+import { clusterPasswordsFile, readClusterPasswords, saveClusterPasswords } from './secrets'
 
 export const DEMO_DATABASE = 'gridmark'
 const DEFAULT_PORT = 54329
@@ -77,13 +78,37 @@ export async function prepareDemoDatabase(): Promise<string> {
   }
   const binDir = await ensurePostgresBinaries()
   const wanted = await demoClusterLocation(binDir)
-  if (await initCluster(wanted)) step(`Created the demo database cluster in ${wanted.dataDir}`)
+  const passwords = demoPasswords(wanted)
+  if (await initCluster(wanted, passwords)) step(`Created the demo database cluster in ${wanted.dataDir}`)
   const cluster = await startCluster(wanted)
   if (cluster.port !== wanted.port) {
     step(`The demo database is already running on port ${cluster.port}; using it (npm run stop, then start again, to move it to ${wanted.port})`)
   }
   writeClusterRecord(cluster)
   step(`Demo database cluster running on 127.0.0.1:${cluster.port} (data in ${cluster.dataDir})`)
-  if (await createDatabase(cluster, DEMO_DATABASE)) step(`Created database "${DEMO_DATABASE}"`)
-  return clusterUrl(cluster, DEMO_DATABASE)
+  await ensureAppRole(cluster, passwords)
+  if (await createDatabase(cluster, passwords, DEMO_DATABASE)) step(`Created database "${DEMO_DATABASE}"`)
+  if (trustsConnections(cluster)) {
+    await upgradeTrustCluster(cluster, passwords, DEMO_DATABASE)
+    step(`The demo database now asks every connection for a password (kept in ${clusterPasswordsFile}); the app connects as a role that is not a superuser`)
+  }
+  return clusterUrl(cluster, passwords, DEMO_DATABASE)
+}
+
+/**
+ * The demo cluster's passwords: those kept in .data, or new ones for a new cluster. A cluster
+ * made before passwords were required (it trusts local connections, its superuser is `app`)
+ * gets new ones too, and prepareDemoDatabase upgrades it.
+ */
+function demoPasswords(cluster: Cluster): ClusterPasswords {
+  const stored = readClusterPasswords()
+  if (stored) return stored
+  const exists = existsSync(join(cluster.dataDir, 'PG_VERSION'))
+  if (exists && !trustsConnections(cluster)) {
+    throw new ScriptError(`The demo cluster in ${cluster.dataDir} asks for passwords, but ${clusterPasswordsFile} that holds them is missing. `
+      + 'Restore it, or run npm run stop and delete that folder (the demo\'s data) to start afresh.')
+  }
+  const passwords = exists ? { ...randomClusterPasswords(), superuserName: 'app' } : randomClusterPasswords()
+  saveClusterPasswords(passwords)
+  return passwords
 }

@@ -1,9 +1,11 @@
-// The password that seals session cookies. The built server does not read .env, so the
-// start script passes it explicitly; keeping it in .data means sign-ins survive a restart.
+// The password that seals session cookies, and the demo cluster's database passwords. The built
+// server does not read .env, so the start script passes them explicitly; keeping them in .data
+// means sign-ins survive a restart.
 import { randomBytes } from 'node:crypto'
 import { chmodSync, existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { localDataDir, ScriptError, step } from './common'
+import type { ClusterPasswords } from './postgres'
 
 /** nuxt-auth-utils (h3 sealed sessions) rejects shorter passwords. */
 const MIN_LENGTH = 32
@@ -36,3 +38,26 @@ export function sessionPassword(): string {
   chmodSync(passwordFile, 0o600) // mode above applies only when the file is new
   return password
 }
+
+const clusterPasswordsFile = join(localDataDir, 'db-passwords.json')
+
+/** The demo cluster's passwords kept in .data/db-passwords.json, or null when there is none yet. */
+export function readClusterPasswords(): ClusterPasswords | null {
+  if (!existsSync(clusterPasswordsFile)) return null
+  try {
+    const stored = JSON.parse(readFileSync(clusterPasswordsFile, 'utf8')) as Partial<ClusterPasswords>
+    if (stored.superuserName && stored.superuser && stored.app) return stored as ClusterPasswords
+  }
+  catch { /* reported below */ }
+  throw new ScriptError(`${clusterPasswordsFile} is not what npm start wrote (superuserName, superuser, app). `
+    + 'Restore it from a backup, or run npm run stop and delete the demo cluster (its data) to start afresh.')
+}
+
+/** Keeps the demo cluster's passwords, readable by this user only. */
+export function saveClusterPasswords(passwords: ClusterPasswords): void {
+  mkdirSync(localDataDir, { recursive: true })
+  writeFileSync(clusterPasswordsFile, `${JSON.stringify(passwords, null, 2)}\n`, { mode: 0o600 })
+  chmodSync(clusterPasswordsFile, 0o600)
+}
+
+export { clusterPasswordsFile }

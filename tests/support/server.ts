@@ -16,7 +16,7 @@ export interface RunningServer {
   output: () => string
 }
 
-async function freePort(): Promise<number> {
+export async function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
     const srv = createServer()
     srv.once('error', reject)
@@ -43,6 +43,9 @@ export async function startServer(env: Record<string, string> = {}, port?: numbe
       // Tests speak for many clients from one machine, as one reverse proxy in front would:
       // the last address of X-Forwarded-For is the client.
       NUXT_TRUSTED_PROXY_HOPS: '1',
+      // The test server serves the demo's seed, as npm start does (tests/e2e/production-start.test.ts
+      // starts the production way).
+      NUXT_DEMO_MODE: 'true',
       ...env,
     },
     stdio: ['ignore', 'pipe', 'pipe'],

@@ -15,12 +15,11 @@ import { useDb } from '#server/utils/db'
 import { httpError } from '#server/utils/errors'
 import { siteUrl } from '#server/utils/site-url'
 import { createInvitationToken, hashInvitationToken, verifyInvitationToken } from './invitation-token'
+import { signingSecret } from './secrets'
 
+/** The key that signs invitation links: NUXT_INVITATION_SECRET (only the demo falls back to the session password). */
 export function invitationSecret(): string {
-  const config = useRuntimeConfig()
-  const secret = config.invitationSecret || process.env.NUXT_SESSION_PASSWORD || (config.session as { password?: string }).password
-  if (!secret) throw new Error('No secret to sign invitation links: set NUXT_SESSION_PASSWORD.')
-  return secret
+  return signingSecret('invitation')
 }
 
 export function invitationState(row: Pick<InvitationRow, 'accepted_at' | 'revoked_at' | 'expires_at'>, now = new Date()): InvitationState {

@@ -12,18 +12,16 @@ import type { PrintableTag, ResolvedTag, TagListEntry } from '#shared/types/api-
 import { effectiveRoles } from '#shared/utils/access'
 import { audit } from '#domain/audit/audit'
 import { rolesInCompetition } from '#domain/people/memberships'
+import { signingSecret } from '#domain/people/secrets'
 import { requireRole, requireUser } from '#server/utils/authz'
 import { useDb } from '#server/utils/db'
 import { httpError } from '#server/utils/errors'
 import { createTagToken, hashTagToken, tagTokenFromNonce, verifyTagToken } from './tag-token'
 import { randomShortCode, ShortCodeExhaustedError, withFreshShortCode, type ShortCodeGenerator } from './short-code'
 
-/** The key that signs tags: NUXT_TAG_SECRET, else the session password. */
+/** The key that signs tags: NUXT_TAG_SECRET (only the demo falls back to the session password). */
 export function tagSecret(): string {
-  const config = useRuntimeConfig()
-  const secret = config.tagSecret || (config.session as { password?: string }).password || process.env.NUXT_SESSION_PASSWORD
-  if (!secret) throw new Error('No secret to sign glider tags: set NUXT_TAG_SECRET or NUXT_SESSION_PASSWORD.')
-  return secret
+  return signingSecret('tag')
 }
 
 /** Where the QR code points: the configured public address, else the request's origin. */
