@@ -3,7 +3,7 @@
 // one stays, the old password stops working, the address is e-mailed; a wrong current password
 // is refused), and the data export (the caller's entries and documents' metadata, never a
 // password hash, never another person's data).
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
+import { afterAll, describe, expect, inject, it } from 'vitest'
 import { ApiClient, GOOD_PASSWORD, signedUpClient } from '../../../support/api'
 import { closeTestDb, createClass, createCompetition, createEntry, testDb } from '../../../support/db'
 import { postForm, tinyPdf } from '../../../support/files'
