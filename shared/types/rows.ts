@@ -16,6 +16,8 @@ export interface UserRow {
   is_admin: boolean
   created_at: Date
   updated_at: Date
+  /** Set when the person deleted their account: the row stays, anonymised. */
+  deleted_at?: Date | null
 }
 
 export interface UserSessionRow {

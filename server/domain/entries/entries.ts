@@ -659,58 +659,66 @@ export async function submitEntry(access: EntryAccess): Promise<void> {
  * refunds (`entries.paid_minor`). Audited with who withdrew it and why.
  */
 export async function withdrawEntry(access: EntryAccess, body: Partial<EntryWithdrawBody> = {}): Promise<void> {
-  const { competition, user } = access
   const byOffice = !access.isOwner
   if (byOffice && !isOrganiser(access)) throw httpError(403, MESSAGES.withdrawEntrantOrOrganiser)
   if (byOffice && !body.reason) {
     throw httpError(400, MESSAGES.withdrawReasonRequired, { fieldErrors: { reason: [MESSAGES.withdrawReasonRequired] }, formErrors: [] })
   }
-  await useDb().transaction(async (trx) => {
-    const entry: EntryRow = await trx('entries').where({ id: access.entry.id }).forUpdate().first()
-    if (entry.status === 'withdrawn') throw httpError(409, MESSAGES.alreadyWithdrawn)
-    await trx('entries').where({ id: entry.id }).update({ status: 'withdrawn', withdrawn_at: trx.fn.now(), updated_at: trx.fn.now() })
-    await audit(trx, {
-      actorUserId: user.id, competitionId: competition.id, action: 'entry.withdrawn', subjectType: 'entry', subjectId: entry.id,
-      details: {
-        from: entry.status, to: 'withdrawn', by: byOffice ? 'office' : 'entrant', paidMinor: entry.paid_minor,
-        ...(body.reason ? { reason: body.reason } : {}),
-      },
-    })
+  await useDb().transaction(trx => withdrawEntryIn(trx, access, body))
+}
 
-    const entrant = await entrantEmail(trx, entry)
-    const paid = entry.paid_minor > 0 ? formatMoney(entry.paid_minor, competition.currency) : null
-    const entryUrl = entryPageUrl(competition.id, entry.id)
-    const toEntrant = entryWithdrawnMail({
-      entrantName: entrant.name,
-      entryLabel: entryLabel(entry),
-      compId: entry.comp_id,
-      competitionName: competition.name,
-      byOffice: byOffice ? { name: user.name, reason: body.reason! } : undefined,
-      paid,
-      entryUrl,
-    })
-    await enqueueMail(trx, {
-      to: entrant.email, subject: toEntrant.subject, text: toEntrant.text, html: toEntrant.html,
-      template: 'entry-withdrawn', competitionId: competition.id, entryId: entry.id,
-    })
-    const toOffice = entryWithdrawnOfficeMail({
-      pilotName: entry.pilot_name,
-      entryLabel: entryLabel(entry),
-      compId: entry.comp_id,
-      competitionName: competition.name,
-      withdrawnBy: byOffice ? { name: user.name, office: true, reason: body.reason } : { name: entrant.name, office: false, reason: body.reason },
-      refundDue: paid,
-      // The entry's payments, where the office sees what was paid and refunds it.
-      paymentsUrl: paid ? `${entryUrl}/payment` : entryUrl,
-    })
-    for (const to of await organiserEmails(trx, competition.id)) {
-      await enqueueMail(trx, {
-        to, subject: toOffice.subject, text: toOffice.text, html: toOffice.html,
-        template: 'entry-withdrawn-office', competitionId: competition.id, entryId: entry.id,
-      })
-    }
-    await dossierChanged(trx, competition.id, [entry.id], user.id)
+/**
+ * The withdrawal itself, in the caller's transaction, for a caller that has already decided it
+ * may withdraw (`withdrawEntry` for a route; deleting an account withdraws its open entries
+ * in the deletion's transaction, as their entrant).
+ */
+export async function withdrawEntryIn(trx: Knex.Transaction, access: EntryAccess, body: Partial<EntryWithdrawBody> = {}): Promise<void> {
+  const { competition, user } = access
+  const byOffice = !access.isOwner
+  const entry: EntryRow = await trx('entries').where({ id: access.entry.id }).forUpdate().first()
+  if (entry.status === 'withdrawn') throw httpError(409, MESSAGES.alreadyWithdrawn)
+  await trx('entries').where({ id: entry.id }).update({ status: 'withdrawn', withdrawn_at: trx.fn.now(), updated_at: trx.fn.now() })
+  await audit(trx, {
+    actorUserId: user.id, competitionId: competition.id, action: 'entry.withdrawn', subjectType: 'entry', subjectId: entry.id,
+    details: {
+      from: entry.status, to: 'withdrawn', by: byOffice ? 'office' : 'entrant', paidMinor: entry.paid_minor,
+      ...(body.reason ? { reason: body.reason } : {}),
+    },
   })
+
+  const entrant = await entrantEmail(trx, entry)
+  const paid = entry.paid_minor > 0 ? formatMoney(entry.paid_minor, competition.currency) : null
+  const entryUrl = entryPageUrl(competition.id, entry.id)
+  const toEntrant = entryWithdrawnMail({
+    entrantName: entrant.name,
+    entryLabel: entryLabel(entry),
+    compId: entry.comp_id,
+    competitionName: competition.name,
+    byOffice: byOffice ? { name: user.name, reason: body.reason! } : undefined,
+    paid,
+    entryUrl,
+  })
+  await enqueueMail(trx, {
+    to: entrant.email, subject: toEntrant.subject, text: toEntrant.text, html: toEntrant.html,
+    template: 'entry-withdrawn', competitionId: competition.id, entryId: entry.id,
+  })
+  const toOffice = entryWithdrawnOfficeMail({
+    pilotName: entry.pilot_name,
+    entryLabel: entryLabel(entry),
+    compId: entry.comp_id,
+    competitionName: competition.name,
+    withdrawnBy: byOffice ? { name: user.name, office: true, reason: body.reason } : { name: entrant.name, office: false, reason: body.reason },
+    refundDue: paid,
+    // The entry's payments, where the office sees what was paid and refunds it.
+    paymentsUrl: paid ? `${entryUrl}/payment` : entryUrl,
+  })
+  for (const to of await organiserEmails(trx, competition.id)) {
+    await enqueueMail(trx, {
+      to, subject: toOffice.subject, text: toOffice.text, html: toOffice.html,
+      template: 'entry-withdrawn-office', competitionId: competition.id, entryId: entry.id,
+    })
+  }
+  await dossierChanged(trx, competition.id, [entry.id], user.id)
 }
 
 export async function decideEntry(access: EntryAccess, decision: { accept: true } | { accept: false, reason: string }): Promise<void> {

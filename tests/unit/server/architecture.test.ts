@@ -55,7 +55,7 @@ const LAYERS: readonly (readonly string[])[] = [
   ['competitions'],
   ['people'],
   ['grid', 'entries', 'files', 'payments', 'tags'],
-  ['reports'],
+  ['reports', 'account'],
 ]
 const layerOf = (area: string) => LAYERS.findIndex(l => l.includes(area))
 
