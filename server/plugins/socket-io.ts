@@ -20,7 +20,7 @@ import { effectiveRoles } from '#shared/utils/access'
 import type { BoardJoinAck } from '#shared/types/api-board'
 import { rolesInCompetition } from '#domain/people/memberships'
 import { userOfSession } from '#domain/people/sessions'
-import { boardRoom, deliverLocally, type Delivery, entrantRoom, RELAY_EVENT, sessionRoom, setRealtime } from '#domain/realtime/realtime'
+import { boardRoom, deliverLocally, type Delivery, entrantRoom, leaveCompetitionRooms, RELAY_EVENT, sessionRoom, setRealtime, userRoom } from '#domain/realtime/realtime'
 
 /** What instances tell each other: changes to push to their own screens. */
 interface InterServerEvents {
@@ -77,7 +77,7 @@ export default defineNitroPlugin((nitroApp) => {
       if (!who) return next(new Error(MESSAGES.socketSignIn))
       socket.data.user = who.user
       socket.data.sessionId = who.sessionId
-      await socket.join(sessionRoom(who.sessionId))
+      await socket.join([sessionRoom(who.sessionId), userRoom(who.user.id)])
       next()
     }
     catch (error) {
@@ -98,15 +98,25 @@ export default defineNitroPlugin((nitroApp) => {
       if (!parsed.success) return reply({ ok: false, message: MESSAGES.boardJoinRefused })
       const { competitionId } = parsed.data
       try {
-        const roles = effectiveRoles(await rolesInCompetition(user.id, competitionId), user.isAdmin)
-        const staff = roles.some(r => STAFF_ROLES.includes(r))
-        if (!staff && !roles.includes('entrant')) {
+        const scope = async () => {
+          const roles = effectiveRoles(await rolesInCompetition(user.id, competitionId), user.isAdmin)
+          return { staff: roles.some(r => STAFF_ROLES.includes(r)), entrant: roles.includes('entrant') }
+        }
+        const { staff, entrant } = await scope()
+        if (!staff && !entrant) {
           console.warn(`[gridmark] socket ${socket.id} of user ${user.id} asked to join the board of competition ${competitionId}, where the user holds no role: ignored`)
           return reply({ ok: false, message: MESSAGES.boardJoinRefused })
         }
         if (staff) await socket.join(boardRoom(competitionId))
-        if (roles.includes('entrant')) await socket.join(entrantRoom(competitionId, user.id))
-        reply({ ok: true, scope: staff ? 'staff' : 'own' })
+        if (entrant) await socket.join(entrantRoom(competitionId, user.id))
+        // A role removed between the look-up and the join: its removal may have moved this
+        // socket's rooms before the socket was in them. Asked again, the roles are current.
+        const now = await scope()
+        if ((staff && !now.staff) || (entrant && !now.entrant)) {
+          leaveCompetitionRooms(user.id, competitionId, now)
+          if (!now.staff && !now.entrant) return reply({ ok: false, message: MESSAGES.boardJoinRefused })
+        }
+        reply({ ok: true, scope: now.staff ? 'staff' : 'own' })
       }
       catch (error) {
         logAdapter(error)

@@ -9,6 +9,7 @@ import { TAGS_MESSAGES } from './messages-tags'
 import { GRID_MESSAGES } from './messages-grid'
 import { BOARD_MESSAGES } from './messages-board'
 import { ACCOUNT_PAGE_MESSAGES } from './messages-account-page'
+import { INVITATIONS_MESSAGES } from './messages-invitations'
 
 export const MESSAGES = {
   invalidInput: 'Some fields need attention.',
@@ -68,6 +69,7 @@ export const MESSAGES = {
   ...GRID_MESSAGES,
   ...BOARD_MESSAGES,
   ...ACCOUNT_PAGE_MESSAGES,
+  ...INVITATIONS_MESSAGES,
 
   // --- The tracking list and the glider report (the office's paperwork) ---
   trackingStaffOnly: 'The tracking list is for the competition’s organisers, scrutineers and contest director: it lists every glider’s radio IDs.',

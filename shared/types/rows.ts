@@ -164,6 +164,8 @@ export interface MailOutboxRow {
   template: string
   competition_id: string | null
   entry_id: string | null
+  /** The body carries a one-time link: emptied once sent. */
+  secret_body: boolean
   attempts: number
   next_attempt_at: Date
   sent_at: Date | null

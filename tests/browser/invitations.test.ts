@@ -1,7 +1,7 @@
 // An organiser invites a scrutineer on the people page; the invitee opens the link from the
 // captured e-mail, creates an account, accepts, and sees the competition with the new role.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { GOOD_PASSWORD, signedUpClient, uniqueEmail } from '../support/api'
+import { ApiClient, GOOD_PASSWORD, signedUpClient, uniqueEmail } from '../support/api'
 import { closeTestDb, createCompetition } from '../support/db'
 import { gotoApp, launchBrowser, openPage, screenshot, signInThroughForm, type Browser } from '../support/browser'
 import { invitationLink, waitForMail } from '../support/mail'
@@ -91,6 +91,43 @@ describe('inviting a scrutineer', () => {
     // The link is spent: opening it again says so.
     await gotoApp(page, baseUrl, new URL(link).pathname)
     await page.getByTestId('invitation-problem').getByText(MESSAGES.invitationUsed).waitFor()
+    await page.close()
+  })
+
+  it('signed in with another account, the page names the invited address and switches to it', async () => {
+    const invitee = await signedUpClient(baseUrl, 'Vera Invited')
+    const organiser = new ApiClient(baseUrl)
+    expect((await organiser.post('/api/auth/login', { email: organiserEmail, password: GOOD_PASSWORD })).status).toBe(200)
+    expect((await organiser.post(`/api/competitions/${competitionId}/invitations`, { email: invitee.email, role: 'director' })).status).toBe(201)
+    const [mail] = await waitForMail(invitee.email)
+    const path = new URL(invitationLink(mail!)).pathname
+
+    // The organiser, signed in on this browser, opens the forwarded link.
+    await browser.context.clearCookies()
+    const page = await openPage(browser.context, baseUrl, '/sign-in', 'phone')
+    await signInThroughForm(page, baseUrl, organiserEmail, GOOD_PASSWORD, path)
+    await page.waitForURL(url => url.pathname === path)
+    const notice = page.getByTestId('invitation-other-address')
+    await notice.getByText(`This invitation is for ${invitee.email}`).waitFor()
+    // No button that could only fail: the page offers the way to the invited account instead.
+    expect(await page.getByTestId('invitation-accept').count()).toBe(0)
+    await screenshot(page, 'invitation-other-account-phone')
+
+    await Promise.all([
+      page.waitForURL(url => url.pathname === '/sign-in'),
+      page.getByTestId('invitation-switch-account').click(),
+    ])
+    expect(await page.getByLabel('E-mail address').inputValue()).toBe(invitee.email)
+    await page.getByLabel('Password').fill(GOOD_PASSWORD)
+    await Promise.all([
+      page.waitForURL(url => url.pathname === path),
+      page.getByRole('button', { name: 'Sign in' }).click(),
+    ])
+    await Promise.all([
+      page.waitForURL(url => url.pathname === `/competitions/${competitionId}`),
+      page.getByTestId('invitation-accept').click(),
+    ])
+    await page.getByTestId('role-duties').getByRole('heading', { name: 'Contest director' }).waitFor()
     await page.close()
   })
 

@@ -13,6 +13,8 @@ export interface OutgoingMail {
   template: string
   competitionId?: string | null
   entryId?: string | null
+  /** The body carries a one-time link (an invitation): it is emptied once the message is sent. */
+  secret?: boolean
 }
 
 /** Returns the outbox row's id. */
@@ -25,6 +27,7 @@ export async function enqueueMail(db: Knex, mail: OutgoingMail): Promise<string>
     template: mail.template,
     competition_id: mail.competitionId ?? null,
     entry_id: mail.entryId ?? null,
+    secret_body: mail.secret ?? false,
   }).returning('id')
   return String(row.id)
 }

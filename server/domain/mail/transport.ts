@@ -3,6 +3,7 @@
 import nodemailer, { type Transporter } from 'nodemailer'
 import type { Knex } from 'knex'
 import type { MailOutboxRow } from '#shared/types/rows'
+import { FORGOTTEN_BODY } from '#shared/constants/mail-outbox'
 
 let transport: Transporter | undefined
 let transportUrl: string | undefined
@@ -84,7 +85,13 @@ export async function sendDueMail(db: Knex, mailer: Transporter, from: string, s
         html: row.html_body ?? undefined,
         headers: { 'X-Gridmark-Template': row.template, 'X-Gridmark-Outbox-Id': String(row.id) },
       })
-      await db('mail_outbox').where({ id: row.id }).update({ sent_at: db.fn.now(), attempts: row.attempts + 1, last_error: null })
+      await db('mail_outbox').where({ id: row.id }).update({
+        sent_at: db.fn.now(),
+        attempts: row.attempts + 1,
+        last_error: null,
+        // A one-time link leaves the outbox with the message: only the recipient keeps it.
+        ...(row.secret_body ? { text_body: FORGOTTEN_BODY, html_body: null } : {}),
+      })
       sent++
     }
     catch (error) {

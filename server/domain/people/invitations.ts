@@ -1,6 +1,7 @@
 // Invitations of officials and the organiser's changes to memberships. An invitation's link
-// carries a signed token; only its hash is stored. Accepting is single-use: the row is locked,
-// the membership created and the invitation marked in one transaction.
+// carries a signed token; only its hash is stored, and the e-mail that carried it is emptied
+// once sent. Accepting is single-use and only by the account of the invited address: the row
+// is locked, the membership created and the invitation marked in one transaction.
 import type { Knex } from 'knex'
 import type { H3Event } from 'h3'
 import type { User } from '#auth-utils'
@@ -8,14 +9,21 @@ import { INVITATION_TTL_DAYS, type InvitableRole, type InvitationState } from '#
 import type { InvitationRow } from '#shared/types/rows'
 import { MESSAGES } from '#shared/constants/messages'
 import type { InvitationAccepted, InvitationListItem, InvitationPreview } from '#shared/types/api-mail'
+import { STAFF_ROLES } from '#shared/constants/roles'
+import { effectiveRoles } from '#shared/utils/access'
 import { audit } from '#domain/audit/audit'
 import { enqueueMail } from '#domain/mail/outbox'
 import { invitationMail } from '#domain/mail/templates'
+import { leaveCompetitionRooms } from '#domain/realtime/realtime'
 import { useDb } from '#server/utils/db'
 import { httpError } from '#server/utils/errors'
 import { siteUrl } from '#server/utils/site-url'
 import { createInvitationToken, hashInvitationToken, verifyInvitationToken } from './invitation-token'
+<<<<<<< HEAD
 import { signingSecret } from './secrets'
+=======
+import { rolesInCompetition } from './memberships'
+>>>>>>> invitations-bound
 
 /** The key that signs invitation links: NUXT_INVITATION_SECRET (only the demo falls back to the session password). */
 export function invitationSecret(): string {
@@ -72,7 +80,7 @@ export async function createInvitation(event: H3Event, input: {
       url,
       expiresAt,
     })
-    await enqueueMail(trx, { to: input.email, subject: mail.subject, text: mail.text, html: mail.html, template: 'invitation', competitionId: input.competitionId })
+    await enqueueMail(trx, { to: input.email, subject: mail.subject, text: mail.text, html: mail.html, template: 'invitation', competitionId: input.competitionId, secret: true })
     await audit(trx, {
       actorUserId: input.invitedBy.id,
       competitionId: input.competitionId,
@@ -182,6 +190,13 @@ export async function acceptInvitation(token: string, user: User): Promise<Invit
   return useDb().transaction(async (trx) => {
     const row = await findByToken(token, trx, true)
     assertUsable(row)
+    // The link is bound to the address it was sent to: whoever else holds it (a forwarded
+    // e-mail, a shared screen) cannot take the role. The address is read from the account, not
+    // the session, which may predate a change of address.
+    const account = await trx('users').where({ id: user.id }).first('email')
+    if (!account || account.email.toLowerCase() !== row.email.toLowerCase()) {
+      throw httpError(403, MESSAGES.invitationForOtherAddress(row.email))
+    }
     await trx('memberships')
       .insert({ user_id: user.id, competition_id: row.competition_id, role: row.role, granted_by: row.invited_by })
       .onConflict(['user_id', 'competition_id', 'role'])
@@ -199,9 +214,12 @@ export async function acceptInvitation(token: string, user: User): Promise<Invit
   })
 }
 
-/** Removes one role of one person; the last organiser stays. */
+/**
+ * Removes one role of one person; the last organiser stays. Once committed, that person's open
+ * sockets leave the competition's rooms their remaining roles no longer allow.
+ */
 export async function removeMembership(competitionId: string, membershipId: string, actor: User): Promise<void> {
-  await useDb().transaction(async (trx) => {
+  const left = await useDb().transaction(async (trx) => {
     const row = await trx('memberships').where({ id: membershipId, competition_id: competitionId }).forUpdate().first()
     if (!row) throw httpError(404, MESSAGES.membershipNotFound)
     if (row.role === 'organiser') {
@@ -218,5 +236,9 @@ export async function removeMembership(competitionId: string, membershipId: stri
       subjectId: membershipId,
       details: { userId: row.user_id, role: row.role },
     })
+    const member = await trx('users').where({ id: row.user_id }).first('is_admin')
+    const roles = effectiveRoles(await rolesInCompetition(row.user_id, competitionId, trx), Boolean(member?.is_admin))
+    return { userId: row.user_id as string, staff: roles.some(r => STAFF_ROLES.includes(r)), entrant: roles.includes('entrant') }
   })
+  leaveCompetitionRooms(left.userId, competitionId, left)
 }

@@ -4,6 +4,8 @@
 //   board:<competitionId>               staff of the competition: every tile, every day change
 //   entrant:<competitionId>:<userId>    an entrant: their own entries' readiness only
 //   session:<sessionId>                 every socket of one sign-in, closed at sign-out
+//   user:<userId>                       every socket of one person, moved out of the rooms
+//                                       of a competition when their role there is removed
 import type { Server } from 'socket.io'
 import type { BoardChanges } from './changes'
 
@@ -16,6 +18,7 @@ export function setRealtime(server: Server | null): void {
 export const boardRoom = (competitionId: string) => `board:${competitionId}`
 export const entrantRoom = (competitionId: string, userId: string) => `entrant:${competitionId}:${userId}`
 export const sessionRoom = (sessionId: string) => `session:${sessionId}`
+export const userRoom = (userId: string) => `user:${userId}`
 
 export interface Delivery {
   room: string
@@ -52,4 +55,18 @@ export function publishBoardChanges(changes: BoardChanges): void {
 /** Closes the live connections of one sign-in (on every instance). */
 export function disconnectSessionSockets(sessionId: string): void {
   io?.in(sessionRoom(sessionId)).disconnectSockets(true)
+}
+
+/**
+ * Takes one person's sockets out of a competition's rooms their roles no longer allow, at once
+ * and on every instance (the adapter passes the request on): the whole board when they hold no
+ * staff role there any more, their own entries' news when they are no longer an entrant.
+ */
+export function leaveCompetitionRooms(userId: string, competitionId: string, still: { staff: boolean, entrant: boolean }): void {
+  if (!io) return
+  const rooms = [
+    ...(still.staff ? [] : [boardRoom(competitionId)]),
+    ...(still.entrant ? [] : [entrantRoom(competitionId, userId)]),
+  ]
+  if (rooms.length) io.in(userRoom(userId)).socketsLeave(rooms)
 }

@@ -1,10 +1,13 @@
 // Invitations: an organiser invites an official by e-mail; the signed, single-use link that
-// expires creates the membership for whoever signs in or signs up with it.
+// expires creates the membership for the account of the invited address, signed in or signed
+// up with it, and for no other.
+import { createHash } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { ApiClient, signedUpClient, uniqueEmail, GOOD_PASSWORD } from '../../../support/api'
 import { closeTestDb, createCompetition, testDb } from '../../../support/db'
 import { invitationLink, tokenOf, waitForMail } from '../../../support/mail'
 import { MESSAGES } from '../../../../shared/constants/messages'
+import { FORGOTTEN_BODY } from '../../../../shared/constants/mail-outbox'
 
 const baseUrl = inject('baseUrl')
 afterAll(closeTestDb)
@@ -34,6 +37,16 @@ beforeAll(async () => {
   ])
   otherCompetitionId = await createCompetition('Invite Elsewhere', [{ userId: x.user.id, role: 'organiser' }])
 })
+
+async function until<T>(read: () => Promise<T>, ok: (v: T) => boolean, timeoutMs = 15_000): Promise<T> {
+  const deadline = Date.now() + timeoutMs
+  for (;;) {
+    const value = await read()
+    if (ok(value)) return value
+    if (Date.now() > deadline) throw new Error(`condition not met in time; last value: ${JSON.stringify(value)}`)
+    await new Promise(r => setTimeout(r, 150))
+  }
+}
 
 async function invite(email: string, role = 'scrutineer', client = organiser) {
   const res = await client.post(`/api/competitions/${competitionId}/invitations`, { email, role })
@@ -209,21 +222,100 @@ describe('GET /api/invitations/:token and accepting', () => {
     const preview = await new ApiClient(baseUrl).get(`/api/invitations/${token}`)
     expect(preview.status).toBe(410)
     expect(preview.body.message).toBe(MESSAGES.invitationExpired)
-    const late = await signedUpClient(baseUrl, 'Lee Late')
-    const res = await late.client.post(`/api/invitations/${token}/accept`)
+    const late = new ApiClient(baseUrl)
+    expect((await late.post('/api/auth/signup', { email, name: 'Lee Late', password: GOOD_PASSWORD })).status).toBe(201)
+    const res = await late.post(`/api/invitations/${token}/accept`)
     expect(res.status).toBe(410)
     expect(res.body.message).toBe(MESSAGES.invitationExpired)
-    expect(await testDb()('memberships').where({ user_id: late.user.id }).first()).toBeUndefined()
+    const lateUser = await testDb()('users').where({ email }).first('id')
+    expect(await testDb()('memberships').where({ user_id: lateUser.id }).first()).toBeUndefined()
   })
 
-  it('two accepts at the same moment: exactly one wins', async () => {
-    const { token } = await invite(uniqueEmail('race'))
-    const a = await signedUpClient(baseUrl, 'Racer A')
-    const b = await signedUpClient(baseUrl, 'Racer B')
-    const results = await Promise.all([a.client.post(`/api/invitations/${token}/accept`), b.client.post(`/api/invitations/${token}/accept`)])
+  it('two accepts at the same moment (the invitee on two devices): exactly one wins', async () => {
+    const invitee = await signedUpClient(baseUrl, 'Racer A')
+    const { token } = await invite(invitee.email)
+    const other = new ApiClient(baseUrl)
+    expect((await other.post('/api/auth/login', { email: invitee.email, password: GOOD_PASSWORD })).status).toBe(200)
+    const results = await Promise.all([invitee.client.post(`/api/invitations/${token}/accept`), other.post(`/api/invitations/${token}/accept`)])
     expect(results.map(r => r.status).sort()).toEqual([200, 410])
-    const members = await testDb()('memberships').whereIn('user_id', [a.user.id, b.user.id])
+    const members = await testDb()('memberships').where({ user_id: invitee.user.id, competition_id: competitionId })
     expect(members).toHaveLength(1)
+  })
+})
+
+describe('an invitation is bound to the invited address', () => {
+  it('refuses another signed-in account with 403 naming the invited address; the invited account then accepts', async () => {
+    const invitee = await signedUpClient(baseUrl, 'Ivy Invitee')
+    const { token, invitation } = await invite(invitee.email, 'organiser')
+
+    // Someone else holding the link — even a member of the competition — cannot take the role.
+    for (const wrong of [outsider, scrutineer]) {
+      const refused = await wrong.post(`/api/invitations/${token}/accept`)
+      expect(refused.status).toBe(403)
+      expect(refused.body.message).toBe(MESSAGES.invitationForOtherAddress(invitee.email))
+      expect(refused.body.message).toContain(invitee.email)
+    }
+    const scrutineerRoles = await testDb()('memberships as m').join('users as u', 'u.id', 'm.user_id')
+      .where({ 'u.email': scrutineerEmail, 'm.competition_id': competitionId }).pluck('m.role')
+    expect(scrutineerRoles).toEqual(['scrutineer'])
+    expect((await outsider.get(`/api/competitions/${competitionId}`)).status).toBe(404)
+    expect((await testDb()('invitations').where({ id: invitation.id }).first()).accepted_at).toBeNull()
+
+    // The link still works for its own address, signed in with any spelling of it.
+    const fresh = new ApiClient(baseUrl)
+    expect((await fresh.post('/api/auth/login', { email: invitee.email.toUpperCase(), password: GOOD_PASSWORD })).status).toBe(200)
+    const accepted = await fresh.post(`/api/invitations/${token}/accept`)
+    expect(accepted.status).toBe(200)
+    expect(accepted.body).toEqual({ competitionId, role: 'organiser' })
+    expect((await invitee.client.get(`/api/competitions/${competitionId}`)).body.roles).toEqual(['organiser'])
+  })
+
+  it('compares the account’s current address, not the one its session began with', async () => {
+    const mover = await signedUpClient(baseUrl, 'Max Mover')
+    const { token } = await invite(mover.email)
+    // The account's address changes while its session stays open (as a change of address would).
+    await testDb()('users').where({ id: mover.user.id }).update({ email: uniqueEmail('moved') })
+    const refused = await mover.client.post(`/api/invitations/${token}/accept`)
+    expect(refused.status).toBe(403)
+    expect(refused.body.message).toBe(MESSAGES.invitationForOtherAddress(mover.email))
+  })
+
+  it('keeps no usable link: the table holds only a hash, the sent e-mail’s body is emptied', async () => {
+    const email = uniqueEmail('no-plain')
+    const { token, invitation } = await invite(email)
+    const [random] = token.split('.') as [string, string]
+
+    const row = await testDb()('invitations').where({ id: invitation.id }).first()
+    expect(row.token_hash).toBe(createHash('sha256').update(token).digest('hex'))
+    expect(JSON.stringify(row)).not.toContain(random)
+
+    // Once the worker has sent the message, its row keeps who, when and which message, no link.
+    const outbox = await until(() => testDb()('mail_outbox').where({ to_address: email }).first(), r => r?.sent_at != null)
+    expect(outbox).toMatchObject({ template: 'invitation', secret_body: true, html_body: null, text_body: FORGOTTEN_BODY })
+    expect(outbox.subject).toBe('Invitation: scrutineer at Invite Open')
+    expect(JSON.stringify(outbox)).not.toContain(random)
+    // Nowhere else in the database either (the audit trail included).
+    const dump = await testDb().raw(`SELECT count(*)::int AS n FROM audit_log a WHERE a::text LIKE ?`, [`%${random}%`])
+    expect(dump.rows[0].n).toBe(0)
+
+    // The organiser's list shows no link; a new invitation (a "resend") sends a new one.
+    const list = await organiser.get(`/api/competitions/${competitionId}/invitations`)
+    expect(JSON.stringify(list.body)).not.toContain(random)
+    const again = await organiser.post(`/api/competitions/${competitionId}/invitations`, { email, role: 'scrutineer' })
+    expect(again.status).toBe(201)
+    const tokens = (await waitForMail(email, { count: 2 })).map(m => tokenOf(invitationLink(m)))
+    expect(new Set(tokens).size).toBe(2)
+    const newToken = tokens.find(t => t !== token)!
+    expect((await new ApiClient(baseUrl).get(`/api/invitations/${token}`)).status).toBe(410)
+    expect((await new ApiClient(baseUrl).get(`/api/invitations/${newToken}`)).status).toBe(200)
+  })
+
+  it('other e-mail keeps its body after sending', async () => {
+    const [row] = await testDb()('mail_outbox')
+      .insert({ to_address: uniqueEmail('plain'), subject: 'Plain', text_body: 'Kept as sent', template: 'test' })
+      .returning('id')
+    const sent = await until(() => testDb()('mail_outbox').where({ id: row.id }).first(), r => r?.sent_at != null)
+    expect(sent).toMatchObject({ text_body: 'Kept as sent', secret_body: false })
   })
 })
 
