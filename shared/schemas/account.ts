@@ -1,0 +1,27 @@
+// Bodies of the account's one-time links: password reset, e-mail confirmation, a changed address.
+import { z } from 'zod'
+import { signUpSchema } from './auth'
+
+const asObject = { error: 'Send the fields as a JSON object.' }
+
+/** 32 random bytes, base64url: what every one-time account link carries. */
+export const accountTokenSchema = z
+  .string({ error: 'This link is not valid. Copy the whole link from the e-mail, or ask for a new one.' })
+  .regex(/^[\w-]{43}$/, { error: 'This link is not valid. Copy the whole link from the e-mail, or ask for a new one.' })
+
+export const passwordResetRequestSchema = z.object({ email: signUpSchema.shape.email }, asObject)
+export type PasswordResetRequestInput = z.infer<typeof passwordResetRequestSchema>
+
+export const passwordResetConfirmSchema = z.object({
+  token: accountTokenSchema,
+  password: signUpSchema.shape.password,
+}, asObject)
+export type PasswordResetConfirmInput = z.infer<typeof passwordResetConfirmSchema>
+
+export const verificationConfirmSchema = z.object({ token: accountTokenSchema }, asObject)
+
+export const emailChangeSchema = z.object({
+  email: signUpSchema.shape.email,
+  password: z.string({ error: 'Enter your current password.' }).min(1, { error: 'Enter your current password.' }).max(200),
+}, asObject)
+export type EmailChangeInput = z.infer<typeof emailChangeSchema>
