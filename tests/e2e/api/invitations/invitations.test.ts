@@ -1,7 +1,7 @@
 // Invitations: an organiser invites an official by e-mail; the signed, single-use link that
 // expires creates the membership for whoever signs in or signs up with it.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { ApiClient, signedUpClient, uniqueEmail, GOOD_PASSWORD } from '../../../support/api'
+import { ApiClient, accountLinkOf, signedUpClient, uniqueEmail, GOOD_PASSWORD } from '../../../support/api'
 import { closeTestDb, createCompetition, testDb } from '../../../support/db'
 import { invitationLink, tokenOf, waitForMail } from '../../../support/mail'
 import { MESSAGES } from '../../../../shared/constants/messages'
@@ -167,7 +167,11 @@ describe('GET /api/invitations/:token and accepting', () => {
 
     const newcomer = new ApiClient(baseUrl)
     const signup = await newcomer.post('/api/auth/signup', { email, name: 'Nia Newcomer', password: GOOD_PASSWORD })
-    expect(signup.status).toBe(201)
+    expect(signup.status).toBe(202)
+    // Not before the address is confirmed: the confirmation link signs the newcomer in.
+    const [confirmation] = await waitForMail(email, { count: 2 }).then(all => all.filter(m => m.subject.startsWith('Confirm')))
+    const confirmed = await newcomer.post('/api/auth/verification/confirm', { token: accountLinkOf(confirmation!, '/verify-email').token })
+    expect(confirmed.status).toBe(200)
     const accepted = await newcomer.post(`/api/invitations/${token}/accept`)
     expect(accepted.status).toBe(200)
     expect(accepted.body).toEqual({ competitionId, role: 'scrutineer' })
