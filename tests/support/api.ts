@@ -2,7 +2,8 @@
 // A small HTTP client for e2e tests: remembers its session cookie like a browser would and
 // speaks from an address of its own (X-Forwarded-For, which the test server trusts).
 import { randomBytes, randomUUID } from 'node:crypto'
-import { waitForMail, type CapturedMessage } from './mail'
+import { clearMail, waitForMail, type CapturedMessage } from './mail'
+import { testDb } from './db'
 
 export interface ApiResponse<T = any> {
   status: number
@@ -72,7 +73,8 @@ export async function signedUpUnverifiedClient(baseUrl: string, name = 'Test Pil
 
 /**
  * Signs up a fresh account as a person would: sign-up, then the confirmation link from the
- * captured e-mail, which confirms the address and signs in. Returns the signed-in client.
+ * captured e-mail, which confirms the address and signs in; that e-mail is then cleared from
+ * the capture. Returns the signed-in client.
  */
 export async function signedUpClient(baseUrl: string, name = 'Test Pilot') {
   const client = new ApiClient(baseUrl)
@@ -82,5 +84,9 @@ export async function signedUpClient(baseUrl: string, name = 'Test Pilot') {
   const [mail] = await waitForMail(email)
   const confirmed = await client.post('/api/auth/verification/confirm', { token: accountLinkOf(mail!, '/verify-email').token })
   if (confirmed.status !== 200) throw new Error(`confirmation failed: ${confirmed.status} ${JSON.stringify(confirmed.body)}`)
+  // The mailbox starts empty for the test, as before addresses were confirmed: tests count
+  // what reaches an account, in the capture and in the outbox.
+  await clearMail(email)
+  await testDb()('mail_outbox').where({ to_address: email, template: 'account-confirm' }).delete()
   return { client, email, user: confirmed.body.user as { id: string, email: string, name: string } }
 }

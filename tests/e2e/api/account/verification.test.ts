@@ -31,7 +31,7 @@ describe('sign-up', () => {
     expect(forTaken.headers.getSetCookie().some(c => c.startsWith('gridmark-session='))).toBe(false)
     expect(forFresh.headers.getSetCookie().some(c => c.startsWith('gridmark-session='))).toBe(false)
 
-    const [note] = await waitForMail(taken, { count: 2 })
+    const [note] = await waitForMail(taken)
     expect(note!.subject).toBe('Someone tried to create a Gridmark account with your address')
     expect(note!.links.some(l => l.endsWith('/password/forgot'))).toBe(true)
     const owner = await testDb()('users').where({ id: user.id }).first()
@@ -139,7 +139,7 @@ describe('changing the e-mail address', () => {
     expect((await client.get('/api/me')).body.user.email).toBe(newEmail)
     expect((await new ApiClient(baseUrl).post('/api/auth/login', { email: oldEmail, password: GOOD_PASSWORD })).status).toBe(401)
     expect((await new ApiClient(baseUrl).post('/api/auth/login', { email: newEmail, password: GOOD_PASSWORD })).status).toBe(200)
-    const [notice] = await waitForMail(oldEmail, { count: 2 })
+    const [notice] = await waitForMail(oldEmail)
     expect(notice!.subject).toBe('Your Gridmark account now uses another e-mail address')
     expect(notice!.text).toContain(newEmail)
     expect(await testDb()('audit_log').where({ action: 'user.email-changed', subject_id: user.id })).toHaveLength(1)

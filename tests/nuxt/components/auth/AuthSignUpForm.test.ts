@@ -1,4 +1,4 @@
-import { afterEach, describe, expect, it } from 'vitest'
+import { afterEach, describe, expect, it, vi } from 'vitest'
 import { mountSuspended, registerEndpoint } from '@nuxt/test-utils/runtime'
 import { readBody, setResponseStatus } from 'h3'
 import { flushPromises } from '@vue/test-utils'
@@ -45,7 +45,7 @@ describe('AuthSignUpForm', () => {
     await fill(form, { name: 'Rosa Pilot', email: 'Rosa@Example.org', password: 'a long enough password' })
 
     expect(received).toEqual({ name: 'Rosa Pilot', email: 'rosa@example.org', password: 'a long enough password', next: '/invitations/abc' })
-    expect(form.emitted('signedUp')).toEqual([['Check your e-mail: we sent a link to rosa@example.org.', 'rosa@example.org']])
+    await vi.waitFor(() => expect(form.emitted('signedUp')).toEqual([['Check your e-mail: we sent a link to rosa@example.org.', 'rosa@example.org']]))
   })
 
   it('shows the server\'s refusal beside the field it names', async () => {
