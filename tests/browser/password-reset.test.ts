@@ -36,10 +36,10 @@ describe('a forgotten password', () => {
     await gotoApp(page, baseUrl, link.pathname + link.search)
     await page.getByRole('heading', { level: 1, name: 'Choose a new password' }).waitFor()
     // A password too short is refused beside the field, before anything is sent.
-    await page.getByLabel('New password').fill('short')
+    await page.getByLabel('New password', { exact: true }).fill('short')
     await page.getByRole('button', { name: 'Save the new password' }).click()
     await page.getByTestId('error-summary').getByText('Use at least 10 characters.').waitFor()
-    await page.getByLabel('New password').fill(NEW_PASSWORD)
+    await page.getByLabel('New password', { exact: true }).fill(NEW_PASSWORD)
     await screenshot(page, 'password-reset-choose-phone')
     await Promise.all([
       page.waitForURL(url => url.pathname === '/sign-in'),
@@ -58,7 +58,7 @@ describe('a forgotten password', () => {
 
     // The link is spent: opening it again and saving says so.
     await gotoApp(page, baseUrl, link.pathname + link.search)
-    await page.getByLabel('New password').fill('yet another long passphrase')
+    await page.getByLabel('New password', { exact: true }).fill('yet another long passphrase')
     await page.getByRole('button', { name: 'Save the new password' }).click()
     await page.getByTestId('error-summary').getByText(MESSAGES.tokenUsed).waitFor()
     await page.close()
