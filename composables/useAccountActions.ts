@@ -1,7 +1,16 @@
-import type { AccountDeleteInput, AccountNameInput, AccountPasswordInput } from '#shared/schemas/account'
+import type {
+  AccountDeleteInput, AccountNameInput, AccountPasswordInput,
+  EmailChangeInput, PasswordResetConfirmInput, PasswordResetRequestInput,
+} from '#shared/schemas/account'
+import type { PublicUser } from '#shared/types/api'
 import type { AccountDeleteResponse, AccountNameResponse, AccountPasswordResponse } from '#shared/types/api-account'
 
-/** The account page's actions on one's own account; the session store is brought up to date. */
+/**
+ * Actions on one's own account ($fetch): the account page's (name, password, deletion, export)
+ * and the one-time links' (a password reset, confirming an address, a new confirmation link,
+ * moving to another address). Errors are thrown for the form to show; the session store is
+ * brought up to date.
+ */
 export function useAccountActions() {
   const session = useSessionStore()
   return {
@@ -20,5 +29,16 @@ export function useAccountActions() {
     },
     /** The export's address: a plain link downloads it with the session's cookie. */
     exportUrl: '/api/me/export',
+
+    requestReset: (body: PasswordResetRequestInput) =>
+      $fetch<{ message: string }>('/api/auth/password-reset', { method: 'POST', body }),
+    confirmReset: (body: PasswordResetConfirmInput) =>
+      $fetch<{ message: string, email: string }>('/api/auth/password-reset/confirm', { method: 'POST', body }),
+    confirmEmail: (token: string) =>
+      $fetch<{ message: string, user: PublicUser }>('/api/auth/verification/confirm', { method: 'POST', body: { token } }),
+    resendConfirmation: () =>
+      $fetch<{ message: string }>('/api/auth/verification/resend', { method: 'POST' }),
+    changeEmail: (body: EmailChangeInput) =>
+      $fetch<{ message: string }>('/api/me/email', { method: 'POST', body }),
   }
 }

@@ -30,6 +30,7 @@ import * as m20261206000300 from './20261206000300_entry_messages'
 import * as m20261207000300 from './20261207000300_waiver_withdrawal'
 import * as m20261208000100 from './20261208000100_payments_any_way'
 import * as m20261208000200 from './20261208000200_reminder_schedule'
+import * as m20261209000100 from './20261209000100_account_tokens'
 import * as m20261209000200 from './20261209000200_deleted_accounts'
 import * as m20261209000500 from './20261209000500_outbox_secret_bodies'
 
@@ -65,6 +66,7 @@ const migrations: Record<string, Migration> = {
   '20261207000300_waiver_withdrawal': m20261207000300,
   '20261208000100_payments_any_way': m20261208000100,
   '20261208000200_reminder_schedule': m20261208000200,
+  '20261209000100_account_tokens': m20261209000100,
   '20261209000200_deleted_accounts': m20261209000200,
   '20261209000500_outbox_secret_bodies': m20261209000500,
 }

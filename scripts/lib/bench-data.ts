@@ -53,6 +53,7 @@ export async function createBenchUsers(db: Knex, tag: string, count: number, nam
     email: `${tag}-${String(i + 1).padStart(4, '0')}@${EMAIL_DOMAIN}`,
     name: name(i),
     password_hash: hash,
+    email_verified_at: new Date(),
   }))
   return insertInChunks<BenchUser>(db, 'users', rows, ['id', 'email', 'name'])
 }

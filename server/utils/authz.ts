@@ -40,6 +40,15 @@ export async function requireAdmin(event: H3Event): Promise<User> {
   return user
 }
 
+/**
+ * An account whose e-mail address is not confirmed may look around but not commit to anything
+ * (enter a glider, accept an invitation): 403 saying how to confirm it, with the resend action.
+ */
+export function requireVerified(user: User): User {
+  if (!user.emailVerified) throw httpError(403, MESSAGES.verificationRequired, { action: 'resend-verification' })
+  return user
+}
+
 export async function requireRole(
   event: H3Event,
   competitionId: string,

@@ -10,6 +10,7 @@ import { GRID_MESSAGES } from './messages-grid'
 import { BOARD_MESSAGES } from './messages-board'
 import { ACCOUNT_PAGE_MESSAGES } from './messages-account-page'
 import { INVITATIONS_MESSAGES } from './messages-invitations'
+import { ACCOUNT_MESSAGES } from './messages-account'
 
 export const MESSAGES = {
   invalidInput: 'Some fields need attention.',
@@ -70,6 +71,7 @@ export const MESSAGES = {
   ...BOARD_MESSAGES,
   ...ACCOUNT_PAGE_MESSAGES,
   ...INVITATIONS_MESSAGES,
+  ...ACCOUNT_MESSAGES,
 
   // --- The tracking list and the glider report (the office's paperwork) ---
   trackingStaffOnly: 'The tracking list is for the competition’s organisers, scrutineers and contest director: it lists every glider’s radio IDs.',

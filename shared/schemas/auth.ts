@@ -22,6 +22,8 @@ export const signUpSchema = z.object({
     .string({ error: 'Choose a password.' })
     .min(PASSWORD_MIN_LENGTH, { error: `Use at least ${PASSWORD_MIN_LENGTH} characters.` })
     .max(200, { error: 'Keep the password under 200 characters.' }),
+  /** Where the confirmation link leads after it signs the person in (a path of this site). */
+  next: z.string().max(500).regex(/^\/(?![/\\])/, { error: 'Choose a page of this site.' }).optional(),
 }, asObject)
 export type SignUpInput = z.infer<typeof signUpSchema>
 

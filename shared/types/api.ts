@@ -5,6 +5,8 @@ export interface PublicUser {
   email: string
   name: string
   isAdmin: boolean
+  /** The e-mail address was confirmed; until then the account cannot enter a glider or accept an invitation. */
+  emailVerified: boolean
 }
 
 /** One competition as the signed-in user sees it on their home page. */

@@ -6,6 +6,7 @@ declare module '#auth-utils' {
     email: string
     name: string
     isAdmin: boolean
+    emailVerified: boolean
   }
 
   interface UserSession {

@@ -14,6 +14,8 @@ export interface UserRow {
   name: string
   password_hash: string
   is_admin: boolean
+  /** When the address was confirmed through a link sent to it; null until then. */
+  email_verified_at: Date | null
   created_at: Date
   updated_at: Date
   /** Set when the person deleted their account: the row stays, anonymised. */

@@ -1,7 +1,7 @@
 // An organiser invites a scrutineer on the people page; the invitee opens the link from the
 // captured e-mail, creates an account, accepts, and sees the competition with the new role.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { ApiClient, GOOD_PASSWORD, signedUpClient, uniqueEmail } from '../support/api'
+import { ApiClient, GOOD_PASSWORD, accountLinkOf, signedUpClient, uniqueEmail } from '../support/api'
 import { closeTestDb, createCompetition } from '../support/db'
 import { gotoApp, launchBrowser, openPage, screenshot, signInThroughForm, type Browser } from '../support/browser'
 import { invitationLink, waitForMail } from '../support/mail'
@@ -71,10 +71,13 @@ describe('inviting a scrutineer', () => {
     await page.getByLabel('Your name').fill('Ines Invitee')
     await page.getByLabel('E-mail address').fill(invitee)
     await page.getByLabel('Password').fill(GOOD_PASSWORD)
-    await Promise.all([
-      page.waitForURL(url => url.pathname.startsWith('/invitations/')),
-      page.getByRole('button', { name: /create/i }).click(),
-    ])
+    await page.getByRole('button', { name: /create/i }).click()
+    await page.getByTestId('sign-up-sent').waitFor()
+    // The confirmation link signs the newcomer in and leads back to the invitation.
+    const confirmation = (await waitForMail(invitee, { count: 2 })).find(m => m.subject.startsWith('Confirm'))!
+    const confirmLink = new URL(accountLinkOf(confirmation, '/verify-email').link)
+    await gotoApp(page, baseUrl, confirmLink.pathname + confirmLink.search)
+    await page.waitForURL(url => url.pathname.startsWith('/invitations/'))
     await page.getByTestId('invitation-accept').waitFor()
     await screenshot(page, 'invitation-signed-in-phone')
     await Promise.all([

@@ -2,7 +2,8 @@
 // starts its entry with its own name filled in; after paying, the return page offers to submit
 // the entry; the header takes a scrutineer on a phone to the launch grid of their competition.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { GOOD_PASSWORD, signedUpClient, uniqueEmail } from '../support/api'
+import { GOOD_PASSWORD, accountLinkOf, signedUpClient, uniqueEmail } from '../support/api'
+import { waitForMail } from '../support/mail'
 import { gotoApp, launchBrowser, openPage, screenshot, signInThroughForm, type Browser } from '../support/browser'
 import { closeTestDb, createClass, createCompetition, testDb } from '../support/db'
 import { completeEntry, entryBody, randomRadioId } from '../support/entries'
@@ -31,9 +32,15 @@ describe('no dead ends', () => {
       await page.getByLabel('Your name').fill('Nova Newcomer')
       await page.getByLabel('E-mail address').fill(email)
       await page.getByLabel('Password').fill(GOOD_PASSWORD)
+      await page.getByRole('button', { name: 'Create account' }).click()
+      await page.getByTestId('sign-up-sent').waitFor()
+      // The confirmation link from the e-mail signs the newcomer in.
+      const link = new URL(accountLinkOf((await waitForMail(email))[0]!, '/verify-email').link)
+      await gotoApp(page, baseUrl, link.pathname + link.search)
+      await page.getByTestId('verify-done').waitFor()
       await Promise.all([
         page.waitForURL(url => url.pathname === '/'),
-        page.getByRole('button', { name: 'Create account' }).click(),
+        page.getByRole('link', { name: 'Continue' }).click(),
       ])
       await page.getByTestId('no-competitions').waitFor()
       const card = page.getByTestId('home-open-competition').filter({ hasText: name })

@@ -18,6 +18,12 @@ export async function capturedMail(to: string): Promise<CapturedMessage[]> {
   return await res.json() as CapturedMessage[]
 }
 
+/** Forgets the captured messages to one address (e.g. a test account's confirmation link, once used). */
+export async function clearMail(to: string): Promise<void> {
+  const res = await fetch(`${captureUrl()}/api/messages?to=${encodeURIComponent(to)}`, { method: 'DELETE' })
+  if (!res.ok) throw new Error(`mail capture answered ${res.status}`)
+}
+
 /** Waits until at least `count` messages reached `to`; returns them, newest first. */
 export async function waitForMail(to: string, options: { count?: number, timeoutMs?: number } = {}): Promise<CapturedMessage[]> {
   const count = options.count ?? 1

@@ -108,6 +108,8 @@ export async function deleteAccount(event: H3Event, user: User, input: AccountDe
     }
 
     const revoked = await revokeSessionsOf(trx, me.id, null)
+    // An unused reset or confirmation link must not bring the account back.
+    await trx('account_tokens').where({ user_id: me.id }).delete()
     await trx('users').where({ id: me.id }).update({
       email: deletedAddress(me.id), name: DELETED_NAME, password_hash: unusableHash, is_admin: false,
       deleted_at: trx.fn.now(), updated_at: trx.fn.now(),

@@ -2,17 +2,19 @@
 import type { Knex } from 'knex'
 import type { PublicUser } from '#shared/types/api'
 import type { UserRow } from '#shared/types/rows'
-import { MESSAGES } from '#shared/constants/messages'
 import { useDb } from '#server/utils/db'
 import { audit } from '#domain/audit/audit'
-import { httpError } from '#server/utils/errors'
 
 export function toPublicUser(row: UserRow): PublicUser {
-  return { id: row.id, email: row.email, name: row.name, isAdmin: row.is_admin }
+  return { id: row.id, email: row.email, name: row.name, isAdmin: row.is_admin, emailVerified: row.email_verified_at != null }
 }
 
 export async function findUserByEmail(email: string, db: Knex = useDb()): Promise<UserRow | undefined> {
   return db<UserRow>('users').whereRaw('lower(email) = lower(?)', [email]).first()
+}
+
+export async function findUserById(id: string, db: Knex = useDb()): Promise<UserRow | undefined> {
+  return db<UserRow>('users').where({ id }).first()
 }
 
 export async function createUser(
@@ -30,17 +32,17 @@ export async function updatePasswordHash(id: string, passwordHash: string, db: K
 }
 
 /**
- * Signs up a new user, audited in the same transaction; 409 when the address already has an
- * account (two sign-ups racing for one address: the unique index decides).
+ * Creates an account whose address is not confirmed yet, audited in the same transaction;
+ * undefined when the address already has one (checked first, and by the unique index when two
+ * sign-ups race), so the caller can answer the same either way.
  */
-export async function signUpUser(input: { email: string, name: string, passwordHash: string }): Promise<UserRow> {
-  if (await findUserByEmail(input.email)) throw httpError(409, MESSAGES.emailTaken)
-  return useDb().transaction(async (trx) => {
-    const created = await createUser(input, trx)
-    await audit(trx, { actorUserId: created.id, action: 'user.signed-up', subjectType: 'user', subjectId: created.id })
-    return created
-  }).catch((err) => {
-    if ((err as { code?: string }).code === '23505') throw httpError(409, MESSAGES.emailTaken)
-    throw err
-  })
+export async function createUnverifiedUser(trx: Knex.Transaction, input: { email: string, name: string, passwordHash: string }): Promise<UserRow | undefined> {
+  if (await findUserByEmail(input.email, trx)) return undefined
+  const [created] = await trx<UserRow>('users')
+    .insert({ email: input.email, name: input.name, password_hash: input.passwordHash })
+    .onConflict(trx.raw('(lower(email))')).ignore()
+    .returning('*')
+  if (!created) return undefined
+  await audit(trx, { actorUserId: created.id, action: 'user.signed-up', subjectType: 'user', subjectId: created.id })
+  return created
 }

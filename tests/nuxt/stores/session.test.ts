@@ -6,7 +6,7 @@ import type { MeResponse } from '#shared/types/api'
 
 const competitionId = '7d1c2b8e-4a0f-4c55-9b7e-2f3c1d9a6e01'
 const me: MeResponse = {
-  user: { id: 'u1', email: 'pilot@example.org', name: 'Rosa Pilot', isAdmin: false },
+  user: { id: 'u1', email: 'pilot@example.org', name: 'Rosa Pilot', isAdmin: false, emailVerified: true },
   memberships: [{
     competitionId,
     slug: 'test-cup',

@@ -7,6 +7,6 @@ import { acceptInvitation } from '#domain/people/invitations'
 export default defineApiHandler(async (event) => {
   const parsed = invitationTokenParamsSchema.safeParse(getRouterParams(event, { decode: true }))
   if (!parsed.success) throw httpError(404, MESSAGES.invitationInvalid)
-  const user = await requireUser(event)
+  const user = requireVerified(await requireUser(event))
   return await acceptInvitation(parsed.data.token, user)
 })

@@ -76,7 +76,7 @@ describe('sign-up', () => {
       const res = await new ApiClient(baseUrl, address).post('/api/auth/signup', { email: uniqueEmail('many'), name: 'Club Member', password: GOOD_PASSWORD })
       statuses.push(res.status)
     }
-    expect(statuses).toEqual(Array(20).fill(201))
+    expect(statuses).toEqual(Array(20).fill(202))
     const email = uniqueEmail('one-too-many')
     const refused = await new ApiClient(baseUrl, address).post('/api/auth/signup', { email, name: 'Club Member', password: GOOD_PASSWORD })
     expect(refused.status).toBe(429)
@@ -84,6 +84,6 @@ describe('sign-up', () => {
     expect(refused.body.message).toMatch(/Too many accounts were requested from this network\. Try again in \d+ minutes?\./)
     expect(await testDb()('users').where({ email }).first()).toBeUndefined()
 
-    expect((await new ApiClient(baseUrl).post('/api/auth/signup', { email, name: 'Club Member', password: GOOD_PASSWORD })).status).toBe(201)
+    expect((await new ApiClient(baseUrl).post('/api/auth/signup', { email, name: 'Club Member', password: GOOD_PASSWORD })).status).toBe(202)
   })
 })

@@ -57,6 +57,6 @@ describe('a busy database', () => {
       await trx.rollback()
     }
     // The lock gone, the server serves again.
-    expect((await signUp(address)).status).toBe(201)
+    expect((await signUp(address)).status).toBe(202)
   })
 })

@@ -1,6 +1,6 @@
-import { afterEach, describe, expect, it } from 'vitest'
+import { afterEach, describe, expect, it, vi } from 'vitest'
 import { mountSuspended, registerEndpoint } from '@nuxt/test-utils/runtime'
-import { setResponseStatus } from 'h3'
+import { readBody, setResponseStatus } from 'h3'
 import { flushPromises } from '@vue/test-utils'
 import AuthSignUpForm from '~/components/auth/AuthSignUpForm.vue'
 
@@ -30,12 +30,30 @@ describe('AuthSignUpForm', () => {
     expect(form.get('#sign-up-password-error').text()).toContain('Use at least 10 characters.')
   })
 
-  it('puts a taken e-mail address (409) on the e-mail field', async () => {
+  it('hands on where the confirmation link went, with the page to return to', async () => {
+    let received: unknown
+    cleanups.push(registerEndpoint('/api/auth/signup', {
+      method: 'POST',
+      handler: async (event) => {
+        received = await readBody(event)
+        setResponseStatus(event, 202)
+        return { message: 'Check your e-mail: we sent a link to rosa@example.org.' }
+      },
+    }))
+    const form = await mountSuspended(AuthSignUpForm, { props: { next: '/invitations/abc' } })
+    cleanups.push(() => form.unmount())
+    await fill(form, { name: 'Rosa Pilot', email: 'Rosa@Example.org', password: 'a long enough password' })
+
+    expect(received).toEqual({ name: 'Rosa Pilot', email: 'rosa@example.org', password: 'a long enough password', next: '/invitations/abc' })
+    await vi.waitFor(() => expect(form.emitted('signedUp')).toEqual([['Check your e-mail: we sent a link to rosa@example.org.', 'rosa@example.org']]))
+  })
+
+  it('shows the server\'s refusal beside the field it names', async () => {
     cleanups.push(registerEndpoint('/api/auth/signup', {
       method: 'POST',
       handler: (event) => {
-        setResponseStatus(event, 409)
-        return { statusCode: 409, message: 'An account with this e-mail address already exists.' }
+        setResponseStatus(event, 400)
+        return { statusCode: 400, message: 'Some fields need attention.', data: { fieldErrors: { email: ['Enter an e-mail address like name@example.org.'] }, formErrors: [] } }
       },
     }))
     const form = await mountSuspended(AuthSignUpForm)
@@ -43,7 +61,6 @@ describe('AuthSignUpForm', () => {
     await fill(form, { name: 'Rosa Pilot', email: 'rosa@example.org', password: 'a long enough password' })
 
     expect(form.get('#sign-up-email').attributes('aria-invalid')).toBe('true')
-    expect(form.get('#sign-up-email-error').text()).toContain('already exists')
-    expect(form.get('[role="alert"] a[href="#sign-up-email"]').text()).toContain('already exists')
+    expect(form.get('#sign-up-email-error').text()).toContain('like name@example.org')
   })
 })

@@ -27,7 +27,7 @@ const initial: EntryView = {
 describe('EntryForm', () => {
   it('starts a new entry with the signed-in pilot’s name and marks what saving and submitting need', async () => {
     const session = useSessionStore()
-    session.user = { id: 'u1', email: 'rosa@example.org', name: 'Rosa Pilot', isAdmin: false }
+    session.user = { id: 'u1', email: 'rosa@example.org', name: 'Rosa Pilot', isAdmin: false, emailVerified: true }
     const form = await mountSuspended(EntryForm, { props: { mode: 'create', classes, submitLabel: 'Save', busyLabel: '…', action: async () => {} } })
     cleanups.push(() => {
       form.unmount()
@@ -43,7 +43,7 @@ describe('EntryForm', () => {
 
   it('keeps the stored pilot name when changing an entry', async () => {
     const session = useSessionStore()
-    session.user = { id: 'u1', email: 'rosa@example.org', name: 'Rosa Pilot', isAdmin: false }
+    session.user = { id: 'u1', email: 'rosa@example.org', name: 'Rosa Pilot', isAdmin: false, emailVerified: true }
     const form = await mountSuspended(EntryForm, { props: { mode: 'edit', classes, initial, submitLabel: 'Save', busyLabel: '…', action: async () => {} } })
     cleanups.push(() => {
       form.unmount()

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest'
 import { mountSuspended, registerEndpoint } from '@nuxt/test-utils/runtime'
 import HomeCompetitions from '~/components/home/HomeCompetitions.vue'
 
-const user = { id: 'u1', email: 'pilot@example.org', name: 'Rosa Pilot', isAdmin: false }
+const user = { id: 'u1', email: 'pilot@example.org', name: 'Rosa Pilot', isAdmin: false, emailVerified: true }
 
 // The component reads the app's own Pinia, so each test sets the session it needs.
 describe('HomeCompetitions', () => {
