@@ -11,6 +11,7 @@ import { BOARD_MESSAGES } from './messages-board'
 import { ACCOUNT_PAGE_MESSAGES } from './messages-account-page'
 import { INVITATIONS_MESSAGES } from './messages-invitations'
 import { ACCOUNT_MESSAGES } from './messages-account'
+import { UPLOAD_STREAM_MESSAGES } from './messages-upload-stream'
 
 export const MESSAGES = {
   invalidInput: 'Some fields need attention.',
@@ -72,6 +73,7 @@ export const MESSAGES = {
   ...ACCOUNT_PAGE_MESSAGES,
   ...INVITATIONS_MESSAGES,
   ...ACCOUNT_MESSAGES,
+  ...UPLOAD_STREAM_MESSAGES,
 
   // --- The tracking list and the glider report (the office's paperwork) ---
   trackingStaffOnly: 'The tracking list is for the competition’s organisers, scrutineers and contest director: it lists every glider’s radio IDs.',

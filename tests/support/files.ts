@@ -1,5 +1,6 @@
 // Helpers for the files area's tests: multipart uploads through a signed-in ApiClient, tiny
 // valid PDF / PNG / JPEG files made in code, the IGC fixtures, and the uploads folder.
+import { randomBytes } from 'node:crypto'
 import { readFileSync, readdirSync, existsSync } from 'node:fs'
 import { join, resolve } from 'node:path'
 import { fileURLToPath } from 'node:url'
@@ -35,8 +36,11 @@ export async function getBytes(client: ApiClient, path: string): Promise<{ statu
   return { status: res.status, headers: res.headers, data: Buffer.from(await res.arrayBuffer()) }
 }
 
-/** A one-page PDF, small but well formed, so a browser's viewer can open it. */
-export function tinyPdf(text = 'Test document'): Buffer {
+/**
+ * A one-page PDF, small but well formed, so a browser's viewer can open it. With `padBytes`,
+ * it also carries an unreferenced stream of that many random bytes (a large scan's weight).
+ */
+export function tinyPdf(text = 'Test document', padBytes = 0): Buffer {
   const objects = [
     '<< /Type /Catalog /Pages 2 0 R >>',
     '<< /Type /Pages /Kids [3 0 R] /Count 1 >>',
@@ -46,6 +50,10 @@ export function tinyPdf(text = 'Test document'): Buffer {
   ]
   const stream = `BT /F1 18 Tf 30 100 Td (${text.replace(/[()\\]/g, '')}) Tj ET`
   objects[3] = `<< /Length ${stream.length} >>\nstream\n${stream}\nendstream`
+  if (padBytes > 0) {
+    const pad = randomBytes(padBytes).toString('latin1')
+    objects.push(`<< /Length ${pad.length} >>\nstream\n${pad}\nendstream`)
+  }
   let out = '%PDF-1.4\n'
   const offsets: number[] = []
   objects.forEach((body, i) => {

@@ -11,6 +11,8 @@ const entry = `${root}.output/server/index.mjs`
 export interface RunningServer {
   url: string
   port: number
+  /** The server process' id (its memory can be read in /proc/<pid>/status). */
+  pid: number
   stop: () => Promise<void>
   /** Everything the server printed, for failure messages. */
   output: () => string
@@ -73,6 +75,7 @@ export async function startServer(env: Record<string, string> = {}, port?: numbe
   return {
     url,
     port: listenPort,
+    pid: child.pid!,
     output: () => log,
     stop: () => new Promise<void>((resolve) => {
       if (child.exitCode !== null) return resolve()

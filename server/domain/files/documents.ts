@@ -18,7 +18,7 @@ import { documentRejectedMail } from '#domain/mail/templates'
 import { useDb } from '#server/utils/db'
 import { httpError } from '#server/utils/errors'
 import { iso } from '#domain/read-model/values'
-import { newStorageKey, sha256Hex, storeThenCommit } from './storage'
+import { newStorageKey, storeThenCommit, type ReceivedFile } from './storage'
 
 type DocumentSelect = DocumentRow & { expires_on_text: string, uploaded_by_name: string, reviewed_by_name: string | null }
 
@@ -50,9 +50,9 @@ function toView(r: DocumentSelect): DocumentView {
   }
 }
 
-/** The media type from the file's first bytes, or null when it is none we accept. */
-export async function detectDocumentType(data: Uint8Array): Promise<DocumentMediaType | null> {
-  const found = await fileTypeFromBuffer(data)
+/** The media type from the file's first bytes (a few KB suffice), or null when it is none we accept. */
+export async function detectDocumentType(head: Uint8Array): Promise<DocumentMediaType | null> {
+  const found = await fileTypeFromBuffer(head)
   return found && (DOCUMENT_MEDIA_TYPES as readonly string[]).includes(found.mime) ? found.mime as DocumentMediaType : null
 }
 
@@ -78,11 +78,11 @@ export async function createDocument(input: {
   expiresOn: string
   filename: string
   mediaType: DocumentMediaType
-  data: Uint8Array
+  file: ReceivedFile
 }): Promise<DocumentView> {
   const key = newStorageKey('documents', input.entryId)
-  const sha256 = sha256Hex(input.data)
-  const id = await storeThenCommit(key, input.data, () => useDb().transaction(async (trx) => {
+  const { sha256, size } = input.file
+  const id = await storeThenCommit(key, input.file.path, () => useDb().transaction(async (trx) => {
     // Supersede the current one of this kind first: one current document per kind (index).
     const previous = await trx('documents')
       .where({ entry_id: input.entryId, kind: input.kind, superseded: false })
@@ -94,7 +94,7 @@ export async function createDocument(input: {
       kind: input.kind,
       original_filename: input.filename,
       media_type: input.mediaType,
-      size_bytes: input.data.byteLength,
+      size_bytes: size,
       sha256,
       storage_key: key,
       expires_on: input.expiresOn,
@@ -109,7 +109,7 @@ export async function createDocument(input: {
       action: previous.length ? 'document.replaced' : 'document.uploaded',
       subjectType: 'document',
       subjectId: row!.id,
-      details: { entryId: input.entryId, kind: input.kind, sha256, sizeBytes: input.data.byteLength, mediaType: input.mediaType, replaces: previous.map(p => p.id) },
+      details: { entryId: input.entryId, kind: input.kind, sha256, sizeBytes: size, mediaType: input.mediaType, replaces: previous.map(p => p.id) },
     })
     await noteChangeAfterAcceptance(trx, [input.entryId])
     await dossierChanged(trx, input.competitionId, [input.entryId], input.actorUserId)

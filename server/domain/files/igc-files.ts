@@ -10,8 +10,9 @@ import { useDb } from '#server/utils/db'
 import { iso } from '#domain/read-model/values'
 import { httpError } from '#server/utils/errors'
 import { MESSAGES } from '#shared/constants/messages'
-import type { IgcHeader, IgcLineError } from './igc-header'
-import { newStorageKey, sha256Hex, storeThenCommit } from './storage'
+import { readFile } from 'node:fs/promises'
+import { parseIgcInSlices, type IgcHeader, type IgcLineError, type IgcParseResult } from './igc-header'
+import { newStorageKey, storeThenCommit, type ReceivedFile } from './storage'
 
 type IgcSelect = IgcFileRow & { flight_date_text: string | null, uploaded_by_name: string }
 
@@ -59,6 +60,14 @@ export function decodeIgcText(data: Uint8Array): string {
   }
 }
 
+/**
+ * Parses a received IGC file (at most the 5 MB limit, read whole) in slices, so the event
+ * loop stays free for everyone else while it runs.
+ */
+export async function parseIgcUpload(path: string): Promise<IgcParseResult> {
+  return parseIgcInSlices(decodeIgcText(await readFile(path)))
+}
+
 export async function listIgcFiles(entryId: string): Promise<IgcFileListResponse> {
   const rows = await selectIgc(useDb()).where('f.entry_id', entryId).orderBy('f.uploaded_at', 'desc').orderBy('f.id') as IgcSelect[]
   const views = rows.map(toView)
@@ -80,14 +89,14 @@ export async function createIgcFile(input: {
   unitId: string | null
   actorUserId: string
   filename: string
-  data: Uint8Array
+  file: ReceivedFile
   header: IgcHeader
   errors: IgcLineError[]
 }): Promise<IgcFileView> {
   const key = newStorageKey('igc', input.entryId)
-  const sha256 = sha256Hex(input.data)
+  const { sha256, size } = input.file
   const h = input.header
-  const id = await storeThenCommit(key, input.data, () => useDb().transaction(async (trx) => {
+  const id = await storeThenCommit(key, input.file.path, () => useDb().transaction(async (trx) => {
     const previous = await trx('igc_files')
       .where({ entry_id: input.entryId, superseded: false })
       .where(q => (input.unitId ? q.where('unit_id', input.unitId) : q.whereNull('unit_id')))
@@ -100,7 +109,7 @@ export async function createIgcFile(input: {
       original_filename: input.filename,
       storage_key: key,
       sha256,
-      size_bytes: input.data.byteLength,
+      size_bytes: size,
       flight_date: h.flightDate,
       pilot: h.pilot,
       copilot: h.copilot,
@@ -125,7 +134,7 @@ export async function createIgcFile(input: {
       action: previous.length ? 'igc-file.replaced' : 'igc-file.uploaded',
       subjectType: 'igc_file',
       subjectId: row!.id,
-      details: { entryId: input.entryId, unitId: input.unitId, sha256, sizeBytes: input.data.byteLength, replaces: previous.map(p => p.id) },
+      details: { entryId: input.entryId, unitId: input.unitId, sha256, sizeBytes: size, replaces: previous.map(p => p.id) },
     })
     await noteChangeAfterAcceptance(trx, [input.entryId])
     await dossierChanged(trx, input.competitionId, [input.entryId], input.actorUserId)

@@ -80,15 +80,19 @@ export function extensionsOf(lines: readonly string[]): string[] {
   return out
 }
 
-export function parseIgc(text: string): IgcParseResult {
+/**
+ * The parse, as steps: it yields after every slice of lines so that a caller can give the
+ * event loop its turn between slices (a 5 MB file takes a couple of seconds of CPU).
+ */
+function* parseSteps(text: string, sliceLines: number): Generator<void, IgcParseResult> {
   const lines = text.split('\n')
   const trimmed = lines.map(l => l.trim())
   // The same loop as IGCParser.parse in lenient mode, but keeping each error's line number.
   const parser = new IGCParser({ lenient: true }) as unknown as LineParser
   const errors: IgcLineError[] = []
   let firstContentLine = 0
-  for (const [index, raw] of lines.entries()) {
-    const line = raw.trim()
+  for (const [index, line] of trimmed.entries()) {
+    if (index > 0 && index % sliceLines === 0) yield
     if (line && !firstContentLine) firstContentLine = index + 1
     try {
       parser.processLine(line)
@@ -128,5 +132,36 @@ export function parseIgc(text: string): IgcParseResult {
       extensions: extensionsOf(trimmed),
       hasGRecord: Boolean(result.security),
     },
+  }
+}
+
+/** Parses the whole text at once: for small files, seeds and tests. */
+export function parseIgc(text: string): IgcParseResult {
+  const steps = parseSteps(text, Number.MAX_SAFE_INTEGER)
+  for (;;) {
+    const step = steps.next()
+    if (step.done) return step.value
+  }
+}
+
+/** Lines parsed between two looks at the clock. */
+const SLICE_LINES = 500
+/** The longest the parse holds the event loop at a time. */
+const SLICE_MS = 10
+
+/**
+ * The same parse for an uploaded file: it gives the event loop back every SLICE_MS, so a
+ * large file never keeps the server from answering anyone else.
+ */
+export async function parseIgcInSlices(text: string): Promise<IgcParseResult> {
+  const steps = parseSteps(text, SLICE_LINES)
+  let sliceStart = performance.now()
+  for (;;) {
+    const step = steps.next()
+    if (step.done) return step.value
+    if (performance.now() - sliceStart >= SLICE_MS) {
+      await new Promise<void>(resolve => setImmediate(resolve))
+      sliceStart = performance.now()
+    }
   }
 }

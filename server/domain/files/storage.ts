@@ -3,24 +3,58 @@
 // configured (server/plugins/uploads-storage.ts). Rows in PostgreSQL hold the metadata and
 // point here by key. Keys are fresh uuids under the entry, so two uploads never share a
 // file and removing one (after a failed transaction) cannot touch another's.
-import { createHash, randomUUID } from 'node:crypto'
+// An upload arrives in a temporary file (server/utils/uploads.ts) and is moved into place
+// only once it is whole and valid.
+import { randomUUID } from 'node:crypto'
+import { copyFile, mkdir, readFile as readLocalFile, rename, rm } from 'node:fs/promises'
+import { dirname, join, resolve } from 'node:path'
 
 export type FileArea = 'documents' | 'igc'
 
-function uploads() {
-  return useStorage('uploads')
+/** An upload received on local disk (server/utils/uploads.ts), hashed as it arrived. */
+export interface ReceivedFile {
+  path: string
+  size: number
+  sha256: string
 }
 
-export function sha256Hex(data: Uint8Array): string {
-  return createHash('sha256').update(data).digest('hex')
+function uploads() {
+  return useStorage('uploads')
 }
 
 export function newStorageKey(area: FileArea, entryId: string): string {
   return `${area}:${entryId}:${randomUUID()}`
 }
 
-export async function putFile(key: string, data: Uint8Array): Promise<void> {
-  await uploads().setItemRaw(key, Buffer.from(data.buffer, data.byteOffset, data.byteLength))
+/** The folder of the uploads mount when it is one on this machine (the fs driver), else null. */
+function localFolder(): string | null {
+  const { driver } = useStorage().getMount('uploads:')
+  const base = (driver.options as { base?: unknown } | undefined)?.base
+  return (driver.name === 'fs' || driver.name === 'fs-lite') && typeof base === 'string' ? resolve(base) : null
+}
+
+/**
+ * Moves a file received on disk into storage under `key`. On local disk it is a rename (a
+ * copy when the temporary folder is on another file system), so the file never passes
+ * through memory; a bucket is sent the file, at most the upload's limit.
+ */
+export async function placeFile(key: string, path: string): Promise<void> {
+  const folder = localFolder()
+  if (!folder) {
+    await uploads().setItemRaw(key, await readLocalFile(path))
+    return
+  }
+  // The same place the fs driver reads the key from (a ':' is a folder).
+  const target = join(folder, ...key.split(':'))
+  await mkdir(dirname(target), { recursive: true })
+  try {
+    await rename(path, target)
+  }
+  catch (error) {
+    if ((error as NodeJS.ErrnoException).code !== 'EXDEV') throw error
+    await copyFile(path, target)
+    await rm(path, { force: true })
+  }
 }
 
 export async function readFile(key: string): Promise<Buffer | null> {
@@ -38,11 +72,12 @@ export async function removeFile(key: string): Promise<void> {
 }
 
 /**
- * Writes the file first, then runs the rows' transaction; if the transaction fails the file
- * is removed again, so a failed upload leaves neither rows nor a stray file behind.
+ * Moves the received file into place first, then runs the rows' transaction; if the
+ * transaction fails the file is removed again, so a failed upload leaves neither rows nor a
+ * stray file behind.
  */
-export async function storeThenCommit<T>(key: string, data: Uint8Array, commit: () => Promise<T>): Promise<T> {
-  await putFile(key, data)
+export async function storeThenCommit<T>(key: string, path: string, commit: () => Promise<T>): Promise<T> {
+  await placeFile(key, path)
   try {
     return await commit()
   }

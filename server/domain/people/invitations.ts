@@ -19,11 +19,8 @@ import { useDb } from '#server/utils/db'
 import { httpError } from '#server/utils/errors'
 import { siteUrl } from '#server/utils/site-url'
 import { createInvitationToken, hashInvitationToken, verifyInvitationToken } from './invitation-token'
-<<<<<<< HEAD
 import { signingSecret } from './secrets'
-=======
 import { rolesInCompetition } from './memberships'
->>>>>>> invitations-bound
 
 /** The key that signs invitation links: NUXT_INVITATION_SECRET (only the demo falls back to the session password). */
 export function invitationSecret(): string {

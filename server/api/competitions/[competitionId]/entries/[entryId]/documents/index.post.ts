@@ -9,7 +9,7 @@ export default defineApiHandler(async (event) => {
   const { competitionId, entryId } = await validParams(event, entryParamsSchema)
   const access = await requireEntryAccess(event, competitionId, entryId, 'owner-or-staff')
   const upload = await readUpload(event, { maxBytes: DOCUMENT_MAX_BYTES, tooLarge: MESSAGES.documentTooLarge, fields: documentUploadSchema })
-  const mediaType = await detectDocumentType(upload.data)
+  const mediaType = await detectDocumentType(upload.head)
   if (!mediaType) throw httpError(415, MESSAGES.documentWrongType)
   const document = await createDocument({
     competitionId,
@@ -19,7 +19,7 @@ export default defineApiHandler(async (event) => {
     expiresOn: upload.fields.expiresOn,
     filename: upload.filename,
     mediaType,
-    data: upload.data,
+    file: upload,
   })
   setResponseStatus(event, 201)
   return { document }

@@ -3,8 +3,7 @@
 import { IGC_MAX_BYTES } from '#shared/constants/files'
 import { MESSAGES } from '#shared/constants/messages'
 import { entryParamsSchema, igcUploadSchema } from '#shared/schemas/files'
-import { createIgcFile, decodeIgcText } from '#domain/files/igc-files'
-import { parseIgc } from '#domain/files/igc-header'
+import { createIgcFile, parseIgcUpload } from '#domain/files/igc-files'
 
 export default defineApiHandler(async (event) => {
   const { competitionId, entryId } = await validParams(event, entryParamsSchema)
@@ -12,7 +11,7 @@ export default defineApiHandler(async (event) => {
   const upload = await readUpload(event, { maxBytes: IGC_MAX_BYTES, tooLarge: MESSAGES.igcTooLarge, fields: igcUploadSchema })
   const unitId = upload.fields.unitId ?? null
   if (unitId) await requireEntryRecorder(entryId, unitId)
-  const parsed = parseIgc(decodeIgcText(upload.data))
+  const parsed = await parseIgcUpload(upload.path)
   if (!parsed.ok) {
     throw httpError(400, MESSAGES.notIgc(parsed.error.message, parsed.error.line), {
       fieldErrors: { file: [MESSAGES.notIgc(parsed.error.message, parsed.error.line)] },
@@ -26,7 +25,7 @@ export default defineApiHandler(async (event) => {
     unitId,
     actorUserId: access.user.id,
     filename: upload.filename,
-    data: upload.data,
+    file: upload,
     header: parsed.header,
     errors: parsed.errors,
   })
