@@ -8,6 +8,7 @@ import { SETUP_MESSAGES } from './messages-setup'
 import { TAGS_MESSAGES } from './messages-tags'
 import { GRID_MESSAGES } from './messages-grid'
 import { BOARD_MESSAGES } from './messages-board'
+import { CROSS_SITE_MESSAGES } from './messages-cross-site'
 
 export const MESSAGES = {
   invalidInput: 'Some fields need attention.',
@@ -66,6 +67,7 @@ export const MESSAGES = {
   ...TAGS_MESSAGES,
   ...GRID_MESSAGES,
   ...BOARD_MESSAGES,
+  ...CROSS_SITE_MESSAGES,
 
   // --- The tracking list and the glider report (the office's paperwork) ---
   trackingStaffOnly: 'The tracking list is for the competition’s organisers, scrutineers and contest director: it lists every glider’s radio IDs.',
