@@ -91,6 +91,11 @@ export default defineNuxtConfig({
         { name: 'theme-color', content: '#0e1f3b' },
       ],
       link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }],
+      // The CSP allows no eval. Zod compiles object parsers with `new Function` when it may and
+      // probes for it as each schema is built: blocked, the probe is swallowed but still reported
+      // as a violation. Told before any module runs (this classic script runs before the deferred
+      // module scripts; nuxt-security gives it the page's nonce), zod never tries.
+      script: [{ innerHTML: 'globalThis.__zod_globalConfig=Object.assign(globalThis.__zod_globalConfig||{},{jitless:true})', tagPriority: 'critical' }],
     },
   },
 
