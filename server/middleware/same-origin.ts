@@ -1,13 +1,14 @@
 // Every write to /api (POST, PUT, PATCH, DELETE) comes from the app's own pages: a browser
 // naming another site (Origin, else Sec-Fetch-Site) is refused with 403, and so is a body a
-// plain HTML form could send (URL-encoded, text/plain) — one check no new route can forget.
+// plain HTML form could send (URL-encoded, text/plain); a body neither JSON, multipart nor CSV
+// is refused with 415 — one check no new route can forget.
 // The payment service's webhook is the exception: it comes from elsewhere and is signed.
 // Also the headers that depend on the request: HSTS only when it came over https (never on a
 // plain-http airfield LAN), and a CSP for API answers (pages get theirs from nuxt-security).
 import { defineEventHandler, getRequestHeader, setResponseHeader } from 'h3'
 import { MESSAGES } from '#shared/constants/messages'
 import { httpError } from '#server/utils/errors'
-import { acceptedBodyType, fromAnotherSite, servedOverHttps, type OriginRequest } from '#server/utils/same-origin'
+import { bodyTypeOf, fromAnotherSite, servedOverHttps, type OriginRequest } from '#server/utils/same-origin'
 
 const WRITES = new Set(['POST', 'PUT', 'PATCH', 'DELETE'])
 const SIGNED_ELSEWHERE = new Set(['/api/payments/webhook'])
@@ -33,5 +34,7 @@ export default defineEventHandler((event) => {
   if (fromAnotherSite(request)) throw httpError(403, MESSAGES.crossSiteRefused)
   const headers = event.node.req.headers
   const hasBody = Number.parseInt(headers['content-length'] ?? '', 10) > 0 || headers['transfer-encoding'] !== undefined
-  if (!acceptedBodyType(getRequestHeader(event, 'content-type'), hasBody)) throw httpError(403, MESSAGES.bodyTypeRefused)
+  const type = bodyTypeOf(getRequestHeader(event, 'content-type'), hasBody)
+  if (type === 'form') throw httpError(403, MESSAGES.bodyTypeRefused)
+  if (type === 'other') throw httpError(415, MESSAGES.bodyTypeUnsupported)
 })

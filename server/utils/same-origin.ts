@@ -73,12 +73,14 @@ function normalOrigin(origin: string): string {
 }
 
 /**
- * The body types a write may carry: JSON, a multipart form (uploads), a CSV file. Never the
- * two a plain HTML form can send from anywhere without asking (URL-encoded, text/plain).
- * A write with no body at all (sign-out, a button's action) needs no type.
+ * The body types a write may carry: JSON, a multipart form (uploads), a CSV file. 'form' for
+ * what a plain HTML form (or a script without asking first) can send from any site —
+ * URL-encoded, text/plain, a body with no type; 'other' for any other type. A write with no
+ * body at all (sign-out, a button's action) needs no type.
  */
-export function acceptedBodyType(contentType: string | undefined, hasBody: boolean): boolean {
+export function bodyTypeOf(contentType: string | undefined, hasBody: boolean): 'accepted' | 'form' | 'other' {
   const type = (contentType ?? '').split(';')[0]!.trim().toLowerCase()
-  if (!type) return !hasBody
-  return type === 'application/json' || type === 'multipart/form-data' || type === 'text/csv'
+  if (!type) return hasBody ? 'form' : 'accepted'
+  if (type === 'application/json' || type === 'multipart/form-data' || type === 'text/csv') return 'accepted'
+  return type === 'application/x-www-form-urlencoded' || type === 'text/plain' ? 'form' : 'other'
 }

@@ -55,6 +55,10 @@ describe('writes from another site', () => {
     expect(signIn.headers.getSetCookie()).toEqual([])
     // A body with no type at all is not JSON either.
     expect((await send(w.entrant.client, 'POST', messages(), {}, 'body=Hello')).status).toBe(403)
+    // Any other type a form cannot send is not JSON either: 415, with what to send instead.
+    const xml = await send(w.entrant.client, 'POST', messages(), { 'content-type': 'application/xml' }, '<body>Hello</body>')
+    expect(xml.status).toBe(415)
+    expect(xml.body.message).toMatch(/Send JSON/)
     expect(await messageCount()).toBe(before)
   })
 
