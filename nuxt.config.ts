@@ -14,7 +14,63 @@ export default defineNuxtConfig({
   devtools: { enabled: false },
   telemetry: false,
 
-  modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint', '@vite-pwa/nuxt'],
+  modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint', '@vite-pwa/nuxt', 'nuxt-security'],
+
+  // Security headers (docs/concerns.md, "Cross-site requests and security headers"). Pages get a
+  // CSP with a fresh nonce for Nuxt's own inline scripts; every answer gets nosniff, a
+  // Referrer-Policy and DENY framing. What depends on the request is set per request by
+  // server/middleware/same-origin.ts: HSTS only over https (a plain-http airfield LAN must
+  // not be told to use https), a CSP for API answers, and the origin check of every write.
+  // Off, because the app does each its own way already: the rate and size limits (sign-in
+  // limits, bodies limited while they stream), CSRF (the origin check), CORS (no other site
+  // may call the API), the XSS "validator" (bodies are checked by zod, text escaped by Vue).
+  security: {
+    headers: {
+      contentSecurityPolicy: {
+        'default-src': ['\'self\''],
+        'base-uri': ['\'none\''],
+        'object-src': ['\'none\''],
+        'frame-ancestors': ['\'none\''],
+        'form-action': ['\'self\''],
+        // Nuxt's inline scripts carry the nonce; what they load is trusted from them on.
+        'script-src': ['\'self\'', '\'strict-dynamic\'', '\'nonce-{{nonce}}\''],
+        'script-src-attr': ['\'none\''],
+        // Vue's style bindings and the scanner's own element styles.
+        'style-src': ['\'self\'', '\'unsafe-inline\''],
+        // The fonts are bundled; the scanner draws its icons from data: and blob: images.
+        'font-src': ['\'self\'', 'data:'],
+        'img-src': ['\'self\'', 'data:', 'blob:'],
+        'media-src': ['\'self\'', 'blob:'],
+        // The board's socket is on this same origin ('self' covers ws: and wss: there).
+        'connect-src': ['\'self\''],
+        'worker-src': ['\'self\''],
+        'manifest-src': ['\'self\''],
+        // The document review shows an uploaded PDF in a frame of this origin.
+        'frame-src': ['\'self\''],
+        'upgrade-insecure-requests': false,
+      },
+      strictTransportSecurity: false,
+      referrerPolicy: 'same-origin',
+      xContentTypeOptions: 'nosniff',
+      xFrameOptions: 'DENY',
+      // Would block the review page's frame of an uploaded PDF (an API answer, without COEP).
+      crossOriginEmbedderPolicy: false,
+      permissionsPolicy: {
+        'camera': ['self'],
+        'fullscreen': ['self'],
+        'display-capture': [],
+        'geolocation': [],
+        'microphone': [],
+      },
+    },
+    rateLimiter: false,
+    requestSizeLimiter: false,
+    xssValidator: false,
+    corsHandler: false,
+    allowedMethodsRestricter: false,
+    csrf: false,
+    removeLoggers: false,
+  },
 
   css: [
     '@fontsource/barlow/400.css',
@@ -35,6 +91,11 @@ export default defineNuxtConfig({
         { name: 'theme-color', content: '#0e1f3b' },
       ],
       link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }],
+      // The CSP allows no eval. Zod compiles object parsers with `new Function` when it may and
+      // probes for it as each schema is built: blocked, the probe is swallowed but still reported
+      // as a violation. Told before any module runs (this classic script runs before the deferred
+      // module scripts; nuxt-security gives it the page's nonce), zod never tries.
+      script: [{ innerHTML: 'globalThis.__zod_globalConfig=Object.assign(globalThis.__zod_globalConfig||{},{jitless:true})', tagPriority: 'critical' }],
     },
   },
 

@@ -6,6 +6,8 @@
 // check as every API request); a socket then asks to join a competition's board and is let in
 // only where its user holds a role: staff to the whole board, an entrant to their own entries.
 // Instances share events through PostgreSQL (@socket.io/postgres-adapter, LISTEN/NOTIFY).
+// A handshake from another site's page (its Origin) is refused, over polling and websocket
+// alike: the cookie would otherwise let that page read the board (server/utils/same-origin.ts).
 import { ServerResponse, type IncomingMessage } from 'node:http'
 import { Server as Engine } from 'engine.io'
 import { Server, type Socket } from 'socket.io'
@@ -21,6 +23,7 @@ import type { BoardJoinAck } from '#shared/types/api-board'
 import { rolesInCompetition } from '#domain/people/memberships'
 import { userOfSession } from '#domain/people/sessions'
 import { boardRoom, deliverLocally, type Delivery, entrantRoom, leaveCompetitionRooms, RELAY_EVENT, sessionRoom, setRealtime, userRoom } from '#domain/realtime/realtime'
+import { fromAnotherSite } from '#server/utils/same-origin'
 
 /** What instances tell each other: changes to push to their own screens. */
 interface InterServerEvents {
@@ -45,6 +48,11 @@ async function handshakeUser(req: IncomingMessage): Promise<{ user: User, sessio
   return user && session.sessionId ? { user, sessionId: session.sessionId } : null
 }
 
+/** Whether a handshake comes from another site's page. */
+function crossSiteHandshake(req: IncomingMessage): boolean {
+  return fromAnotherSite({ headers: req.headers, encrypted: Boolean((req.socket as { encrypted?: boolean } | undefined)?.encrypted) })
+}
+
 /** Logs at most one line per message a minute: a database outage must not flood the log. */
 function throttledLog(prefix: string) {
   const seen = new Map<string, number>()
@@ -58,7 +66,12 @@ function throttledLog(prefix: string) {
 }
 
 export default defineNitroPlugin((nitroApp) => {
-  const engine = new Engine({ pingInterval: 10_000, pingTimeout: 8_000 })
+  const engine = new Engine({
+    pingInterval: 10_000,
+    pingTimeout: 8_000,
+    // Polling handshakes; a websocket handed over by crossws skips this, the io.use below does not.
+    allowRequest: (req, answer) => crossSiteHandshake(req) ? answer(MESSAGES.socketOriginRefused, false) : answer(null, true),
+  })
   const io = new Server<Record<string, never>, Record<string, never>, InterServerEvents, SocketData>({ serveClient: false })
 
   // Its own small pool: the adapter keeps one connection LISTENing for the other instances.
@@ -72,6 +85,7 @@ export default defineNitroPlugin((nitroApp) => {
   io.bind(engine)
 
   io.use(async (socket, next) => {
+    if (crossSiteHandshake(socket.request)) return next(new Error(MESSAGES.socketOriginRefused))
     try {
       const who = await handshakeUser(socket.request)
       if (!who) return next(new Error(MESSAGES.socketSignIn))

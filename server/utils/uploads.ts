@@ -240,3 +240,24 @@ export function contentDisposition(kind: 'inline' | 'attachment', filename: stri
   const ascii = filename.replace(/[^\x20-\x7e]/g, '_').replace(/["\\]/g, '_')
   return `${kind}; filename="${ascii}"; filename*=UTF-8''${encodeURIComponent(filename)}`
 }
+
+/** Types a browser shows by itself without running anything: viewed inline, all else downloaded. */
+const SHOWN_INLINE = new Set(['application/pdf', 'image/png', 'image/jpeg', 'image/webp', 'image/gif'])
+
+/**
+ * The headers of a stored upload sent back: its type as detected at upload, never sniffed;
+ * sandboxed, so even a file that is a page in disguise runs nothing and reaches no cookie;
+ * framed by this site's own pages only (the document review shows a PDF in a frame); a PDF
+ * or an image inline, anything else as a download.
+ */
+export function storedFileHeaders(mediaType: string, filename: string, bytes: number): Record<string, string | number> {
+  return {
+    'content-type': mediaType,
+    'content-length': bytes,
+    'content-disposition': contentDisposition(SHOWN_INLINE.has(mediaType) ? 'inline' : 'attachment', filename),
+    'content-security-policy': 'sandbox; default-src \'none\'; img-src \'self\' data:; style-src \'unsafe-inline\'; frame-ancestors \'self\'',
+    'x-content-type-options': 'nosniff',
+    'x-frame-options': 'SAMEORIGIN',
+    'cache-control': 'private, no-store',
+  }
+}

@@ -1,5 +1,5 @@
 // GET …/entries/:entryId/documents/:documentId/file — the entry's entrant or the competition's staff.
-// The stored file, shown inline with its detected type; nosniff so a browser never guesses another.
+// The stored file with its detected type, sandboxed; a PDF or an image inline, else a download.
 import { MESSAGES } from '#shared/constants/messages'
 import { entryDocumentParamsSchema } from '#shared/schemas/files'
 import { findEntryDocument } from '#domain/files/documents'
@@ -12,12 +12,6 @@ export default defineApiHandler(async (event) => {
   if (!document) throw httpError(404, MESSAGES.documentNotFound)
   const data = await readFile(document.storage_key)
   if (!data) throw httpError(404, MESSAGES.fileUnavailable)
-  setResponseHeaders(event, {
-    'content-type': document.media_type,
-    'content-length': data.byteLength,
-    'content-disposition': contentDisposition('inline', document.original_filename),
-    'x-content-type-options': 'nosniff',
-    'cache-control': 'private, no-store',
-  })
+  setResponseHeaders(event, storedFileHeaders(document.media_type, document.original_filename, data.byteLength))
   return data
 })

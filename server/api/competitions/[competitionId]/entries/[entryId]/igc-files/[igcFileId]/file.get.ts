@@ -1,5 +1,5 @@
 // GET …/entries/:entryId/igc-files/:igcFileId/file — the entry's entrant or the competition's staff.
-// The stored IGC file exactly as uploaded, as a plain-text download.
+// The stored IGC file exactly as uploaded, as a sandboxed plain-text download.
 import { MESSAGES } from '#shared/constants/messages'
 import { entryIgcParamsSchema } from '#shared/schemas/files'
 import { findEntryIgcFile } from '#domain/files/igc-files'
@@ -12,12 +12,6 @@ export default defineApiHandler(async (event) => {
   if (!file) throw httpError(404, MESSAGES.igcFileNotFound)
   const data = await readFile(file.storage_key)
   if (!data) throw httpError(404, MESSAGES.fileUnavailable)
-  setResponseHeaders(event, {
-    'content-type': 'text/plain; charset=utf-8',
-    'content-length': data.byteLength,
-    'content-disposition': contentDisposition('attachment', file.original_filename),
-    'x-content-type-options': 'nosniff',
-    'cache-control': 'private, no-store',
-  })
+  setResponseHeaders(event, storedFileHeaders('text/plain; charset=utf-8', file.original_filename, data.byteLength))
   return data
 })
