@@ -23,6 +23,8 @@ describe('the account page', () => {
     try {
       await signInThroughForm(page, baseUrl, email, GOOD_PASSWORD)
       await page.getByTestId('app-nav-toggle').click()
+      // The panel has opened once focus has moved into it.
+      await expect.poll(() => page.evaluate(() => document.activeElement?.closest('#app-nav-panel') !== null)).toBe(true)
       await Promise.all([
         page.waitForURL(url => url.pathname === '/account'),
         page.getByTestId('app-nav-account').click(),

@@ -95,7 +95,7 @@ const c = () => `/competitions/${competitionId}`
 
 describe('the CSP on every page of the demo walk', () => {
   it('signed out: home, sign-in, sign-up, a tag page, an invitation page, a missing page', async () => {
-    await asRole(null, ['/', '/sign-in', '/sign-up', new URL(tagUrl).pathname, '/invitations/not-a-real-token', '/no-such-page'])
+    await asRole(null, ['/', '/sign-in', '/sign-up', '/password/forgot', '/password/reset', '/verify-email', new URL(tagUrl).pathname, '/invitations/not-a-real-token', '/no-such-page'])
   }, 120_000)
 
   it('organiser: overview, set-up, people, payments, firmware, documents with a PDF in its frame, entries, tags, checks', async () => {
@@ -137,7 +137,7 @@ describe('the CSP on every page of the demo walk', () => {
   }, 120_000)
 
   it('entrant: home, my entries, the dossier, the payment page, a new entry', async () => {
-    await asRole('entrant@gridmark.example', ['/', c(), '/entries', `${c()}/entries/${entrantEntryId}`, `${c()}/entries/${entrantEntryId}/payment`])
+    await asRole('entrant@gridmark.example', ['/', c(), '/entries', '/account', `${c()}/entries/${entrantEntryId}`, `${c()}/entries/${entrantEntryId}/payment`])
     await asRole('entrant10@gridmark.example', ['/entries', `${c()}/entries/new`])
   }, 120_000)
 

@@ -133,6 +133,7 @@ describe('no dead ends', () => {
         ['My entries', '/entries'],
         ['Launch grid', `/competitions/${t.competitionId}/grid`],
         ['Document review', `/competitions/${t.competitionId}/documents`],
+        ['Your account', '/account'],
       ])
       expect(await panel.getByTestId('app-nav-competition').first().textContent()).toContain('Header Links Cup')
 

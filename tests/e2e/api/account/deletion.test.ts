@@ -126,7 +126,10 @@ describe('deletion', () => {
   it('leaves the old address unable to sign in, and free to sign up again', async () => {
     expect((await new ApiClient(baseUrl).post('/api/auth/login', { email: leaving.email, password: GOOD_PASSWORD })).status).toBe(401)
     const again = await new ApiClient(baseUrl).post('/api/auth/signup', { email: leaving.email, name: 'Returning Pilot', password: GOOD_PASSWORD })
-    expect(again.status).toBe(201)
-    expect(again.body.user.id).not.toBe(leaving.user.id)
+    expect(again.status).toBe(202)
+    const fresh = await testDb()('users').where({ email: leaving.email.toLowerCase() }).first()
+    expect(fresh).toBeDefined()
+    expect(fresh.id).not.toBe(leaving.user.id)
+    expect(fresh.email_verified_at).toBeNull()
   })
 })

@@ -1,6 +1,7 @@
 // Sign-in and sign-up limits that fit an airfield: only failures count, per address and per
 // account at an address; the points are taken before the password is checked; sign-up is
-// throttled per address. The test server trusts one proxy hop (tests/support/server.ts).
+// throttled per address, and so are password reset requests. The test server trusts one proxy
+// hop (tests/support/server.ts).
 import { afterAll, describe, expect, inject, it } from 'vitest'
 import { ApiClient, GOOD_PASSWORD, randomAddress, signedUpClient, uniqueEmail } from '../../../support/api'
 import { closeTestDb, testDb } from '../../../support/db'
@@ -85,5 +86,23 @@ describe('sign-up', () => {
     expect(await testDb()('users').where({ email }).first()).toBeUndefined()
 
     expect((await new ApiClient(baseUrl).post('/api/auth/signup', { email, name: 'Club Member', password: GOOD_PASSWORD })).status).toBe(202)
+  })
+})
+
+describe('password reset requests', () => {
+  it('are throttled per address (10 an hour by default), with 429 and Retry-After; another address is not', async () => {
+    const address = randomAddress()
+    const statuses: number[] = []
+    for (let i = 0; i < 10; i++) {
+      const res = await new ApiClient(baseUrl, address).post('/api/auth/password-reset', { email: uniqueEmail('forgetful') })
+      statuses.push(res.status)
+    }
+    expect(statuses).toEqual(Array(10).fill(202))
+    const refused = await new ApiClient(baseUrl, address).post('/api/auth/password-reset', { email: uniqueEmail('forgetful') })
+    expect(refused.status).toBe(429)
+    expect(Number(refused.headers.get('retry-after'))).toBeGreaterThan(0)
+    expect(refused.body.message).toMatch(/Too many password reset requests from this network\. Try again in \d+ minutes?\./)
+
+    expect((await new ApiClient(baseUrl, randomAddress()).post('/api/auth/password-reset', { email: uniqueEmail('forgetful') })).status).toBe(202)
   })
 })

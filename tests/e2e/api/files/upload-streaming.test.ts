@@ -1,4 +1,3 @@
-/* eslint-disable @typescript-eslint/no-explicit-any -- response bodies are what the tests assert */
 // Uploads are streamed to storage: the file goes to a temporary file as it arrives, hashed on
 // the way, and is moved into place only when whole and valid. A server of its own (its own
 // uploads and incoming folders, and a pid whose memory can be read) shows that 20 oversize
@@ -6,12 +5,12 @@
 // a 9 MB upload, that the file is stored intact, and that an aborted upload leaves nothing.
 import { createHash } from 'node:crypto'
 import { existsSync, mkdtempSync, readFileSync, readdirSync, rmSync } from 'node:fs'
-import { request, type ClientRequest } from 'node:http'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { MESSAGES } from '../../../../shared/constants/messages'
 import type { ApiClient } from '../../../support/api'
+import { sendChunked, type ChunkedAnswer, type ChunkedBody } from '../../../support/chunked'
 import { closeTestDb, testDb } from '../../../support/db'
 import { createEntryVia, entriesWorld, entryBody, type EntriesWorld } from '../../../support/entries'
 import { getBytes, postForm, tinyPdf } from '../../../support/files'
@@ -68,79 +67,20 @@ function formHead(filename: string, type: string): string {
 }
 const FORM_TAIL = `\r\n--${BOUNDARY}--\r\n`
 
-interface Answer { status: number, body: any, sentBytes: number, finished: boolean }
-
-/**
- * Posts a document form chunked (no Content-Length): the head, then the file in `chunkBytes`
- * pieces (`pauseMs` apart; `file` repeated until `totalBytes` when given), then the tail. It
- * stops sending as soon as an answer comes; `abortAfterBytes` destroys the socket midway.
- */
-function postChunked(client: ApiClient, path: string, options: {
-  file: Buffer
-  totalBytes?: number
-  chunkBytes?: number
-  pauseMs?: number
-  abortAfterBytes?: number
-  onRequest?: (req: ClientRequest) => void
-}): Promise<Answer> {
-  const chunkBytes = options.chunkBytes ?? 64 * 1024
-  const total = options.totalBytes ?? options.file.length
-  return new Promise((resolve, reject) => {
-    const url = new URL(path, server.url)
-    const req = request({
-      host: url.hostname,
-      port: url.port,
-      path: url.pathname,
-      method: 'POST',
-      headers: {
-        'content-type': `multipart/form-data; boundary=${BOUNDARY}`,
-        'accept': 'application/json',
-        'origin': url.origin,
-        'cookie': client.cookie ?? '',
-        'x-forwarded-for': client.address,
-      },
-    })
-    options.onRequest?.(req)
-    let sentBytes = 0
-    let answered = false
-    let finished = false
-    req.on('response', (res) => {
-      answered = true
-      let text = ''
-      res.setEncoding('utf8')
-      res.on('data', (d) => { text += d })
-      res.on('end', () => {
-        req.destroy()
-        let body: any = text
-        try { body = JSON.parse(text) }
-        catch { /* not JSON */ }
-        resolve({ status: res.statusCode ?? 0, body, sentBytes, finished })
-      })
-    })
-    req.on('error', (err) => {
-      if (answered) return
-      if (options.abortAfterBytes !== undefined) resolve({ status: 0, body: null, sentBytes, finished })
-      else reject(err)
-    })
-    const write = (data: Buffer | string) => new Promise<void>(done => (req.write(data) ? done() : req.once('drain', () => done())))
-    void (async () => {
-      await write(formHead('scan.pdf', 'application/pdf'))
-      while (!answered && sentBytes < total) {
-        if (options.abortAfterBytes !== undefined && sentBytes >= options.abortAfterBytes) {
-          req.destroy()
-          return
-        }
-        const offset = sentBytes % options.file.length
-        const piece = options.file.subarray(offset, Math.min(offset + chunkBytes, options.file.length, offset + total - sentBytes))
-        sentBytes += piece.length
-        await write(piece)
-        if (options.pauseMs) await new Promise(r => setTimeout(r, options.pauseMs))
-      }
-      if (!answered) {
-        finished = true
-        req.end(FORM_TAIL)
-      }
-    })()
+/** Posts a document form chunked (tests/support/chunked.ts) as `client`, from the app's own origin. */
+function postChunked(client: ApiClient, path: string, options: Omit<ChunkedBody, 'headers' | 'head' | 'tail'> & { file: Buffer }) {
+  const url = new URL(path, server.url)
+  return sendChunked(url.href, {
+    ...options,
+    headers: {
+      'content-type': `multipart/form-data; boundary=${BOUNDARY}`,
+      'accept': 'application/json',
+      'origin': url.origin,
+      'cookie': client.cookie ?? '',
+      'x-forwarded-for': client.address,
+    },
+    head: formHead('scan.pdf', 'application/pdf'),
+    tail: FORM_TAIL,
   })
 }
 
@@ -177,7 +117,7 @@ describe('oversize uploads at once', () => {
 
 describe('a legitimate 9 MB PDF', () => {
   const pdf = tinyPdf('Insurance certificate', 9 * MB)
-  let answer: Answer
+  let answer: ChunkedAnswer
 
   it('uploaded slowly while /api/health is polled: every one of at least 30 polls answers 200 within 100 ms', async () => {
     const latencies: number[] = []

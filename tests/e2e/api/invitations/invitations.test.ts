@@ -222,19 +222,16 @@ describe('GET /api/invitations/:token and accepting', () => {
   })
 
   it('an expired link answers 410 and creates nothing', async () => {
-    const email = uniqueEmail('late')
-    const { token, invitation } = await invite(email)
+    const late = await signedUpClient(baseUrl, 'Lee Late')
+    const { token, invitation } = await invite(late.email)
     await testDb()('invitations').where({ id: invitation.id }).update({ expires_at: new Date(Date.now() - 60_000) })
     const preview = await new ApiClient(baseUrl).get(`/api/invitations/${token}`)
     expect(preview.status).toBe(410)
     expect(preview.body.message).toBe(MESSAGES.invitationExpired)
-    const late = new ApiClient(baseUrl)
-    expect((await late.post('/api/auth/signup', { email, name: 'Lee Late', password: GOOD_PASSWORD })).status).toBe(201)
-    const res = await late.post(`/api/invitations/${token}/accept`)
+    const res = await late.client.post(`/api/invitations/${token}/accept`)
     expect(res.status).toBe(410)
     expect(res.body.message).toBe(MESSAGES.invitationExpired)
-    const lateUser = await testDb()('users').where({ email }).first('id')
-    expect(await testDb()('memberships').where({ user_id: lateUser.id }).first()).toBeUndefined()
+    expect(await testDb()('memberships').where({ user_id: late.user.id }).first()).toBeUndefined()
   })
 
   it('two accepts at the same moment (the invitee on two devices): exactly one wins', async () => {

@@ -2,60 +2,24 @@
 // Content-Length) is refused with 413 as soon as it passes the limit, before the client has
 // finished sending, and so is a declared length above it. JSON 1 MB, the payment webhook 1 MB,
 // documents 10 MB.
-import { request } from 'node:http'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { MESSAGES } from '../../../../shared/constants/messages'
 import { ApiClient, randomAddress } from '../../../support/api'
+import { sendChunked } from '../../../support/chunked'
 import { closeTestDb } from '../../../support/db'
 import { entriesWorld, entryBody, createEntryVia, type EntriesWorld } from '../../../support/entries'
 
 const baseUrl = inject('baseUrl')
 afterAll(closeTestDb)
 
-interface Sent { status: number, body: { message?: string }, sentBytes: number, finished: boolean }
-
-/**
- * Sends `total` bytes in 64 KB chunks without a Content-Length (chunked), after `head`, and
- * stops sending as soon as the answer comes. `finished` tells whether the whole body was sent.
- */
-function sendChunked(path: string, headers: Record<string, string>, total: number, head = '', tail = ''): Promise<Sent> {
-  return new Promise((resolve, reject) => {
-    const url = new URL(path, baseUrl)
-    const req = request({ host: url.hostname, port: url.port, path: url.pathname, method: 'POST', headers: { 'x-forwarded-for': randomAddress(), ...headers } })
-    let sentBytes = 0
-    let answered = false
-    let finished = false
-    req.on('response', (res) => {
-      answered = true
-      let text = ''
-      res.setEncoding('utf8')
-      res.on('data', (d) => { text += d })
-      res.on('end', () => {
-        req.destroy()
-        resolve({ status: res.statusCode ?? 0, body: JSON.parse(text), sentBytes, finished })
-      })
-    })
-    req.on('error', (err) => { if (!answered) reject(err) })
-    const chunk = Buffer.alloc(64 * 1024, 'a')
-    const pump = () => {
-      if (sentBytes === 0 && head) req.write(head)
-      while (!answered && sentBytes < total) {
-        sentBytes += chunk.length
-        if (!req.write(chunk)) return void req.once('drain', pump)
-      }
-      if (!answered && !finished) {
-        finished = true
-        req.end(tail)
-      }
-    }
-    pump()
-  })
-}
+/** Sends `total` bytes chunked after `head`, from a fresh client address. */
+const sendChunkedTo = (path: string, headers: Record<string, string>, total: number, head = '', tail = '') =>
+  sendChunked(new URL(path, baseUrl).href, { headers: { 'x-forwarded-for': randomAddress(), ...headers }, head, tail, totalBytes: total })
 
 describe('a JSON body', () => {
   it('sent chunked and larger than 1 MB is refused with 413 while it streams, on a route that needs no account', async () => {
     // 30 MB offered: the answer comes long before it is all sent.
-    const res = await sendChunked('/api/auth/login', { 'content-type': 'application/json' }, 30 * 1024 * 1024, '{"email":"a@b.org","password":"')
+    const res = await sendChunkedTo('/api/auth/login', { 'content-type': 'application/json' }, 30 * 1024 * 1024, '{"email":"a@b.org","password":"')
     expect(res.status).toBe(413)
     expect(res.body.message).toBe(MESSAGES.bodyTooLarge)
     expect(res.finished).toBe(false)
@@ -77,7 +41,7 @@ describe('a JSON body', () => {
 
 describe('the payment webhook', () => {
   it('refuses a chunked body larger than 1 MB with 413 while it streams', async () => {
-    const res = await sendChunked('/api/payments/webhook', { 'content-type': 'application/json', 'stripe-signature': 't=1,v1=00' }, 30 * 1024 * 1024, '{"id":"evt_x","data":"')
+    const res = await sendChunkedTo('/api/payments/webhook', { 'content-type': 'application/json', 'stripe-signature': 't=1,v1=00' }, 30 * 1024 * 1024, '{"id":"evt_x","data":"')
     expect(res.status).toBe(413)
     expect(res.body.message).toBe(MESSAGES.webhookTooLarge)
     expect(res.finished).toBe(false)
@@ -97,7 +61,7 @@ describe('a document upload', () => {
     const head = `--${boundary}\r\nContent-Disposition: form-data; name="kind"\r\n\r\ninsurance\r\n`
       + `--${boundary}\r\nContent-Disposition: form-data; name="expiresOn"\r\n\r\n2027-12-31\r\n`
       + `--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="huge.pdf"\r\nContent-Type: application/pdf\r\n\r\n%PDF-1.4\n`
-    const res = await sendChunked(`/api/competitions/${w.competitionId}/entries/${entryId}/documents`, {
+    const res = await sendChunkedTo(`/api/competitions/${w.competitionId}/entries/${entryId}/documents`, {
       'content-type': `multipart/form-data; boundary=${boundary}`,
       'cookie': w.entrant.client.cookie,
       'x-forwarded-for': w.entrant.client.address,

@@ -6,7 +6,7 @@
 // PDFs and images inline, anything else a download. The board's socket refuses another site.
 import { io } from 'socket.io-client'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { ApiClient, GOOD_PASSWORD, uniqueEmail } from '../../../support/api'
+import { ApiClient, GOOD_PASSWORD, signedUpClient, uniqueEmail } from '../../../support/api'
 import { closeTestDb, testDb } from '../../../support/db'
 import { getBytes, igcFixture, postForm, tinyPdf, tinyPng } from '../../../support/files'
 import { gridEntry, gridWorld, type GridWorld } from '../../../support/grid'
@@ -108,9 +108,7 @@ describe('writes from another site', () => {
   it('accepts a multipart upload and a body-less sign-out from the app’s own page', async () => {
     const upload = await postForm(w.entrant.client, `${w.base}/entries/${entryId}/documents`, { kind: 'insurance', expiresOn: '2027-12-31' }, { name: 'insurance.png', data: tinyPng() })
     expect(upload.status).toBe(201)
-    const someone = new ApiClient(baseUrl)
-    const email = uniqueEmail('leaver')
-    expect((await someone.post('/api/auth/signup', { email, name: 'Lee Leaver', password: GOOD_PASSWORD })).status).toBe(201)
+    const { client: someone } = await signedUpClient(baseUrl, 'Lee Leaver')
     const out = await send(someone, 'POST', '/api/auth/logout', { 'origin': baseUrl, 'sec-fetch-site': 'same-origin' })
     expect(out.status).toBeLessThan(300)
     expect((await someone.get('/api/me')).status).toBe(401)
