@@ -4,7 +4,7 @@
 import { readFile } from 'node:fs/promises'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { GOOD_PASSWORD, signedUpClient } from '../support/api'
-import { launchBrowser, openPage, screenshot, signInThroughForm, type Browser } from '../support/browser'
+import { gotoApp, launchBrowser, openPage, screenshot, signInThroughForm, type Browser } from '../support/browser'
 
 const baseUrl = inject('baseUrl')
 
@@ -22,6 +22,8 @@ describe('the account page', () => {
     const page = await openPage(browser.context, baseUrl, '/sign-in', 'phone')
     try {
       await signInThroughForm(page, baseUrl, email, GOOD_PASSWORD)
+      // Home, loaded whole: the menu is the one that stays.
+      await gotoApp(page, baseUrl, '/')
       await page.getByTestId('app-nav-toggle').click()
       // The panel has opened once focus has moved into it.
       await expect.poll(() => page.evaluate(() => document.activeElement?.closest('#app-nav-panel') !== null)).toBe(true)

@@ -54,7 +54,10 @@ export function publishBoardChanges(changes: BoardChanges): void {
 
 /** Closes the live connections of one sign-in (on every instance). */
 export function disconnectSessionSockets(sessionId: string): void {
-  io?.in(sessionRoom(sessionId)).disconnectSockets(true)
+  if (!io) return
+  // This instance's sockets at once: the adapter acts locally only after telling the others.
+  io.local.in(sessionRoom(sessionId)).disconnectSockets(true)
+  io.in(sessionRoom(sessionId)).disconnectSockets(true)
 }
 
 /**
@@ -68,5 +71,9 @@ export function leaveCompetitionRooms(userId: string, competitionId: string, sti
     ...(still.staff ? [] : [boardRoom(competitionId)]),
     ...(still.entrant ? [] : [entrantRoom(competitionId, userId)]),
   ]
-  if (rooms.length) io.in(userRoom(userId)).socketsLeave(rooms)
+  if (!rooms.length) return
+  // This instance's sockets leave at once, before the next push; the adapter would move them
+  // only after its message to the other instances has gone through PostgreSQL.
+  io.local.in(userRoom(userId)).socketsLeave(rooms)
+  io.in(userRoom(userId)).socketsLeave(rooms)
 }

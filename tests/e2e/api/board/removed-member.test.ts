@@ -56,6 +56,9 @@ describe('a removed member’s sockets', () => {
     expect((await removed.next('board:tile', e => e.entryId === entryId)).seq).toBe(seqBefore)
 
     await remove(w.scrutineer2.user.id, 'scrutineer')
+    // Whatever the board published up to here (another instance starting refreshes every open
+    // day) may have reached the socket; nothing after.
+    const { seq } = (await w.director.client.get(`${w.base}/board`)).body
 
     const after = await w.scrutineer.client.post(`${w.base}/grid-checks`, checkBody(entryId))
     expect(after.status).toBe(201)
@@ -63,7 +66,7 @@ describe('a removed member’s sockets', () => {
     expect(heard.seq).toBeGreaterThan(seqBefore)
     // The socket stays open (its user is still signed in) but hears nothing more of this board.
     expect(removed.socket.connected).toBe(true)
-    expect((await eventsSoFar(removed, 'board:tile')).map(e => e.seq)).toEqual([seqBefore])
+    expect((await eventsSoFar(removed, 'board:tile')).filter(e => e.seq > seq)).toEqual([])
     // Nor can it simply ask to be let back in.
     expect(await joinBoard(removed, w.competitionId)).toMatchObject({ ok: false })
   })
