@@ -45,6 +45,8 @@ const ruleFields = {
   gridChecklist: checklistSchema,
   /** Every glider carries a collision-warning unit (check collision-warning.present). */
   collisionWarningRequired: z.boolean({ error: 'Say whether a collision-warning unit is required (true or false).' }),
+  /** Pilots' medical and licence files are deleted this many days after the last contest day. */
+  medicalRetentionDays: days('medical and licence retention', 1, 3650),
 }
 
 /** The rule settings a competition stores in competitions.settings. */
@@ -57,6 +59,7 @@ export const competitionRulesSchema = z.object({
   acceptedApprovalLevels: ruleFields.acceptedApprovalLevels.default(['all-flights', 'badges-up-to-diamonds']),
   gridChecklist: ruleFields.gridChecklist.default(() => DEFAULT_CHECKLIST.map(i => ({ ...i }))),
   collisionWarningRequired: ruleFields.collisionWarningRequired.default(true),
+  medicalRetentionDays: ruleFields.medicalRetentionDays.default(30),
 })
 /** A change to some rules (PATCH): what is left out keeps its stored value. */
 export const competitionRulesPatchSchema = z.object(ruleFields, { error: 'Send the rules as an object.' }).partial().strict()
