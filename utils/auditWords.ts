@@ -62,6 +62,38 @@ export const AUDIT_ACTION_WORDS: Record<string, string> = {
   'demo.seeded': 'Demo data loaded',
 }
 
+// The fields a change names, in the words of the forms. A personal field's change holds no
+// values (`changed: true`): it reads "Phone changed".
+export const AUDIT_FIELD_WORDS: Record<string, string> = {
+  classId: 'Class',
+  pilotName: 'Pilot’s name',
+  pilotNationality: 'Nationality',
+  pilotLicenceNumber: 'Licence number',
+  pilotPhone: 'Phone',
+  emergencyContact: 'Emergency contact',
+  copilotName: 'Co-pilot’s name',
+  crewNames: 'Crew',
+  gliderType: 'Glider type',
+  registration: 'Registration',
+  compId: 'Competition ID',
+  spanM: 'Span (m)',
+  mtomKg: 'MTOM (kg)',
+  emptyMassKg: 'Empty mass (kg)',
+  cgForwardLimitM: 'Forward CG limit (m)',
+  cgAftLimitM: 'Aft CG limit (m)',
+  datumDescription: 'Datum',
+  motorGlider: 'Motor glider',
+  pilotArmM: 'Pilot’s arm (m)',
+  copilotArmM: 'Co-pilot’s arm (m)',
+  ballastArmM: 'Ballast arm (m)',
+  pilotMassKg: 'Pilot’s mass (kg)',
+  copilotMassKg: 'Co-pilot’s mass (kg)',
+}
+
+export function auditFieldWords(field: string): string {
+  return AUDIT_FIELD_WORDS[field] ?? field
+}
+
 export function auditActionWords(action: string): string {
   return AUDIT_ACTION_WORDS[action] ?? action
 }
@@ -106,7 +138,8 @@ export function auditDescription(item: Pick<AuditLogItem, 'action' | 'details'>)
     }
     case 'entry.withdrawn': {
       const by = d.by === 'office' ? ' by the office for the pilot' : d.by === 'entrant' ? ' by the entrant' : ''
-      return `${value(d.from)} → withdrawn${by}${reason ? ` · reason: ${reason}` : ''}`
+      const given = reason ? ` · reason: ${reason}` : d.reasonGiven === true ? ' · with a reason, sent to the office' : ''
+      return `${value(d.from)} → withdrawn${by}${given}`
     }
     case 'day.opened':
     case 'day.reopened':
@@ -137,7 +170,9 @@ export function auditDescription(item: Pick<AuditLogItem, 'action' | 'details'>)
     parts.push(`${text(d.model)}${text(d.serial) ? `, serial ${d.serial}` : ''}`)
     return parts.join('')
   }
-  if (text(d.field)) parts.push(`${d.field}: ${value(d.from)} → ${value(d.to)}`)
+  const field = text(d.field)
+  if (field && d.changed === true) parts.push(`${auditFieldWords(field)} changed`)
+  else if (field) parts.push(`${auditFieldWords(field)}: ${value(d.from)} → ${value(d.to)}`)
   else if (d.from !== undefined && d.to !== undefined) parts.push(`${value(d.from)} → ${value(d.to)}`)
   for (const key of ['day', 'kind', 'role', 'compId', 'registration', 'shortCode', 'version', 'reason'] as const) {
     const v = text(d[key])

@@ -1,6 +1,8 @@
 // Appends to the audit log (append-only by a database trigger). Call it inside the same
-// transaction as the change it records, so the two stand or fall together.
+// transaction as the change it records, so the two stand or fall together. Details never
+// hold personal values (personal-fields.ts): what a caller passes goes through that filter.
 import type { Knex } from 'knex'
+import { withoutPersonalFields } from './personal-fields'
 
 export interface AuditEntry {
   actorUserId: string | null
@@ -19,7 +21,7 @@ export function auditRow(entry: AuditEntry) {
     action: entry.action,
     subject_type: entry.subjectType,
     subject_id: entry.subjectId ?? null,
-    details: entry.details ?? {},
+    details: withoutPersonalFields(entry.details ?? {}),
   }
 }
 

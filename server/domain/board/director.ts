@@ -13,6 +13,7 @@ import type { BoardEntryDetail, BoardFinding, DirectorActionRecord, DirectorActi
 import type { DirectorActionRow } from '#shared/types/rows-board'
 import { activeHold } from '#shared/utils/board-tile'
 import { audit } from '#domain/audit/audit'
+import { personalValuesOfDossier, withoutPersonalValues } from '#domain/audit/personal-fields'
 import { enqueueMail } from '#domain/mail/outbox'
 import { readinessMail, waiverMail } from '#domain/mail/templates'
 import { actionsQuery, type BoardActionRow } from '#domain/read-model/day-inputs'
@@ -177,7 +178,8 @@ export async function waiveFinding(access: CompetitionAccess, entryId: string, b
       action: 'director.waiver',
       subjectType: 'entry',
       subjectId: entryId,
-      details: { entryId, day, scope: body.scope, checkId: finding.checkId, unitId: finding.unitId ?? null, subject: finding.subject ?? null, severity: finding.severity, finding: finding.reason, reason: body.reason, actionId: row.id },
+      // The finding's reason may quote the pilot's name (the declaration check): not in the log.
+      details: { entryId, day, scope: body.scope, checkId: finding.checkId, unitId: finding.unitId ?? null, subject: finding.subject ?? null, severity: finding.severity, finding: withoutPersonalValues(finding.reason, personalValuesOfDossier(dossier!)), reason: body.reason, actionId: row.id },
     })
     let tile = null
     if (open) {

@@ -13,6 +13,7 @@ import { READINESS_LABELS } from '#shared/constants/readiness'
 import { together } from '#server/utils/db'
 import { siteUrl } from '#server/utils/site-url'
 import { audit, type AuditEntry } from '#domain/audit/audit'
+import { personalValuesOfDossier, withoutPersonalValues } from '#domain/audit/personal-fields'
 import { enqueueMail } from '#domain/mail/outbox'
 import { readinessMail } from '#domain/mail/templates'
 import type { BoardChanges } from '#domain/realtime/changes'
@@ -106,7 +107,11 @@ export async function refreshTiles(
   const entrantBy = new Map(entrants.map(e => [e.id, e]))
   const firstOpening = existing.length === 0 && !ids
 
-  interface Pending { entryId: string, body: TileBody, findings: Finding[], classOrder: number, previous?: (typeof existing)[number] }
+  interface Pending {
+    entryId: string, body: TileBody, findings: Finding[], classOrder: number, previous?: (typeof existing)[number]
+    /** Names the findings' reasons may quote, kept out of the audit log. */
+    personal: string[]
+  }
   const pending: Pending[] = []
   loaded.dossiers.forEach((dossier, i) => {
     const row = loaded.rows[i]!
@@ -125,7 +130,7 @@ export async function refreshTiles(
       result.set(row.id, toBoardTile(previous))
       return
     }
-    pending.push({ entryId: row.id, body, findings, classOrder, previous })
+    pending.push({ entryId: row.id, body, findings, classOrder, previous, personal: personalValuesOfDossier(dossier) })
   })
   const leaving = existing.filter(r => !loaded.rows.some(x => x.id === r.entry_id))
 
@@ -175,7 +180,7 @@ export async function refreshTiles(
       })
     }
     if (p.previous) {
-      const diff = diffFindings(p.previous.findings, p.findings)
+      const diff = withoutPersonalValues(diffFindings(p.previous.findings, p.findings), p.personal)
       if (diff.added.length || diff.removed.length) {
         audits.push({
           actorUserId: opts.actorId,

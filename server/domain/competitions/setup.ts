@@ -58,7 +58,7 @@ export async function createCompetitionWithOrganiser(
       action: 'competition.created',
       subjectType: 'competition',
       subjectId: row.id,
-      details: { name: input.name, organiserUserId: organiser.id, organiserEmail: organiser.email },
+      details: { name: input.name, organiserUserId: organiser.id },
     })
     return { id: row.id as string, slug: row.slug as string }
   })

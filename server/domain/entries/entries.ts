@@ -21,6 +21,7 @@ import { entryProgress } from '#shared/utils/entry-progress'
 import { effectiveRoles } from '#shared/utils/access'
 import type { Role } from '#shared/constants/roles'
 import { audit } from '#domain/audit/audit'
+import { fieldChange } from '#domain/audit/personal-fields'
 import { dossierChanged, noteChangeAfterAcceptance } from '#domain/board/dossier-changed'
 import { UNIT_FIELDS, writeUnitChange, type UnitField } from '#domain/board/unit-changes'
 import { findCompetition, listClasses } from '#domain/competitions/competitions'
@@ -493,12 +494,11 @@ export async function updateEntry(access: EntryAccess, patch: EntryPatch): Promi
     assertCgOrder(forward, aft)
 
     await trx('entries').where({ id: current.id }).update({ ...changes, updated_at: trx.fn.now() })
-    for (const c of changed) {
-      await audit(trx, {
-        actorUserId: user.id, competitionId: competition.id, action: 'entry.updated', subjectType: 'entry', subjectId: current.id,
-        details: { field: c.field, from: c.from, to: c.to },
-      })
-    }
+    // One row per field; a personal field (phone, contact, names…) says only that it changed.
+    await audit(trx, changed.map(c => ({
+      actorUserId: user.id, competitionId: competition.id, action: 'entry.updated', subjectType: 'entry', subjectId: current.id,
+      details: fieldChange(c.field, c.from, c.to),
+    })))
     // Another class has another fee: a dearer one leaves the difference owed.
     if (changes.class_id !== undefined) await settleEntryPayments(trx, competition.id, [current.id], user.id)
     await noteChangeAfterAcceptance(trx, [current.id])
@@ -682,7 +682,9 @@ export async function withdrawEntryIn(trx: Knex.Transaction, access: EntryAccess
     actorUserId: user.id, competitionId: competition.id, action: 'entry.withdrawn', subjectType: 'entry', subjectId: entry.id,
     details: {
       from: entry.status, to: 'withdrawn', by: byOffice ? 'office' : 'entrant', paidMinor: entry.paid_minor,
-      ...(body.reason ? { reason: body.reason } : {}),
+      // The office's reason is its decision, kept; the pilot's own words about themselves are
+      // personal (personal-fields.ts): the office has them by e-mail, the log only that they came.
+      ...(body.reason ? (byOffice ? { reason: body.reason } : { reasonGiven: true }) : {}),
     },
   })
 

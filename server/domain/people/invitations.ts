@@ -84,7 +84,8 @@ export async function createInvitation(event: H3Event, input: {
       action: 'invitation.create',
       subjectType: 'invitation',
       subjectId: row!.id,
-      details: { email: input.email, role: input.role, replaced: replaced.map((r: { id: string }) => r.id) },
+      // The address stays in the invitation's own row, not in the log (personal-fields.ts).
+      details: { role: input.role, replaced: replaced.map((r: { id: string }) => r.id) },
     })
     return toListItem({ ...row!, invited_by_name: input.invitedBy.name, accepted_by_name: null })
   })
@@ -136,7 +137,7 @@ export async function revokeInvitation(competitionId: string, invitationId: stri
       action: 'invitation.revoke',
       subjectType: 'invitation',
       subjectId: invitationId,
-      details: { email: row.email, role: row.role },
+      details: { role: row.role },
     })
     return toListItem({ ...updated!, invited_by_name: null, accepted_by_name: null })
   })
@@ -205,7 +206,7 @@ export async function acceptInvitation(token: string, user: User): Promise<Invit
       action: 'invitation.accept',
       subjectType: 'invitation',
       subjectId: row.id,
-      details: { role: row.role, invitedEmail: row.email, acceptedEmail: user.email },
+      details: { role: row.role },
     })
     return { competitionId: row.competition_id, role: row.role }
   })

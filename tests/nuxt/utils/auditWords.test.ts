@@ -22,7 +22,7 @@ describe('audit words', () => {
       .toBe('2026-12-02: new entry.paid (blocking); Unchecked → Held')
     expect(auditDescription({ action: 'day.opened', details: { day: '2026-12-02', kind: 'practice', entries: 2 } })).toBe('2026-12-02 (practice day), 2 on the board')
     expect(auditDescription({ action: 'day.closed', details: { day: '2026-12-02', readiness: { ready: 3, held: 1 } } })).toBe('2026-12-02: 3 ready, 1 held')
-    expect(auditDescription({ action: 'entry.updated', details: { field: 'registration', from: 'G-AAAA', to: 'G-BBBB' } })).toBe('registration: G-AAAA → G-BBBB')
+    expect(auditDescription({ action: 'entry.updated', details: { field: 'registration', from: 'G-AAAA', to: 'G-BBBB' } })).toBe('Registration: G-AAAA → G-BBBB')
     expect(auditDescription({ action: 'unit.added', details: { kind: 'flight-recorder', model: 'Example Logger 3', serial: 'FR-0001' } })).toBe('Example Logger 3, serial FR-0001')
     expect(auditDescription({ action: 'entry.created', details: { compId: 'DX', registration: 'G-98AA', classId: 'c' } })).toBe('DX · G-98AA')
     expect(auditDescription({ action: 'tag.issued', details: { tagId: 't', shortCode: 'HY369FYA' } })).toBe('short code HY36-9FYA')
@@ -30,6 +30,15 @@ describe('audit words', () => {
     expect(auditDescription({ action: 'entry.withdrawn', details: { from: 'accepted', to: 'withdrawn', by: 'office', reason: 'Injured', paidMinor: 0 } })).toBe('accepted → withdrawn by the office for the pilot · reason: Injured')
     expect(auditDescription({ action: 'entry.withdrawn', details: { from: 'draft', to: 'withdrawn', by: 'entrant', paidMinor: 0 } })).toBe('draft → withdrawn by the entrant')
     expect(auditDescription({ action: 'entry.withdrawn', details: { from: 'draft', to: 'withdrawn' } })).toBe('draft → withdrawn')
+  })
+
+  it('says a personal field changed without its values, and names fields in words', () => {
+    expect(auditDescription({ action: 'entry.updated', details: { field: 'pilotPhone', changed: true } })).toBe('Phone changed')
+    expect(auditDescription({ action: 'entry.updated', details: { field: 'emergencyContact', changed: true } })).toBe('Emergency contact changed')
+    expect(auditDescription({ action: 'entry.updated', details: { field: 'spanM', from: 15, to: 18 } })).toBe('Span (m): 15 → 18')
+    expect(auditDescription({ action: 'entry.updated', details: { field: 'somethingNew', changed: true } })).toBe('somethingNew changed')
+    expect(auditDescription({ action: 'entry.withdrawn', details: { from: 'accepted', to: 'withdrawn', by: 'entrant', reasonGiven: true } }))
+      .toBe('accepted → withdrawn by the entrant · with a reason, sent to the office')
   })
 
   it('describes payments by amount, method, day and reason, and a change of paid state with what is owed', () => {
