@@ -12,6 +12,9 @@
 // - the users row stays (grid checks, tags and the audit log point at it) but is anonymised:
 //   a placeholder address, so the person's own address can sign up again, and a password
 //   nobody knows.
+// - the audit log keeps what they did and when, under the anonymised account, but forgets who
+//   they were: their name, address and their entries' contact values leave every row about them
+//   (server/domain/audit/forget.ts).
 // Audited; the former address is told what went and what the office keeps.
 import { randomBytes } from 'node:crypto'
 import type { H3Event } from 'h3'
@@ -25,6 +28,7 @@ import { useDb } from '#server/utils/db'
 import { httpError } from '#server/utils/errors'
 import { siteUrl } from '#server/utils/site-url'
 import { audit } from '#domain/audit/audit'
+import { forgetPersonInAudit } from '#domain/audit/forget'
 import { dossierChanged } from '#domain/board/dossier-changed'
 import { findCompetition } from '#domain/competitions/competitions'
 import { enqueueMail } from '#domain/mail/outbox'
@@ -118,6 +122,11 @@ export async function deleteAccount(event: H3Event, user: User, input: AccountDe
     await audit(trx, {
       actorUserId: me.id, action: 'user.deleted', subjectType: 'user', subjectId: me.id,
       details: { entriesWithdrawn: withdrawn.length, entriesKept: kept, documentsDeleted: personal.length, sessionsEnded: revoked.length },
+    })
+    await forgetPersonInAudit(trx, {
+      userId: me.id,
+      entryIds,
+      values: [me.name, me.email, ...entries.flatMap(e => [e.pilot_name, e.pilot_licence_number, e.pilot_phone, e.emergency_contact])],
     })
     const mail = accountDeletedMail({ name: me.name, withdrawn, keptPast: kept, signUpUrl: `${base}/sign-up` })
     await enqueueMail(trx, { to: me.email, subject: mail.subject, text: mail.text, html: mail.html, template: 'account-deleted' })
