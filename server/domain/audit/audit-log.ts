@@ -148,8 +148,9 @@ export function toTimelineItem(r: AuditJoinedRow): TimelineItem {
 }
 
 /**
- * Every grid check, finding change, hold, release and waiver of one entry, and the messages
- * between its entrant and the office, newest first.
+ * Every grid check, finding change, hold, release and waiver of one entry, each of its document
+ * files deleted on the retention schedule, and the messages between its entrant and the office,
+ * newest first.
  */
 export async function entryTimeline(competitionId: string, entry: { id: string, comp_id: string }, db: Knex = useDb()): Promise<EntryTimeline> {
   const [rows, messages] = await Promise.all([
