@@ -156,6 +156,10 @@ export default defineNuxtConfig({
       /** How often the pre-event reminder job looks for due reminders; 0 turns the timer off. */
       intervalMs: 60 * 60 * 1000,
     },
+    retention: {
+      /** How often the retention job deletes the document files due (NUXT_RETENTION_INTERVAL_MS); 0 turns the timer off. */
+      intervalMs: 60 * 60 * 1000,
+    },
   },
 
   tailwindcss: {

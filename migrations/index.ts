@@ -34,6 +34,7 @@ import * as m20261209000100 from './20261209000100_account_tokens'
 import * as m20261209000200 from './20261209000200_deleted_accounts'
 import * as m20261209000500 from './20261209000500_outbox_secret_bodies'
 import * as m20261210000400 from './20261210000400_audit_log_forgets'
+import * as m20261210000300 from './20261210000300_document_file_retention'
 
 type Migration = Knex.Migration
 
@@ -71,6 +72,7 @@ const migrations: Record<string, Migration> = {
   '20261209000200_deleted_accounts': m20261209000200,
   '20261209000500_outbox_secret_bodies': m20261209000500,
   '20261210000400_audit_log_forgets': m20261210000400,
+  '20261210000300_document_file_retention': m20261210000300,
 }
 
 export const migrationSource: Knex.MigrationSource<string> = {

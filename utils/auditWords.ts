@@ -2,6 +2,9 @@ import type { AuditLogItem } from '#shared/types/api-board'
 import { READINESS_LABELS, type Readiness } from '#shared/constants/readiness'
 import { PAYMENT_METHOD_LABELS, type PaymentMethod } from '#shared/constants/payments'
 import { formatMoney } from '#shared/utils/money'
+import { DOCUMENT_KIND_LABELS, type DocumentKind } from '#shared/constants/entries'
+import { FILE_DELETION_REASONS, type FileDeletionReason } from '#shared/constants/files'
+import { keptFor } from '#shared/utils/document-retention'
 
 // The audit log speaks in words: each action the server records gets a short name, and each row
 // a one-line description from its details. An action not listed here shows as it is stored, so a
@@ -30,6 +33,7 @@ export const AUDIT_ACTION_WORDS: Record<string, string> = {
   'document.replaced': 'Document replaced',
   'document.accepted': 'Document accepted',
   'document.rejected': 'Document rejected',
+  'document.file-deleted': 'Document file deleted (retention)',
   'igc-file.uploaded': 'IGC file uploaded',
   'igc-file.replaced': 'IGC file replaced',
   'igc-file.recorder-named': 'IGC file tied to its recorder',
@@ -157,6 +161,13 @@ export function auditDescription(item: Pick<AuditLogItem, 'action' | 'details'>)
     case 'payment.status-changed': {
       const owed = typeof d.owedMinor === 'number' && d.owedMinor > 0 ? ` (${formatMoney(d.owedMinor, text(d.currency) ?? 'EUR')} owed)` : ''
       return `${value(d.from)} → ${value(d.to)}${owed}`
+    }
+    case 'document.file-deleted': {
+      const kind = typeof d.kind === 'string' && d.kind in DOCUMENT_KIND_LABELS ? DOCUMENT_KIND_LABELS[d.kind as DocumentKind] : value(d.kind)
+      const kept = FILE_DELETION_REASONS.includes(d.reason as FileDeletionReason) && typeof d.keptDays === 'number'
+        ? `, kept ${keptFor(d.reason as FileDeletionReason, d.keptDays)}`
+        : ''
+      return `${kind}${kept}`
     }
     case 'day.closed': {
       const counts = d.readiness && typeof d.readiness === 'object' ? Object.entries(d.readiness as Record<string, number>) : []

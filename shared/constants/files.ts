@@ -14,3 +14,11 @@ export const DOCUMENT_STATUS_LABELS: Record<DocumentStatus, string> = {
   accepted: 'Accepted',
   rejected: 'Rejected',
 }
+
+/**
+ * Why a document's stored file was deleted while its row stays (server/domain/files/retention.ts):
+ * a pilot's medical or licence file the competition's retention days after its last contest
+ * day, or a replaced copy of any kind once a newer copy had been accepted long enough.
+ */
+export const FILE_DELETION_REASONS = ['retention-medical', 'retention-superseded'] as const
+export type FileDeletionReason = (typeof FILE_DELETION_REASONS)[number]

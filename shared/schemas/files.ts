@@ -37,3 +37,8 @@ export const reviewBodySchema = z.discriminatedUnion('decision', [
   }),
 ], { error: 'Choose to accept or reject the document.' })
 export type ReviewBody = z.infer<typeof reviewBodySchema>
+
+/** POST /api/admin/retention/run: the job as of a chosen instant (the tests' clock), else now. */
+export const retentionRunBodySchema = z.object({
+  at: z.iso.datetime({ offset: true, error: 'Give the time as an ISO date-time, e.g. 2027-08-18T00:00:00Z.' }).optional(),
+}, { error: 'Send the fields as a JSON object.' }).strict()

@@ -175,7 +175,7 @@ export interface DirectorActionResult {
   tile: BoardTile | null
 }
 
-export type TimelineKind = 'grid-check' | 'findings' | 'hold' | 'release' | 'waiver' | 'day' | 'message'
+export type TimelineKind = 'grid-check' | 'findings' | 'hold' | 'release' | 'waiver' | 'day' | 'message' | 'document'
 
 export interface TimelineItem {
   id: string

@@ -1,6 +1,6 @@
 // API answers of the files area: documents, the review queue and IGC files.
 import type { DocumentKind } from '../constants/entries'
-import type { DocumentStatus } from '../constants/files'
+import type { DocumentStatus, FileDeletionReason } from '../constants/files'
 
 export interface DocumentView {
   id: string
@@ -20,6 +20,11 @@ export interface DocumentView {
   uploadedByName: string
   superseded: boolean
   replacedBy: string | null
+  /**
+   * Set once the stored file was deleted on the retention schedule (the row stays): the day
+   * (YYYY-MM-DD, competition time zone), why, and the sentence the lists show instead of a link.
+   */
+  fileDeleted: { on: string, reason: FileDeletionReason, keptDays: number, note: string } | null
 }
 
 export interface DocumentListResponse {
@@ -72,4 +77,10 @@ export interface IgcFileView {
 export interface IgcFileListResponse {
   current: IgcFileView[]
   history: IgcFileView[]
+}
+
+/** POST /api/admin/retention/run: how many stored files the run deleted, by rule. */
+export interface RetentionRunResult {
+  medicalDeleted: number
+  supersededDeleted: number
 }

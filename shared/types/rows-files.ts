@@ -1,6 +1,6 @@
 // Row types of the files area's tables, written by hand to match migrations/.
 import type { DocumentKind } from '../constants/entries'
-import type { DocumentStatus } from '../constants/files'
+import type { DocumentStatus, FileDeletionReason } from '../constants/files'
 
 export interface DocumentRow {
   id: string
@@ -11,7 +11,8 @@ export interface DocumentRow {
   media_type: string
   size_bytes: number
   sha256: string
-  storage_key: string
+  /** Where the file is stored; null once the file was deleted (file_deleted_at says when). */
+  storage_key: string | null
   /** YYYY-MM-DD (a `date` column, read as its text by the type parser in knexfile.ts) */
   expires_on: string
   status: DocumentStatus
@@ -23,6 +24,11 @@ export interface DocumentRow {
   /** The upload that replaced this one; null while it is the current document of its kind. */
   replaced_by: string | null
   superseded: boolean
+  /** When the stored file was deleted on the retention schedule; the row stays. */
+  file_deleted_at: Date | null
+  file_deleted_reason: FileDeletionReason | null
+  /** Days the file had been kept after its reference day (last contest day, or the replacement's acceptance). */
+  file_kept_days: number | null
 }
 
 export interface IgcFileRow {

@@ -103,6 +103,28 @@ describe('set-up page', () => {
     }
   })
 
+  it('keeps medical and licence files as many days after the last contest day as the organiser says', async () => {
+    await browser.context.clearCookies()
+    const page = await openPage(browser.context, baseUrl, '/sign-in', 'desk')
+    try {
+      await signInThroughForm(page, baseUrl, organiserEmail, GOOD_PASSWORD, `/competitions/${t.competitionId}/setup`)
+      const field = page.getByLabel('Keep medical and licence files (days)')
+      await expect.poll(() => field.inputValue()).toBe('30')
+      await page.getByText('Pilots’ medical and licence files are deleted this many days after the last contest day').waitFor()
+
+      await field.fill('0')
+      await page.getByRole('button', { name: 'Save set-up' }).click()
+      await page.locator('#setup-rules').getByText('The medical and licence retention is at least 1 day.').waitFor()
+      await field.fill('45')
+      await page.getByRole('button', { name: 'Save set-up' }).click()
+      await page.getByTestId('setup-saved').waitFor()
+      await expect.poll(async () => (await testDb()('competitions').where({ id: t.competitionId }).first()).settings.medicalRetentionDays).toBe(45)
+    }
+    finally {
+      await page.close()
+    }
+  })
+
   it('fits a phone without sideways scrolling', async () => {
     const page = await openPage(browser.context, baseUrl, `/competitions/${t.competitionId}/setup`, 'phone')
     try {

@@ -48,6 +48,8 @@ export async function startServer(env: Record<string, string> = {}, port?: numbe
       // The test server serves the demo's seed, as npm start does (tests/e2e/production-start.test.ts
       // starts the production way).
       NUXT_DEMO_MODE: 'true',
+      // The retention job runs at chosen instants through its admin route, never by the clock.
+      NUXT_RETENTION_INTERVAL_MS: '0',
       ...env,
     },
     stdio: ['ignore', 'pipe', 'pipe'],

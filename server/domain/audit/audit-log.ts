@@ -11,6 +11,9 @@ import { READINESS_LABELS, type Readiness } from '#shared/constants/readiness'
 import { useDb } from '#server/utils/db'
 import type { FindingChange } from '#shared/utils/board-tile'
 import { iso } from '#domain/read-model/values'
+import type { DocumentKind } from '#shared/constants/entries'
+import type { FileDeletionReason } from '#shared/constants/files'
+import { fileDeletedSentence } from '#shared/utils/document-retention'
 
 export interface AuditJoinedRow {
   id: string | number
@@ -94,6 +97,7 @@ export const TIMELINE_ACTIONS: Record<string, TimelineKind> = {
   'director.release': 'release',
   'director.waiver': 'waiver',
   'director.waiver-withdrawn': 'waiver',
+  'document.file-deleted': 'document',
 }
 
 interface Change { checkId: string, severity: string, reason?: string }
@@ -125,6 +129,7 @@ export function timelineSummary(kind: TimelineKind, d: Record<string, unknown>):
       : `Waived ${String(d.checkId ?? '')} ${d.scope === 'competition' ? 'for the whole competition' : `for ${String(d.day ?? 'the day')}`}: ${String(d.reason ?? '')}`
     case 'day': return String(d.day ?? '')
     case 'message': return d.fromOffice ? 'The office answered' : 'Asked the office'
+    case 'document': return fileDeletedSentence(d.kind as DocumentKind, d.reason as FileDeletionReason, Number(d.keptDays))
   }
 }
 
@@ -143,8 +148,9 @@ export function toTimelineItem(r: AuditJoinedRow): TimelineItem {
 }
 
 /**
- * Every grid check, finding change, hold, release and waiver of one entry, and the messages
- * between its entrant and the office, newest first.
+ * Every grid check, finding change, hold, release and waiver of one entry, each of its document
+ * files deleted on the retention schedule, and the messages between its entrant and the office,
+ * newest first.
  */
 export async function entryTimeline(competitionId: string, entry: { id: string, comp_id: string }, db: Knex = useDb()): Promise<EntryTimeline> {
   const [rows, messages] = await Promise.all([

@@ -10,6 +10,7 @@ import { MESSAGES } from '#shared/constants/messages'
 import type { DocumentRow } from '#shared/types/rows'
 import type { DocumentListResponse, DocumentQueueResponse, DocumentView, QueueDocumentView } from '#shared/types/files'
 import type { ReviewBody } from '#shared/schemas/files'
+import { fileDeletedNote } from '#shared/utils/document-retention'
 import { audit } from '#domain/audit/audit'
 import { dossierChanged, noteChangeAfterAcceptance } from '#domain/board/dossier-changed'
 import { enqueueMail } from '#domain/mail/outbox'
@@ -20,13 +21,27 @@ import { httpError } from '#server/utils/errors'
 import { iso } from '#domain/read-model/values'
 import { newStorageKey, storeThenCommit, type ReceivedFile } from './storage'
 
-type DocumentSelect = DocumentRow & { expires_on_text: string, uploaded_by_name: string, reviewed_by_name: string | null }
+type DocumentSelect = DocumentRow & {
+  expires_on_text: string
+  uploaded_by_name: string
+  reviewed_by_name: string | null
+  /** The day the file was deleted, in the competition's time zone. */
+  file_deleted_on: string | null
+}
 
 function selectDocuments(db: Knex) {
   return db('documents as d')
+    .join('competitions as c', 'c.id', 'd.competition_id')
     .leftJoin('users as up', 'up.id', 'd.uploaded_by')
     .leftJoin('users as rv', 'rv.id', 'd.reviewed_by')
-    .select('d.*', 'd.expires_on as expires_on_text', 'up.name as uploaded_by_name', 'rv.name as reviewed_by_name')
+    .select('d.*', 'd.expires_on as expires_on_text', 'up.name as uploaded_by_name', 'rv.name as reviewed_by_name',
+      db.raw('(d.file_deleted_at at time zone c.time_zone)::date as file_deleted_on'))
+}
+
+function fileDeletedOf(r: DocumentSelect): DocumentView['fileDeleted'] {
+  if (!r.file_deleted_reason || !r.file_deleted_on) return null
+  const keptDays = r.file_kept_days ?? 0
+  return { on: r.file_deleted_on, reason: r.file_deleted_reason, keptDays, note: fileDeletedNote(r.file_deleted_reason, r.file_deleted_on, keptDays) }
 }
 
 function toView(r: DocumentSelect): DocumentView {
@@ -47,6 +62,7 @@ function toView(r: DocumentSelect): DocumentView {
     uploadedByName: r.uploaded_by_name ?? '',
     superseded: r.superseded,
     replacedBy: r.replaced_by,
+    fileDeleted: fileDeletedOf(r),
   }
 }
 

@@ -53,4 +53,12 @@ describe('audit words', () => {
     expect(auditDescription({ action: 'payment.status-changed', details: { from: 'paid', to: 'unpaid', owedMinor: 15000, currency: 'EUR' } }))
       .toBe('paid → unpaid (€150.00 owed)')
   })
+
+  it('describes a document file deleted on the retention schedule by kind and how long it was kept', () => {
+    expect(auditActionWords('document.file-deleted')).toBe('Document file deleted (retention)')
+    expect(auditDescription({ action: 'document.file-deleted', details: { entryId: 'e', kind: 'medical', reason: 'retention-medical', keptDays: 30 } }))
+      .toBe('Medical, kept 30 days after the competition')
+    expect(auditDescription({ action: 'document.file-deleted', details: { entryId: 'e', kind: 'insurance', reason: 'retention-superseded', keptDays: 30 } }))
+      .toBe('Insurance, kept 30 days after a newer copy was accepted')
+  })
 })

@@ -9,7 +9,7 @@ const base = (entry: string) => `/api/competitions/${C}/entries/${entry}/documen
 const doc = (over: Record<string, unknown>) => ({
   id: 'd1', entryId: 'e1', kind: 'insurance', originalFilename: 'ins.pdf', mediaType: 'application/pdf', sizeBytes: 2048,
   sha256: 'x', expiresOn: '2027-12-31', status: 'pending', reviewReason: null, reviewedAt: null, reviewedByName: null,
-  uploadedAt: '2026-11-01T10:00:00.000Z', uploadedByName: 'P', superseded: false, replacedBy: null, ...over,
+  uploadedAt: '2026-11-01T10:00:00.000Z', uploadedByName: 'P', superseded: false, replacedBy: null, fileDeleted: null, ...over,
 })
 
 describe('DocumentEntryPanel', () => {
@@ -33,6 +33,28 @@ describe('DocumentEntryPanel', () => {
     expect(panel.get('[data-kind="medical"]').text()).toContain('Not uploaded')
     expect(panel.text()).toContain('Earlier uploads (1)')
     expect(panel.find('form').exists()).toBe(false)
+  })
+
+  it('says when and why a deleted file went instead of offering to open it; kind, validity and outcome stay', async () => {
+    const medicalGone = { on: '2027-08-18', reason: 'retention-medical', keptDays: 30, note: 'Deleted on 2027-08-18 (kept 30 days after the competition)' }
+    const copyGone = { on: '2027-08-01', reason: 'retention-superseded', keptDays: 30, note: 'Deleted on 2027-08-01 (kept 30 days after a newer copy was accepted)' }
+    registerEndpoint(base('e3'), () => ({
+      current: [
+        doc({ id: 'm1', kind: 'medical', status: 'accepted', expiresOn: '2028-01-31', originalFilename: '', fileDeleted: medicalGone }),
+        doc({ id: 'a2', kind: 'airworthiness', status: 'accepted' }),
+      ],
+      history: [doc({ id: 'a1', kind: 'airworthiness', status: 'accepted', superseded: true, replacedBy: 'a2', originalFilename: '', fileDeleted: copyGone })],
+    }))
+    const panel = await mountSuspended(DocumentEntryPanel, { props: { competitionId: C, entryId: 'e3', canUpload: false } })
+    const medical = panel.get('[data-kind="medical"]')
+    expect(medical.text()).toContain('Accepted')
+    expect(medical.text()).toContain('2028-01-31')
+    expect(medical.get('[data-testid="document-file-deleted"]').text()).toBe(medicalGone.note)
+    expect(medical.find('a').exists()).toBe(false)
+    expect(panel.get('[data-kind="airworthiness"]').get('a').attributes('href')).toBe(`${base('e3')}/a2/file`)
+    const history = panel.get('details')
+    expect(history.get('[data-testid="document-file-deleted"]').text()).toContain(copyGone.note)
+    expect(history.find('a').exists()).toBe(false)
   })
 
   it('shows per-field errors before sending, and the server’s 415 sentence on the file field', async () => {

@@ -31,6 +31,21 @@ describe('EntryTimeline', () => {
     expect(t.text()).toContain('times in Europe/Berlin')
   })
 
+  it('tells the pilot a document’s file was deleted on the retention schedule, by Gridmark, with a shape of its own', async () => {
+    const deleted: TimelineItem = {
+      id: '9', kind: 'document', at: '2027-08-17T22:00:00.000Z', day: null, actor: null,
+      summary: 'Medical file deleted, kept 30 days after the competition; its kind, validity and review outcome stay on record', details: {},
+    }
+    const t = await mountSuspended(EntryTimeline, { props: { items: [deleted, ...items], timeZone: 'Europe/Berlin' } })
+    const row = t.get('[data-testid="timeline-item"]')
+    expect(row.attributes('data-kind')).toBe('document')
+    expect(row.get('[data-testid="timeline-kind"]').text()).toBe('Document file deleted')
+    expect(row.get('[data-testid="timeline-summary"]').text()).toBe(deleted.summary)
+    expect(row.get('[data-testid="timeline-actor"]').text()).toBe('by Gridmark')
+    const shapes = t.findAll('[data-testid="timeline-item"]').map(r => r.get('svg').attributes('data-shape'))
+    expect(new Set(shapes).size).toBe(6)
+  })
+
   it('shows the same instant in another competition’s zone', async () => {
     const t = await mountSuspended(EntryTimeline, { props: { items: [items[4]!], timeZone: 'America/New_York' } })
     expect(t.get('time').text()).toBe('2 Dec, 04:41')

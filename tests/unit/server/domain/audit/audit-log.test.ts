@@ -31,3 +31,10 @@ describe('timelineSummary', () => {
       .toBe('Waiver of entry.paid withdrawn: No cash was received')
   })
 })
+
+describe('timelineSummary of a deleted document file', () => {
+  it('tells the pilot which file went, how long it was kept, and what stays', () => {
+    expect(timelineSummary('document', { entryId: 'e1', kind: 'licence', reason: 'retention-medical', keptDays: 10 }))
+      .toBe('Pilot licence file deleted, kept 10 days after the competition; its kind, validity and review outcome stay on record')
+  })
+})
