@@ -1,6 +1,7 @@
 // Who opened the pilot's medical certificate, in a real browser: a scrutineer opens it from the
 // entry page, the pilot then sees the scrutineer's name and "medical" on their entry; the
-// director reads the certificate's state and validity but is offered no link to it.
+// director reads the certificate's state and validity but is offered no link to it; the office
+// reads the competition's record with the scrutineer's address.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { GOOD_PASSWORD, signedUpClient } from '../support/api'
 import { closeTestDb, createClass, createCompetition, createEntry, testDb } from '../support/db'
@@ -12,20 +13,23 @@ let browser: Browser
 let competitionId: string
 let entryId: string
 let medicalId: string
-const email = { pilot: '', scrutineer: '', director: '' }
+const email = { pilot: '', scrutineer: '', director: '', organiser: '' }
 
 beforeAll(async () => {
   browser = await launchBrowser()
   const pilot = await signedUpClient(baseUrl, 'Mira Moorfield')
   const scrutineer = await signedUpClient(baseUrl, 'Sten Scrutton')
   const director = await signedUpClient(baseUrl, 'Dirk Daybook')
+  const organiser = await signedUpClient(baseUrl, 'Olive Officer')
   email.pilot = pilot.email
   email.scrutineer = scrutineer.email
   email.director = director.email
+  email.organiser = organiser.email
   competitionId = await createCompetition('Need To Know Cup', [
     { userId: pilot.user.id, role: 'entrant' },
     { userId: scrutineer.user.id, role: 'scrutineer' },
     { userId: director.user.id, role: 'director' },
+    { userId: organiser.user.id, role: 'organiser' },
   ])
   const classId = await createClass(competitionId)
   entryId = await createEntry({ competitionId, classId, entrantUserId: pilot.user.id, compId: 'MM4' })
@@ -40,11 +44,11 @@ afterAll(async () => {
 
 const entryPath = () => `/competitions/${competitionId}/entries/${entryId}`
 
-async function signedIn(who: keyof typeof email) {
+async function signedIn(who: keyof typeof email, path = entryPath()) {
   await browser.context.clearCookies()
   const page = await openPage(browser.context, baseUrl, '/sign-in', 'phone')
   await signInThroughForm(page, baseUrl, email[who], GOOD_PASSWORD)
-  await gotoApp(page, baseUrl, entryPath())
+  await gotoApp(page, baseUrl, path)
   return page
 }
 
@@ -82,6 +86,23 @@ describe('who opened the medical certificate', () => {
     expect(await medical.getByRole('link').count()).toBe(0)
     expect(await medical.getByTestId('need-to-know').textContent()).toContain('Only the pilot, scrutineers and organisers open medical and licence files.')
     await screenshot(page, 'document-views-director-phone')
+    await page.close()
+  })
+
+  it('shows the office every opening in the competition, with the address it came from', async () => {
+    const [row] = await testDb()('document_views').where({ document_id: medicalId })
+    const page = await signedIn('organiser', `/competitions/${competitionId}/document-views`)
+    await page.getByRole('heading', { level: 1, name: 'Medical and licence file openings' }).waitFor()
+    const card = page.getByTestId('document-views-cards').locator('li').first()
+    await card.waitFor()
+    const text = (await card.textContent()) ?? ''
+    for (const part of ['Medical', 'MM4', 'Sten Scrutton', 'scrutineer', row.client_address]) expect(text).toContain(part)
+    await screenshot(page, 'document-views-office-phone')
+    await page.setViewportSize({ width: 1366, height: 900 })
+    const cells = page.getByTestId('document-views-row').first().locator('td')
+    await expect.poll(() => cells.count()).toBe(6)
+    expect(await cells.nth(5).textContent()).toContain(row.client_address)
+    await screenshot(page, 'document-views-office-desk')
     await page.close()
   })
 })
