@@ -1,8 +1,9 @@
 import type { DocumentQueueResponse } from '#shared/types/files'
+import type { DocumentFileAccess } from '#shared/types/document-views'
 
 /** GET /api/competitions/:id/documents/queue — documents awaiting review, oldest first. */
 export function useDocumentQueue(competitionId: MaybeRefOrGetter<string>) {
-  return useFetch<DocumentQueueResponse>(
+  return useFetch<DocumentQueueResponse & DocumentFileAccess>(
     () => `/api/competitions/${encodeURIComponent(toValue(competitionId))}/documents/queue`,
     { key: () => `document-queue:${toValue(competitionId)}` },
   )

@@ -42,6 +42,7 @@ export const ROLE_GUIDE: Record<Role, RoleGuide> = {
       { label: 'People', path: '/people' },
       { label: 'Payments', path: '/payments' },
       { label: 'Document review', path: '/documents' },
+      { label: 'Medical file openings', path: '/document-views' },
       { label: 'Firmware catalogue', path: '/firmware' },
       { label: 'Glider tags', path: '/tags' },
       { label: 'Contest days', path: '/days' },

@@ -1,18 +1,22 @@
 // The one place a route asks who is calling and whether they may act: signed in at all
 // (requireUser, requireAdmin), with a role in a competition (requireRole), on one entry
-// (requireEntryAccess), recording on the grid (requireGridRecorder), or naming a recorder of
-// the entry (requireEntryRecorder). The decisions are shared/utils/access.ts; the session
-// itself is the people area's (server/domain/people/sessions.ts).
+// (requireEntryAccess), recording on the grid (requireGridRecorder), naming a recorder of the
+// entry (requireEntryRecorder), opening a document's file or reading who opened the medical and
+// licence files (requireDocumentFile, requireEntryDocumentViews). The decisions are
+// shared/utils/access.ts and shared/utils/document-access.ts; the session itself is the people
+// area's (server/domain/people/sessions.ts).
 import type { H3Event } from 'h3'
 import type { User } from '#auth-utils'
 import { STAFF_ROLES, type Role } from '#shared/constants/roles'
-import type { CompetitionRow, EntryRow } from '#shared/types/rows'
+import type { CompetitionRow, DocumentRow, EntryRow } from '#shared/types/rows'
 import { decideAccess } from '#shared/utils/access'
+import { decideDocumentFile, decideEntryDocumentViews, type DocumentReader, type DocumentViewerRole } from '#shared/utils/document-access'
 import { MESSAGES } from '#shared/constants/messages'
 import { sessionUser, sessionUserIn } from '#domain/people/sessions'
 import { rolesInCompetition } from '#domain/people/memberships'
 import { findCompetitionEntry } from '#domain/entries/entries'
 import { isEntryRecorder } from '#domain/files/igc-files'
+import { findEntryDocument } from '#domain/files/documents'
 import { httpError } from './errors'
 
 export interface CompetitionAccess {
@@ -110,4 +114,43 @@ export async function requireEntryRecorder(entryId: string, unitId: string): Pro
   if (!await isEntryRecorder(entryId, unitId)) {
     throw httpError(400, MESSAGES.unitNotRecorder, { fieldErrors: { unitId: [MESSAGES.unitNotRecorder] }, formErrors: [] })
   }
+}
+
+/**
+ * The caller as the need-to-know rule of medical and licence files reads them: the roles they
+ * hold themselves (a site administrator's organiser rights everywhere are not a role held) and
+ * whether the entry is theirs. Without an entry (the review queue) nobody counts as its pilot.
+ */
+export async function documentReaderOf(access: CompetitionAccess & { isOwner?: boolean }): Promise<DocumentReader> {
+  const rolesHeld = access.user.isAdmin ? await rolesInCompetition(access.user.id, access.competition.id) : access.roles
+  return { isEntrant: access.isOwner ?? false, rolesHeld }
+}
+
+/**
+ * Who may open one document's file: first the entry's own access (its entrant or the
+ * competition's staff; anyone else 404), then the document (404 when it is not this entry's),
+ * then need to know by its kind (403 for a medical or licence file to anyone but the pilot, a
+ * scrutineer or an organiser holding that role here). `loggedAs`: the role the opening is
+ * recorded under, null where it is not recorded.
+ */
+export async function requireDocumentFile(
+  event: H3Event,
+  competitionId: string,
+  entryId: string,
+  documentId: string,
+): Promise<{ access: EntryAccess, document: DocumentRow, loggedAs: DocumentViewerRole | null }> {
+  const access = await requireEntryAccess(event, competitionId, entryId, 'owner-or-staff')
+  const document = await findEntryDocument(entryId, documentId)
+  if (!document) throw httpError(404, MESSAGES.documentNotFound)
+  const decision = decideDocumentFile(document.kind, await documentReaderOf(access))
+  if (!decision.allowed) throw httpError(decision.status, decision.message)
+  return { access, document, loggedAs: decision.logged ? decision.as : null }
+}
+
+/** Who reads the log of openings of an entry's medical and licence files: its pilot, or an organiser. */
+export async function requireEntryDocumentViews(event: H3Event, competitionId: string, entryId: string): Promise<EntryAccess> {
+  const access = await requireEntryAccess(event, competitionId, entryId, 'owner-or-staff')
+  const decision = decideEntryDocumentViews(access)
+  if (!decision.allowed) throw httpError(decision.status, decision.message)
+  return access
 }

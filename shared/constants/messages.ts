@@ -14,6 +14,7 @@ import { ACCOUNT_MESSAGES } from './messages-account'
 import { UPLOAD_STREAM_MESSAGES } from './messages-upload-stream'
 import { CROSS_SITE_MESSAGES } from './messages-cross-site'
 import { RETENTION_MESSAGES } from './messages-retention'
+import { DOCUMENTS_ACCESS_MESSAGES } from './messages-documents-access'
 
 export const MESSAGES = {
   invalidInput: 'Some fields need attention.',
@@ -78,6 +79,7 @@ export const MESSAGES = {
   ...UPLOAD_STREAM_MESSAGES,
   ...CROSS_SITE_MESSAGES,
   ...RETENTION_MESSAGES,
+  ...DOCUMENTS_ACCESS_MESSAGES,
 
   // --- The tracking list and the glider report (the office's paperwork) ---
   trackingStaffOnly: 'The tracking list is for the competition’s organisers, scrutineers and contest director: it lists every glider’s radio IDs.',

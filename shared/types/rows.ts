@@ -7,6 +7,7 @@ export type * from './rows-payments'
 export type * from './rows-files'
 export type * from './rows-entries'
 export type * from './rows-setup'
+export type * from './rows-document-views'
 
 export interface UserRow {
   id: string

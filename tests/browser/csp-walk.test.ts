@@ -101,7 +101,7 @@ describe('the CSP on every page of the demo walk', () => {
   it('organiser: overview, set-up, people, payments, firmware, documents with a PDF in its frame, entries, tags, checks', async () => {
     await asRole('organiser@gridmark.example', [
       '/', c(), `${c()}/setup`, `${c()}/people`, `${c()}/payments`, `${c()}/firmware`, `${c()}/documents`,
-      `${c()}/entries`, `${c()}/tags`, `${c()}/tags/print`, `${c()}/checks`, '/competitions/00000000-0000-0000-0000-000000000000',
+      `${c()}/entries`, `${c()}/tags`, `${c()}/tags/print`, `${c()}/checks`, `${c()}/document-views`, '/competitions/00000000-0000-0000-0000-000000000000',
     ], async (page, path) => {
       // The demo's oldest pending document is a PDF: the review shows it in a frame, sandboxed.
       if (path !== `${c()}/documents`) return

@@ -21,6 +21,8 @@ import type { H3Event } from 'h3'
 import type { Knex } from 'knex'
 import type { User } from '#auth-utils'
 import { MESSAGES } from '#shared/constants/messages'
+// Documents about the person rather than the glider: deleted with the account.
+import { PERSONAL_DOCUMENT_KINDS } from '#shared/utils/document-access'
 import type { AccountDeleteInput } from '#shared/schemas/account'
 import type { AccountDeleteResponse } from '#shared/types/api-account'
 import type { CompetitionRow, EntryRow } from '#shared/types/rows'
@@ -39,8 +41,6 @@ import { removeFile } from '#domain/files/storage'
 
 /** What a deleted account's entries show as their pilot, and the account as its name. */
 export const DELETED_NAME = 'Deleted account'
-/** Documents about the person rather than the glider: deleted with the account. */
-export const PERSONAL_DOCUMENT_KINDS = ['licence', 'medical'] as const
 const WITHDRAWAL_REASON = 'The pilot deleted their Gridmark account.'
 
 /** The placeholder address of a deleted account (unique, and never deliverable). */

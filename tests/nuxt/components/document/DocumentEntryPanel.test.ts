@@ -57,6 +57,32 @@ describe('DocumentEntryPanel', () => {
     expect(history.find('a').exists()).toBe(false)
   })
 
+  it('offers a medical or licence file only where the route serves it, and says why elsewhere', async () => {
+    const list = (fileAccess: unknown) => () => ({
+      current: [
+        doc({ id: 'a1', kind: 'airworthiness' }),
+        doc({ id: 'm1', kind: 'medical', status: 'accepted', expiresOn: '2027-08-31' }),
+      ],
+      history: [doc({ id: 'l0', kind: 'licence', superseded: true, replacedBy: 'l1' })],
+      fileAccess,
+    })
+    registerEndpoint(base('e5'), list({ isEntrant: false, rolesHeld: ['director'] }))
+    const director = await mountSuspended(DocumentEntryPanel, { props: { competitionId: C, entryId: 'e5', canUpload: false } })
+    const medical = director.get('[data-kind="medical"]')
+    expect(medical.text()).toContain('Accepted')
+    expect(medical.text()).toContain('2027-08-31')
+    expect(medical.find('a').exists()).toBe(false)
+    expect(medical.get('[data-testid="need-to-know"]').text()).toBe('Only the pilot, scrutineers and organisers open medical and licence files.')
+    expect(director.get('[data-kind="airworthiness"]').get('a').attributes('href')).toBe(`${base('e5')}/a1/file`)
+    expect(director.get('details').find('a').exists()).toBe(false)
+
+    registerEndpoint(base('e6'), list({ isEntrant: true, rolesHeld: ['entrant'] }))
+    const pilot = await mountSuspended(DocumentEntryPanel, { props: { competitionId: C, entryId: 'e6', canUpload: false } })
+    expect(pilot.get('[data-kind="medical"]').get('a').attributes('href')).toBe(`${base('e6')}/m1/file`)
+    expect(pilot.get('details').get('a').attributes('href')).toBe(`${base('e6')}/l0/file`)
+    expect(pilot.find('[data-testid="need-to-know"]').exists()).toBe(false)
+  })
+
   it('shows per-field errors before sending, and the server’s 415 sentence on the file field', async () => {
     registerEndpoint(base('e2'), {
       method: 'GET',

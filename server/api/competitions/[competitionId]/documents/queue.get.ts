@@ -1,10 +1,10 @@
 // GET /api/competitions/:competitionId/documents/queue — scrutineers and organisers.
-// Current documents awaiting review across all entries, oldest upload first.
+// Current documents awaiting review across all entries, oldest upload first, and whether the caller opens medical and licence files.
 import { competitionParamsSchema } from '#shared/schemas/params'
 import { documentQueue } from '#domain/files/documents'
 
 export default defineApiHandler(async (event) => {
   const { competitionId } = await validParams(event, competitionParamsSchema)
-  await requireRole(event, competitionId, ['scrutineer', 'organiser'])
-  return documentQueue(competitionId)
+  const access = await requireRole(event, competitionId, ['scrutineer', 'organiser'])
+  return { ...await documentQueue(competitionId), fileAccess: await documentReaderOf(access) }
 })

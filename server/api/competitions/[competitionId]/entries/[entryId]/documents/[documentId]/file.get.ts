@@ -1,18 +1,12 @@
-// GET …/entries/:entryId/documents/:documentId/file — the entry's entrant or the competition's staff.
-// The stored file, sandboxed: a PDF or an image inline, else a download; 410 once retention deleted it.
-import { MESSAGES } from '#shared/constants/messages'
+// GET …/entries/:entryId/documents/:documentId/file — the entry's entrant or staff; a medical or licence file only to the pilot, scrutineers and organisers.
+// The stored file with its detected type, sandboxed, inline or a download; each opening of a medical or licence file is logged before it is sent; 410 once retention deleted it.
 import { entryDocumentParamsSchema } from '#shared/schemas/files'
-import { findEntryDocument } from '#domain/files/documents'
-import { readFile } from '#domain/files/storage'
+import { openDocumentFile } from '#domain/files/document-views'
 
 export default defineApiHandler(async (event) => {
   const { competitionId, entryId, documentId } = await validParams(event, entryDocumentParamsSchema)
-  await requireEntryAccess(event, competitionId, entryId, 'owner-or-staff')
-  const document = await findEntryDocument(entryId, documentId)
-  if (!document) throw httpError(404, MESSAGES.documentNotFound)
-  if (!document.storage_key) throw httpError(410, MESSAGES.documentFileDeleted)
-  const data = await readFile(document.storage_key)
-  if (!data) throw httpError(404, MESSAGES.fileUnavailable)
+  const { access, document, loggedAs } = await requireDocumentFile(event, competitionId, entryId, documentId)
+  const data = await openDocumentFile({ document, viewerUserId: access.user.id, loggedAs, clientAddress: clientAddress(event) })
   setResponseHeaders(event, storedFileHeaders(document.media_type, document.original_filename, data.byteLength))
   return data
 })
