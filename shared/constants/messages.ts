@@ -12,6 +12,7 @@ import { ACCOUNT_PAGE_MESSAGES } from './messages-account-page'
 import { INVITATIONS_MESSAGES } from './messages-invitations'
 import { ACCOUNT_MESSAGES } from './messages-account'
 import { UPLOAD_STREAM_MESSAGES } from './messages-upload-stream'
+import { STORED_FILES_MESSAGES } from './messages-stored-files'
 import { CROSS_SITE_MESSAGES } from './messages-cross-site'
 
 export const MESSAGES = {
@@ -75,6 +76,7 @@ export const MESSAGES = {
   ...INVITATIONS_MESSAGES,
   ...ACCOUNT_MESSAGES,
   ...UPLOAD_STREAM_MESSAGES,
+  ...STORED_FILES_MESSAGES,
   ...CROSS_SITE_MESSAGES,
 
   // --- The tracking list and the glider report (the office's paperwork) ---

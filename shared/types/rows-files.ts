@@ -12,6 +12,8 @@ export interface DocumentRow {
   size_bytes: number
   sha256: string
   storage_key: string
+  /** The key the stored file is sealed under (16 hex digits); null for a plain file stored before encryption. */
+  file_key_id: string | null
   /** YYYY-MM-DD (a `date` column, read as its text by the type parser in knexfile.ts) */
   expires_on: string
   status: DocumentStatus
@@ -32,6 +34,8 @@ export interface IgcFileRow {
   unit_id: string | null
   original_filename: string
   storage_key: string
+  /** The key the stored file is sealed under (16 hex digits); null for a plain file stored before encryption. */
+  file_key_id: string | null
   sha256: string
   size_bytes: number
   /** YYYY-MM-DD from HFDTE */

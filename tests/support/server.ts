@@ -4,6 +4,7 @@ import { spawn, type ChildProcess } from 'node:child_process'
 import { createServer } from 'node:net'
 import { existsSync } from 'node:fs'
 import { fileURLToPath } from 'node:url'
+import { newFilesKey } from '../../server/domain/files/file-crypt'
 
 const root = fileURLToPath(new URL('../..', import.meta.url))
 const entry = `${root}.output/server/index.mjs`
@@ -48,6 +49,9 @@ export async function startServer(env: Record<string, string> = {}, port?: numbe
       // The test server serves the demo's seed, as npm start does (tests/e2e/production-start.test.ts
       // starts the production way).
       NUXT_DEMO_MODE: 'true',
+      // `npm test` gives the key the demo's files were sealed under; a server of its own (the
+      // bench) seals under a fresh one.
+      NUXT_FILES_KEY: process.env.NUXT_FILES_KEY || newFilesKey(),
       ...env,
     },
     stdio: ['ignore', 'pipe', 'pipe'],
