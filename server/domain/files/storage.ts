@@ -54,7 +54,8 @@ function unreadable(error: unknown, key: string): never {
   if (!(error instanceof StoredFileError)) throw error
   console.error(`[gridmark] stored file ${key}: ${error.message}`)
   if (error.reason === 'damaged') throw httpError(500, MESSAGES.storedFileDamaged)
-  throw httpError(503, error.reason === 'no-key' ? MESSAGES.filesKeyMissing : MESSAGES.storedFileKeyUnknown)
+  const noKey = error.reason === 'no-key' || !serverFileKeyring().current
+  throw httpError(503, noKey ? MESSAGES.filesKeyMissing : MESSAGES.storedFileKeyUnknown)
 }
 
 /**
