@@ -142,6 +142,13 @@ export default defineNuxtConfig({
     /** Signs glider tags (NUXT_TAG_SECRET); required in production like the invitation secret. Changing it invalidates every printed tag. */
     tagSecret: '',
     /**
+     * Seals every stored file (NUXT_FILES_KEY: 32 random bytes, base64 or hex); required in
+     * production, generated into .data/files-key by npm start. NUXT_FILES_OLD_KEYS (comma-separated)
+     * keeps files sealed under earlier keys readable until `npm run files:rekey` has moved them.
+     */
+    filesKey: '',
+    filesOldKeys: '',
+    /**
      * NUXT_DEMO_MODE=true: the demo's built server (`npm start`, the tests). It skips the checks of
      * a production start and lets tags and invitations fall back to the session password.
      */

@@ -36,6 +36,7 @@ import * as m20261209000500 from './20261209000500_outbox_secret_bodies'
 import * as m20261210000400 from './20261210000400_audit_log_forgets'
 import * as m20261210000300 from './20261210000300_document_file_retention'
 import * as m20261210000200 from './20261210000200_document_views'
+import * as m20261210000100 from './20261210000100_file_key_ids'
 
 type Migration = Knex.Migration
 
@@ -75,6 +76,7 @@ const migrations: Record<string, Migration> = {
   '20261210000400_audit_log_forgets': m20261210000400,
   '20261210000300_document_file_retention': m20261210000300,
   '20261210000200_document_views': m20261210000200,
+  '20261210000100_file_key_ids': m20261210000100,
 }
 
 export const migrationSource: Knex.MigrationSource<string> = {

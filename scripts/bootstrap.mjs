@@ -1,6 +1,7 @@
 #!/usr/bin/env node
 // Entry point of `npm start`, `npm test`, `npm run stop`, `npm run seed:reset`,
-// `npm run migrate`, `npm run bench` and `npm run admin:create`. Plain Node with no dependencies, because on a fresh clone it runs
+// `npm run migrate`, `npm run bench`, `npm run admin:create`, `npm run files:rekey` and
+// `npm run files:orphans`. Plain Node with no dependencies, because on a fresh clone it runs
 // before node_modules exists: it installs the locked dependencies when they are missing or
 // out of date, then hands over to the TypeScript script of the same name (run through tsx).
 import { spawn, spawnSync } from 'node:child_process'
@@ -11,7 +12,7 @@ import { dirname, join } from 'node:path'
 import { fileURLToPath } from 'node:url'
 
 const root = dirname(dirname(fileURLToPath(import.meta.url)))
-const COMMANDS = ['start', 'test', 'stop', 'seed-reset', 'migrate', 'bench', 'admin-create']
+const COMMANDS = ['start', 'test', 'stop', 'seed-reset', 'migrate', 'bench', 'admin-create', 'files-rekey', 'files-orphans']
 
 const [command, ...args] = process.argv.slice(2)
 if (!command || !COMMANDS.includes(command)) {

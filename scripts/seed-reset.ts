@@ -4,13 +4,13 @@ import { runMain, step } from './lib/common'
 import { migrate, seed } from './lib/db'
 import { prepareDemoDatabase } from './lib/demo-db'
 import { printSignIns } from './lib/sign-ins'
-import { sessionPassword } from './lib/secrets'
+import { filesKey, sessionPassword } from './lib/secrets'
 
 runMain(async () => {
   const url = await prepareDemoDatabase()
   const applied = await migrate(url)
   if (applied.length > 0) step(`Applied ${applied.length} migration(s): ${applied.join(', ')}`)
-  await seed(url, true, sessionPassword())
+  await seed(url, true, sessionPassword(), filesKey())
   step('Wiped the database and seeded the demo data again')
   printSignIns()
 })

@@ -1,5 +1,6 @@
 // `npm start`: demo database (started if needed) → migrations → demo data (once) → build (if
-// stale) → the built server on http://127.0.0.1:3000. Ctrl-C stops the app; the database
+// stale) → the built server on http://127.0.0.1:3000, with the session password and the files
+// key kept in .data (scripts/lib/secrets.ts). Ctrl-C stops the app; the database
 // keeps running so the next start is quick (`npm run stop` stops it).
 import { spawn } from 'node:child_process'
 import type { ChildProcess } from 'node:child_process'
@@ -10,7 +11,7 @@ import { migrate, seed } from './lib/db'
 import { prepareDemoDatabase } from './lib/demo-db'
 import { playDemoDay } from './lib/demo-day'
 import { isPortFree, sleep } from './lib/net'
-import { sessionPassword } from './lib/secrets'
+import { filesKey, sessionPassword } from './lib/secrets'
 import { startServices } from './lib/services'
 import { printSignIns } from './lib/sign-ins'
 
@@ -56,6 +57,7 @@ async function waitForHealth(url: string, app: ChildProcess): Promise<void> {
 runMain(async () => {
   // Settings first, so a mistake in them fails before the slow steps.
   const password = sessionPassword()
+  const filesSealKey = filesKey()
   const port = appPort()
   const host = process.env.HOST || process.env.NITRO_HOST || '127.0.0.1'
 
@@ -63,7 +65,7 @@ runMain(async () => {
 
   const applied = await migrate(databaseUrl)
   step(applied.length > 0 ? `Applied ${applied.length} migration(s): ${applied.join(', ')}` : 'The schema is up to date')
-  const { seeded } = await seed(databaseUrl, false, password)
+  const { seeded } = await seed(databaseUrl, false, password, filesSealKey)
   step(seeded ? 'Seeded the demo data' : 'Demo data already present (npm run seed:reset starts it over)')
 
   await ensureBuild()
@@ -85,6 +87,7 @@ runMain(async () => {
       NITRO_HOST: host,
       DATABASE_URL: databaseUrl,
       NUXT_SESSION_PASSWORD: password,
+      NUXT_FILES_KEY: filesSealKey,
       // The demo: its seeded accounts and the session password signing tags and invitations are
       // what a production start (npm run serve) refuses.
       NUXT_DEMO_MODE: 'true',

@@ -21,6 +21,7 @@ import { migrate, seed } from './lib/db'
 import { APP_ROLE, clusterEnv, clusterUrl, createDatabase, ensurePostgresBinaries, isClusterRunning, randomClusterPasswords, startThrowawayCluster, stopCluster, superuserUrl, throwawayDir } from './lib/postgres'
 import type { Cluster } from './lib/postgres'
 import { randomSessionPassword } from './lib/secrets'
+import { newFilesKey } from '../server/domain/files/file-crypt'
 import { startServices, type StartedServices } from './lib/services'
 import { startServer, type RunningServer } from '../tests/support/server'
 
@@ -49,6 +50,8 @@ let server: RunningServer | undefined
 // Fresh per run: nothing signed in by an earlier run stays valid. Known before seeding, since
 // it also signs the demo's glider tags.
 const sessionSecret = randomSessionPassword()
+// Seals the files of the run (the demo seed's and the tests' uploads), fresh per run too.
+const filesSealKey = newFilesKey()
 // The throwaway cluster's database passwords: the app's role for the server and the tests,
 // the superuser's only for the tests that need it (GRIDMARK_TEST_SUPERUSER_URL).
 const dbPasswords = randomClusterPasswords()
@@ -94,7 +97,7 @@ async function setUp(): Promise<string> {
   const url = clusterUrl(testCluster, dbPasswords, TEST_DATABASE)
   await timed(`database ${TEST_DATABASE} on port ${testCluster.port}`, () => createDatabase(testCluster, dbPasswords, TEST_DATABASE))
   await timed('migrations', () => migrate(url))
-  await timed('demo data', () => seed(url, false, sessionSecret))
+  await timed('demo data', () => seed(url, false, sessionSecret, filesSealKey))
   await timed('Chromium', ensureBrowser)
   await timed('poppler-utils', ensurePdfTools)
   await timed('build', ensureBuild)
@@ -140,6 +143,7 @@ async function runVitest(url: string, extraArgs: string[]): Promise<StepResult> 
     ...process.env, // passes CI and the like through
     DATABASE_URL: url,
     NUXT_SESSION_PASSWORD: sessionSecret,
+    NUXT_FILES_KEY: filesSealKey,
     ...clusterEnv(cluster!),
     GRIDMARK_TEST_SUPERUSER_URL: superuserUrl(cluster!, dbPasswords, TEST_DATABASE),
     GRIDMARK_TEST_APP_ROLE: APP_ROLE,

@@ -1,17 +1,26 @@
 // Demo documents: every entry past its draft has its documents, C4's insurance is rejected
 // (a seeded problem) and a few wait in the scrutineers' queue. The files are tiny invented
 // PDFs written to the uploads folder (the default storage), laid out as the app's fs driver
-// keeps them: documents/<entry id>/<uuid>.
+// keeps them (documents/<entry id>/<uuid>) and sealed as the app seals them (file-crypt.ts).
 import { createHash, randomUUID } from 'node:crypto'
 import { mkdirSync, writeFileSync } from 'node:fs'
 import { dirname, join, resolve } from 'node:path'
 import { fileURLToPath } from 'node:url'
 import type { Knex } from 'knex'
+import { seal, type FileKeyring } from '../server/domain/files/file-crypt'
 import { DOCUMENT_KIND_LABELS, type DocumentKind } from '../shared/constants/entries'
 import { takeOffMass } from '../shared/engine/weigh-in'
 import { DEMO_ENTRIES, DEMO_WEIGH_IN } from './demo-entries'
 
 const uploadsDir = () => process.env.NUXT_UPLOADS_DIR ?? resolve(dirname(fileURLToPath(import.meta.url)), '../.data/uploads')
+
+/** Writes a demo file sealed, as the app does: mode 0600 in folders 0700. Returns its key id. */
+function writeSealed(area: 'documents' | 'igc', entryId: string, id: string, data: Buffer, files: FileKeyring): string {
+  const file = join(uploadsDir(), area, entryId, id)
+  mkdirSync(dirname(file), { recursive: true, mode: 0o700 })
+  writeFileSync(file, seal(data, files), { mode: 0o600 })
+  return files.current!.id
+}
 
 function demoPdf(title: string): Buffer {
   const text = title.replace(/[()\\]/g, '')
@@ -59,7 +68,7 @@ const PLAN: Record<string, Plan> = {
   },
 }
 
-export async function seedDemoDocuments(trx: Knex, competitionId: string): Promise<void> {
+export async function seedDemoDocuments(trx: Knex, competitionId: string, files: FileKeyring): Promise<void> {
   const scrutineer = await trx('memberships').where({ competition_id: competitionId, role: 'scrutineer' }).orderBy('created_at').first('user_id')
   const entries = await trx('entries').where({ competition_id: competitionId }).whereNot('status', 'draft').orderBy('comp_id')
     .select('id', 'comp_id', 'entrant_user_id') as { id: string, comp_id: string, entrant_user_id: string }[]
@@ -68,9 +77,7 @@ export async function seedDemoDocuments(trx: Knex, competitionId: string): Promi
     for (const [kind, plan] of Object.entries(PLAN[entry.comp_id] ?? IN_ORDER) as [DocumentKind, Review & { expiresOn: string }][]) {
       const data = demoPdf(`${DOCUMENT_KIND_LABELS[kind]} - ${entry.comp_id}`)
       const id = randomUUID()
-      const file = join(uploadsDir(), 'documents', entry.id, id)
-      mkdirSync(dirname(file), { recursive: true })
-      writeFileSync(file, data)
+      const fileKeyId = writeSealed('documents', entry.id, id, data, files)
       minutes += 7
       await trx('documents').insert({
         entry_id: entry.id,
@@ -81,6 +88,7 @@ export async function seedDemoDocuments(trx: Knex, competitionId: string): Promi
         size_bytes: data.length,
         sha256: createHash('sha256').update(data).digest('hex'),
         storage_key: `documents:${entry.id}:${id}`,
+        file_key_id: fileKeyId,
         expires_on: plan.expiresOn,
         status: plan.status,
         review_reason: plan.status === 'rejected' ? plan.reason : null,
@@ -132,7 +140,7 @@ function demoIgc(input: { pilot: string, copilot: string | null, gliderType: str
   return `${lines.join('\r\n')}\r\n`
 }
 
-export async function seedDemoIgcFiles(trx: Knex, competitionId: string): Promise<void> {
+export async function seedDemoIgcFiles(trx: Knex, competitionId: string, files: FileKeyring): Promise<void> {
   const rows = await trx('entries as e')
     .join('classes as c', 'c.id', 'e.class_id')
     .where('e.competition_id', competitionId).whereNot('e.status', 'draft').orderBy('e.comp_id')
@@ -160,15 +168,14 @@ export async function seedDemoIgcFiles(trx: Knex, competitionId: string): Promis
       }
       const data = Buffer.from(demoIgc(header), 'latin1')
       const id = randomUUID()
-      const file = join(uploadsDir(), 'igc', entry.id, id)
-      mkdirSync(dirname(file), { recursive: true })
-      writeFileSync(file, data)
+      const fileKeyId = writeSealed('igc', entry.id, id, data, files)
       await trx('igc_files').insert({
         entry_id: entry.id,
         competition_id: competitionId,
         unit_id: recorder.id,
         original_filename: `${entry.comp_id.toLowerCase()}-${recorder.serial.toLowerCase()}-${header.flightDate}.igc`,
         storage_key: `igc:${entry.id}:${id}`,
+        file_key_id: fileKeyId,
         sha256: createHash('sha256').update(data).digest('hex'),
         size_bytes: data.length,
         flight_date: header.flightDate,

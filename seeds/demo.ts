@@ -8,6 +8,7 @@ import { DEMO_COMPETITION, DEMO_PASSWORD, DEMO_PEOPLE } from './demo-data'
 import { DEMO_ENTRIES, DEMO_EXTRA_PILOTS, DEMO_FIRMWARE } from './demo-entries'
 import { seedDemoPayments } from './demo-payments'
 import { seedDemoDocuments, seedDemoIgcFiles, seedDemoWeighIn } from './demo-files'
+import { fileKeyring } from '../server/domain/files/file-crypt'
 import { seedDemoTags } from './demo-tags'
 
 export { DEMO_SIGN_INS, DEMO_PASSWORD } from './demo-data'
@@ -20,11 +21,14 @@ const WIPE_ORDER = ['audit_log', 'mail_outbox', 'rate_limits', 'memberships', 'c
 
 /**
  * `tagSecret` must be the key the server signs tags with (NUXT_TAG_SECRET, else the session
- * password), so that the demo's tags resolve.
+ * password), so that the demo's tags resolve; `filesKey` the key it opens stored files with
+ * (NUXT_FILES_KEY), so that the demo's documents and IGC files open.
  */
-export async function seedDemo(knex: Knex, opts: { reset?: boolean, tagSecret?: string } = {}): Promise<{ seeded: boolean }> {
+export async function seedDemo(knex: Knex, opts: { reset?: boolean, tagSecret?: string, filesKey?: string } = {}): Promise<{ seeded: boolean }> {
   const tagSecret = opts.tagSecret || process.env.NUXT_TAG_SECRET || process.env.NUXT_SESSION_PASSWORD
   if (!tagSecret) throw new Error('The demo seed signs glider tags: give it the tag secret (NUXT_TAG_SECRET or NUXT_SESSION_PASSWORD).')
+  const files = fileKeyring({ key: opts.filesKey || process.env.NUXT_FILES_KEY })
+  if (!files.current) throw new Error('The demo seed seals its documents and IGC files: give it the files key (NUXT_FILES_KEY).')
   return knex.transaction(async (trx) => {
     if (opts.reset) {
       await trx.raw(`TRUNCATE ${WIPE_ORDER.join(', ')} RESTART IDENTITY CASCADE`)
@@ -157,8 +161,8 @@ export async function seedDemo(knex: Knex, opts: { reset?: boolean, tagSecret?: 
         .onConflict(['user_id', 'competition_id', 'role']).ignore()
     }
 
-    await seedDemoDocuments(trx, competition.id)
-    await seedDemoIgcFiles(trx, competition.id)
+    await seedDemoDocuments(trx, competition.id, files)
+    await seedDemoIgcFiles(trx, competition.id, files)
     await seedDemoWeighIn(trx, competition.id, idByEmail.get('scrutineer@gridmark.example')!)
     await seedDemoPayments(trx, competition.id, organiser ?? null)
     await seedDemoTags(trx, competition.id, tagSecret)

@@ -45,8 +45,8 @@ export function migrate(url: string): Promise<string[]> {
 /**
  * Seeds the demo data: once (no-op when present), or wiped and re-seeded with reset.
  * `sessionPassword` is the one the server will get: unless NUXT_TAG_SECRET is set, it signs
- * the demo's glider tags.
+ * the demo's glider tags. `filesKey` is the server's NUXT_FILES_KEY: it seals the demo's files.
  */
-export function seed(url: string, reset: boolean, sessionPassword: string): Promise<{ seeded: boolean }> {
-  return withKnex(url, db => seedDemo(db, { reset, tagSecret: process.env.NUXT_TAG_SECRET || sessionPassword }))
+export function seed(url: string, reset: boolean, sessionPassword: string, filesKey: string): Promise<{ seeded: boolean }> {
+  return withKnex(url, db => seedDemo(db, { reset, tagSecret: process.env.NUXT_TAG_SECRET || sessionPassword, filesKey }))
 }

@@ -1,9 +1,10 @@
-// The password that seals session cookies, and the demo cluster's database passwords. The built
-// server does not read .env, so the start script passes them explicitly; keeping them in .data
-// means sign-ins survive a restart.
+// The password that seals session cookies, the key that seals stored files, and the demo
+// cluster's database passwords. The built server does not read .env, so the start script passes
+// them explicitly; keeping them in .data means sign-ins and files survive a restart.
 import { randomBytes } from 'node:crypto'
 import { chmodSync, existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path'
+import { FileKeyError, FILES_KEY_VARIABLE, newFilesKey, parseFileKey } from '../../server/domain/files/file-crypt'
 import { localDataDir, ScriptError, step } from './common'
 import type { ClusterPasswords } from './postgres'
 
@@ -37,6 +38,43 @@ export function sessionPassword(): string {
   writeFileSync(passwordFile, `${password}\n`, { mode: 0o600 })
   chmodSync(passwordFile, 0o600) // mode above applies only when the file is new
   return password
+}
+
+const filesKeyFile = join(localDataDir, 'files-key')
+
+/**
+ * The key stored files are sealed under: NUXT_FILES_KEY when set, else the one kept in
+ * .data/files-key (created once, readable by this user only). Losing it loses the demo's files.
+ */
+export function filesKey(): string {
+  const fromEnv = process.env[FILES_KEY_VARIABLE]
+  if (fromEnv !== undefined && fromEnv !== '') {
+    try {
+      parseFileKey(fromEnv)
+    }
+    catch (error) {
+      if (error instanceof FileKeyError) throw new ScriptError(`${error.message} Unset it to use a generated one.`)
+      throw error
+    }
+    return fromEnv
+  }
+  if (existsSync(filesKeyFile)) {
+    const stored = readFileSync(filesKeyFile, 'utf8').trim()
+    try {
+      parseFileKey(stored, filesKeyFile)
+      return stored
+    }
+    catch (error) {
+      if (!(error instanceof FileKeyError)) throw error
+      // Replacing it would make every file sealed under it unreadable.
+      throw new ScriptError(`${error.message} Restore it from a backup; or, to start the demo afresh, delete it and run npm run seed:reset.`)
+    }
+  }
+  const key = newFilesKey()
+  mkdirSync(localDataDir, { recursive: true })
+  writeFileSync(filesKeyFile, `${key}\n`, { mode: 0o600 })
+  chmodSync(filesKeyFile, 0o600)
+  return key
 }
 
 const clusterPasswordsFile = join(localDataDir, 'db-passwords.json')

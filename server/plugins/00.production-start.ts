@@ -3,6 +3,7 @@
 // run without its own secrets and a database; once migrations have run it refuses to run while
 // any account still has the demo's published password, and requests wait for that answer.
 // Named 00.… so it runs before the other plugins start anything.
+import { fileKeyProblems } from '#domain/files/file-crypt'
 import { accountsWithDemoPassword } from '#domain/people/demo-password'
 import { configuredSecrets, isDemoMode, SECRET_MIN_LENGTH, secretProblems } from '#domain/people/secrets'
 import { whenSchemaReady } from '../utils/db'
@@ -13,7 +14,8 @@ const REQUEST_WAIT_MS = 10_000
 
 const SETTINGS_HINT = [
   `Give each of NUXT_SESSION_PASSWORD, NUXT_TAG_SECRET and NUXT_INVITATION_SECRET its own random value of at least ${SECRET_MIN_LENGTH} characters`,
-  '(e.g. `openssl rand -base64 36`), and DATABASE_URL the database. See "Production" in README.md; `npm start` runs the demo instead.',
+  '(e.g. `openssl rand -base64 36`), NUXT_FILES_KEY 32 random bytes (`openssl rand -base64 32`; keep it: the stored files',
+  'cannot be read without it), and DATABASE_URL the database. See "Production" in README.md; `npm start` runs the demo instead.',
 ]
 
 /** Says why on stderr and exits non-zero (before listening, for the settings). */
@@ -25,8 +27,12 @@ function refuse(lines: string[], hint: string[] = []): never {
 export default defineNitroPlugin((nitroApp) => {
   if (import.meta.dev || isDemoMode()) return
 
-  const problems = secretProblems(configuredSecrets())
-  if (!process.env.DATABASE_URL && !useRuntimeConfig().databaseUrl) problems.push('DATABASE_URL (or NUXT_DATABASE_URL) is not set.')
+  const config = useRuntimeConfig()
+  const problems = [
+    ...secretProblems(configuredSecrets()),
+    ...fileKeyProblems({ key: String(config.filesKey || ''), oldKeys: String(config.filesOldKeys || '') }),
+  ]
+  if (!process.env.DATABASE_URL && !config.databaseUrl) problems.push('DATABASE_URL (or NUXT_DATABASE_URL) is not set.')
   if (problems.length > 0) refuse(problems, SETTINGS_HINT)
 
   let stopped = false

@@ -1,28 +1,32 @@
 // Chooses where uploaded files live, at run time. Without settings the `uploads` mount of
 // nuxt.config.ts (a folder, .data/uploads) stays. NUXT_UPLOADS_S3_BUCKET (with endpoint,
 // region and keys) mounts an S3-compatible bucket instead; NUXT_UPLOADS_DIR moves the folder.
-import fsDriver from 'unstorage/drivers/fs'
-import s3Driver from 'unstorage/drivers/s3'
+// Files are sealed under NUXT_FILES_KEY: a malformed key (or old key) stops the start here; a
+// missing one stops a production start (00.production-start.ts) and elsewhere only uploads.
+import { FileKeyError } from '#domain/files/file-crypt'
+import { uploadsDriverFromEnv } from '#domain/files/file-store'
+import { serverFileKeyring } from '#domain/files/storage'
+
+function keyring() {
+  try {
+    return serverFileKeyring()
+  }
+  catch (error) {
+    if (!(error instanceof FileKeyError)) throw error
+    console.error(`\n✖ Gridmark will not start: ${error.message}\n`)
+    process.exit(1)
+  }
+}
 
 export default defineNitroPlugin(() => {
-  const env = process.env
-  const storage = useStorage()
-  if (env.NUXT_UPLOADS_S3_BUCKET) {
-    const missing = ['NUXT_UPLOADS_S3_ENDPOINT', 'NUXT_UPLOADS_S3_ACCESS_KEY_ID', 'NUXT_UPLOADS_S3_SECRET_ACCESS_KEY']
-      .filter(name => !env[name])
-    if (missing.length) throw new Error(`NUXT_UPLOADS_S3_BUCKET is set but ${missing.join(', ')} ${missing.length === 1 ? 'is' : 'are'} not.`)
+  const chosen = uploadsDriverFromEnv(process.env)
+  if (chosen) {
+    const storage = useStorage()
     void storage.unmount('uploads', false)
-    storage.mount('uploads', s3Driver({
-      bucket: env.NUXT_UPLOADS_S3_BUCKET,
-      endpoint: env.NUXT_UPLOADS_S3_ENDPOINT!,
-      region: env.NUXT_UPLOADS_S3_REGION || 'auto',
-      accessKeyId: env.NUXT_UPLOADS_S3_ACCESS_KEY_ID!,
-      secretAccessKey: env.NUXT_UPLOADS_S3_SECRET_ACCESS_KEY!,
-    }))
-    console.log(`[gridmark] uploads are stored in the bucket ${env.NUXT_UPLOADS_S3_BUCKET}`)
+    storage.mount('uploads', chosen.driver)
+    if (!chosen.folder) console.log(`[gridmark] uploads are stored in ${chosen.where}`)
   }
-  else if (env.NUXT_UPLOADS_DIR) {
-    void storage.unmount('uploads', false)
-    storage.mount('uploads', fsDriver({ base: env.NUXT_UPLOADS_DIR }))
+  if (!keyring().current) {
+    console.warn('[gridmark] NUXT_FILES_KEY is not set: uploads are refused until it is (npm start generates one).')
   }
 })

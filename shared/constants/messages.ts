@@ -12,6 +12,7 @@ import { ACCOUNT_PAGE_MESSAGES } from './messages-account-page'
 import { INVITATIONS_MESSAGES } from './messages-invitations'
 import { ACCOUNT_MESSAGES } from './messages-account'
 import { UPLOAD_STREAM_MESSAGES } from './messages-upload-stream'
+import { STORED_FILES_MESSAGES } from './messages-stored-files'
 import { CROSS_SITE_MESSAGES } from './messages-cross-site'
 import { RETENTION_MESSAGES } from './messages-retention'
 import { DOCUMENTS_ACCESS_MESSAGES } from './messages-documents-access'
@@ -77,6 +78,7 @@ export const MESSAGES = {
   ...INVITATIONS_MESSAGES,
   ...ACCOUNT_MESSAGES,
   ...UPLOAD_STREAM_MESSAGES,
+  ...STORED_FILES_MESSAGES,
   ...CROSS_SITE_MESSAGES,
   ...RETENTION_MESSAGES,
   ...DOCUMENTS_ACCESS_MESSAGES,

@@ -13,6 +13,8 @@ export interface DocumentRow {
   sha256: string
   /** Where the file is stored; null once the file was deleted (file_deleted_at says when). */
   storage_key: string | null
+  /** The key the stored file is sealed under (16 hex digits); null for a plain file stored before encryption. */
+  file_key_id: string | null
   /** YYYY-MM-DD (a `date` column, read as its text by the type parser in knexfile.ts) */
   expires_on: string
   status: DocumentStatus
@@ -38,6 +40,8 @@ export interface IgcFileRow {
   unit_id: string | null
   original_filename: string
   storage_key: string
+  /** The key the stored file is sealed under (16 hex digits); null for a plain file stored before encryption. */
+  file_key_id: string | null
   sha256: string
   size_bytes: number
   /** YYYY-MM-DD from HFDTE */

@@ -94,15 +94,22 @@ describe('demo seed', () => {
     expect(matching.glider_id).toBe(a1.entry.registration)
   })
 
-  it('writes the demo IGC files as Gridmark’s parser reads them (IGC FR specification Appendix A: A, H and I records)', async () => {
+  it('writes the demo IGC files as Gridmark’s parser reads them (IGC FR specification Appendix A: A, H and I records), sealed as the app seals files', async () => {
     const { parseIgc } = await import('../../server/domain/files/igc-header')
+    const { fileKeyringFromEnv, open } = await import('../../server/domain/files/file-crypt')
     const { readFileSync } = await import('node:fs')
     const { join } = await import('node:path')
+    const keyring = fileKeyringFromEnv()
     const read = async (compId: string) => {
       const { entry } = await demoEntry(compId)
       const igc = await testDb()('igc_files').where({ entry_id: entry.id, superseded: false }).orderBy('original_filename').first()
       const [, entryId, id] = igc.storage_key.split(':')
-      const parsed = parseIgc(readFileSync(join(process.env.NUXT_UPLOADS_DIR!, 'igc', entryId, id), 'latin1'))
+      const stored = readFileSync(join(process.env.NUXT_UPLOADS_DIR!, 'igc', entryId, id))
+      expect(stored.includes(Buffer.from('HFPLTPILOTINCHARGE'))).toBe(false)
+      const opened = open(stored, keyring)
+      expect(opened.keyId).toBe(keyring.current!.id)
+      expect(igc.file_key_id).toBe(keyring.current!.id)
+      const parsed = parseIgc(opened.data.toString('latin1'))
       if (!parsed.ok) throw new Error(`${compId}'s demo file does not parse`)
       return { igc, header: parsed.header, errors: parsed.errors }
     }

@@ -1,5 +1,5 @@
 // The production start (`npm run serve`, the built server without NUXT_DEMO_MODE): it refuses to
-// run, before listening, without its own three secrets of ≥ 32 characters or a database, and
+// run, before listening, without its own three secrets of ≥ 32 characters, a files key or a database, and
 // while an account has the demo's password; on an empty database it migrates, answers health and
 // seeds nothing.
 import { spawn } from 'node:child_process'
@@ -70,7 +70,7 @@ async function serve(settings: Record<string, string | undefined>): Promise<Star
 }
 
 function goodSettings(): Record<string, string> {
-  return { DATABASE_URL: url, NUXT_SESSION_PASSWORD: secret(), NUXT_TAG_SECRET: secret(), NUXT_INVITATION_SECRET: secret() }
+  return { DATABASE_URL: url, NUXT_SESSION_PASSWORD: secret(), NUXT_TAG_SECRET: secret(), NUXT_INVITATION_SECRET: secret(), NUXT_FILES_KEY: randomBytes(32).toString('base64') }
 }
 
 /**
@@ -116,6 +116,13 @@ describe('the production start refuses to run without its settings', () => {
     const settings = goodSettings()
     const output = await expectRefusal({ ...settings, NUXT_INVITATION_SECRET: settings.NUXT_SESSION_PASSWORD }, /NUXT_SESSION_PASSWORD and NUXT_INVITATION_SECRET are the same/)
     expect(output).not.toMatch(/NUXT_TAG_SECRET[^\n]* are the same/)
+  })
+
+  it('without NUXT_FILES_KEY, or with one that is not 32 bytes in hex or base64', async () => {
+    await expectRefusal({ ...goodSettings(), NUXT_FILES_KEY: undefined }, /NUXT_FILES_KEY is not set/)
+    const output = await expectRefusal({ ...goodSettings(), NUXT_FILES_KEY: 'correct horse battery staple' }, /NUXT_FILES_KEY is not a key: it must be 32 random bytes written as 64 hex digits or 44 base64 characters/)
+    expect(output).not.toContain('correct horse')
+    await expectRefusal({ ...goodSettings(), NUXT_FILES_OLD_KEYS: randomBytes(16).toString('hex') }, /NUXT_FILES_OLD_KEYS is not a key/)
   })
 
   it('without a database', async () => {

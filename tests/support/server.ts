@@ -4,6 +4,7 @@ import { spawn, type ChildProcess } from 'node:child_process'
 import { createServer } from 'node:net'
 import { existsSync } from 'node:fs'
 import { fileURLToPath } from 'node:url'
+import { newFilesKey } from '../../server/domain/files/file-crypt'
 
 const root = fileURLToPath(new URL('../..', import.meta.url))
 const entry = `${root}.output/server/index.mjs`
@@ -50,6 +51,9 @@ export async function startServer(env: Record<string, string> = {}, port?: numbe
       NUXT_DEMO_MODE: 'true',
       // The retention job runs at chosen instants through its admin route, never by the clock.
       NUXT_RETENTION_INTERVAL_MS: '0',
+      // `npm test` gives the key the demo's files were sealed under; a server of its own (the
+      // bench) seals under a fresh one.
+      NUXT_FILES_KEY: process.env.NUXT_FILES_KEY || newFilesKey(),
       ...env,
     },
     stdio: ['ignore', 'pipe', 'pipe'],

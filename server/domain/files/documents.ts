@@ -98,7 +98,7 @@ export async function createDocument(input: {
 }): Promise<DocumentView> {
   const key = newStorageKey('documents', input.entryId)
   const { sha256, size } = input.file
-  const id = await storeThenCommit(key, input.file.path, () => useDb().transaction(async (trx) => {
+  const id = await storeThenCommit(key, input.file.path, fileKeyId => useDb().transaction(async (trx) => {
     // Supersede the current one of this kind first: one current document per kind (index).
     const previous = await trx('documents')
       .where({ entry_id: input.entryId, kind: input.kind, superseded: false })
@@ -113,6 +113,7 @@ export async function createDocument(input: {
       size_bytes: size,
       sha256,
       storage_key: key,
+      file_key_id: fileKeyId,
       expires_on: input.expiresOn,
       uploaded_by: input.actorUserId,
     }).returning('id') as { id: string }[]

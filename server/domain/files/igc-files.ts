@@ -96,7 +96,7 @@ export async function createIgcFile(input: {
   const key = newStorageKey('igc', input.entryId)
   const { sha256, size } = input.file
   const h = input.header
-  const id = await storeThenCommit(key, input.file.path, () => useDb().transaction(async (trx) => {
+  const id = await storeThenCommit(key, input.file.path, fileKeyId => useDb().transaction(async (trx) => {
     const previous = await trx('igc_files')
       .where({ entry_id: input.entryId, superseded: false })
       .where(q => (input.unitId ? q.where('unit_id', input.unitId) : q.whereNull('unit_id')))
@@ -108,6 +108,7 @@ export async function createIgcFile(input: {
       unit_id: input.unitId,
       original_filename: input.filename,
       storage_key: key,
+      file_key_id: fileKeyId,
       sha256,
       size_bytes: size,
       flight_date: h.flightDate,

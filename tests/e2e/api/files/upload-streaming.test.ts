@@ -1,5 +1,5 @@
 // Uploads are streamed to storage: the file goes to a temporary file as it arrives, hashed on
-// the way, and is moved into place only when whole and valid. A server of its own (its own
+// the way, and is sealed into place only when whole and valid. A server of its own (its own
 // uploads and incoming folders, and a pid whose memory can be read) shows that 20 oversize
 // uploads at once leave its memory as it was, that /api/health keeps answering quickly during
 // a 9 MB upload, that the file is stored intact, and that an aborted upload leaves nothing.
@@ -8,6 +8,7 @@ import { existsSync, mkdtempSync, readFileSync, readdirSync, rmSync } from 'node
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { fileKeyringFromEnv, open } from '../../../../server/domain/files/file-crypt'
 import { MESSAGES } from '../../../../shared/constants/messages'
 import type { ApiClient } from '../../../support/api'
 import { sendChunked, type ChunkedAnswer, type ChunkedBody } from '../../../support/chunked'
@@ -17,6 +18,8 @@ import { getBytes, postForm, tinyPdf } from '../../../support/files'
 import { startServer, type RunningServer } from '../../../support/server'
 
 const MB = 1024 * 1024
+/** The header and the integrity tag of a sealed file (server/domain/files/file-crypt.ts). */
+const SEALED_OVERHEAD_BYTES = 25 + 16
 const BOUNDARY = 'gridmark-stream-boundary'
 
 let server: RunningServer
@@ -158,11 +161,13 @@ describe('a legitimate 9 MB PDF', () => {
     expect(sha256(download.data)).toBe(sha256(pdf))
     const row = await testDb()('documents').where({ id: answer.body.document.id }).first()
     expect(row.storage_key.startsWith(`documents:${entryId}:`)).toBe(true)
+    // Sealed at rest: what lies on disk opens with the key to the bytes sent (encryption.test.ts).
     const stored = readFileSync(join(folders.uploads, ...row.storage_key.split(':') as string[]))
-    expect(sha256(stored)).toBe(sha256(pdf))
+    expect(stored.length).toBe(pdf.length + SEALED_OVERHEAD_BYTES)
+    expect(sha256(open(stored, fileKeyringFromEnv()).data)).toBe(sha256(pdf))
     const audit = await testDb()('audit_log').where({ subject_id: row.id, action: 'document.uploaded' }).first()
     expect(audit.details).toMatchObject({ sha256: sha256(pdf), sizeBytes: pdf.length })
-    // The temporary file was moved, not left behind.
+    // The temporary file was not left behind.
     expect(filesIn(folders.incoming)).toEqual([])
   })
 })
