@@ -84,7 +84,7 @@ async function deleteFiles(reason: FileDeletionReason, keptDays: number, due: (t
       if (!rows.length) return rows
       await trx('documents').whereIn('id', rows.map(r => r.id)).update({
         storage_key: null,
-          file_key_id: null,
+        file_key_id: null,
         original_filename: '',
         file_deleted_at: trx.fn.now(),
         file_deleted_reason: reason,
