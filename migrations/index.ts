@@ -33,6 +33,7 @@ import * as m20261208000200 from './20261208000200_reminder_schedule'
 import * as m20261209000100 from './20261209000100_account_tokens'
 import * as m20261209000200 from './20261209000200_deleted_accounts'
 import * as m20261209000500 from './20261209000500_outbox_secret_bodies'
+import * as m20261210000500 from './20261210000500_entry_privacy_confirmation'
 
 type Migration = Knex.Migration
 
@@ -69,6 +70,7 @@ const migrations: Record<string, Migration> = {
   '20261209000100_account_tokens': m20261209000100,
   '20261209000200_deleted_accounts': m20261209000200,
   '20261209000500_outbox_secret_bodies': m20261209000500,
+  '20261210000500_entry_privacy_confirmation': m20261210000500,
 }
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -13,6 +13,7 @@ import { INVITATIONS_MESSAGES } from './messages-invitations'
 import { ACCOUNT_MESSAGES } from './messages-account'
 import { UPLOAD_STREAM_MESSAGES } from './messages-upload-stream'
 import { CROSS_SITE_MESSAGES } from './messages-cross-site'
+import { PRIVACY_MESSAGES } from './messages-privacy'
 
 export const MESSAGES = {
   invalidInput: 'Some fields need attention.',
@@ -76,6 +77,7 @@ export const MESSAGES = {
   ...ACCOUNT_MESSAGES,
   ...UPLOAD_STREAM_MESSAGES,
   ...CROSS_SITE_MESSAGES,
+  ...PRIVACY_MESSAGES,
 
   // --- The tracking list and the glider report (the office's paperwork) ---
   trackingStaffOnly: 'The tracking list is for the competition’s organisers, scrutineers and contest director: it lists every glider’s radio IDs.',
