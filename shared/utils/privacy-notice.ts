@@ -7,7 +7,7 @@ import type { PrivacyNoticeFacts, PrivacyNoticeItem, PrivacyNoticeSection } from
 import { rulesOf } from './rules'
 
 /** The date of the current wording; change it with the wording. */
-export const PRIVACY_NOTICE_REVISION = '2026-12-10'
+export const PRIVACY_NOTICE_REVISION = '2026-12-04'
 
 /** A superseded copy of any document is kept this long after its replacement is accepted. */
 export const SUPERSEDED_RETENTION_DAYS = 30
@@ -48,7 +48,7 @@ export function privacyNoticeFacts(
 }
 
 const section = (id: string, title: string, paragraphs: string[], items: PrivacyNoticeItem[] = []): PrivacyNoticeSection =>
-  ({ id, title, paragraphs, items })
+  ({ id, title, paragraphs, items: items.map(i => ({ term: i.term, text: i.text.charAt(0).toUpperCase() + i.text.slice(1) })) })
 
 /** What a pilot reads before entering this competition, and confirms when entering. */
 export function competitionNoticeSections(f: PrivacyNoticeFacts): PrivacyNoticeSection[] {
@@ -95,7 +95,7 @@ export function competitionNoticeSections(f: PrivacyNoticeFacts): PrivacyNoticeS
     section('how-long', 'How long it is kept', [], [
       { term: 'Licence and medical files', text: `kept ${medicalUntil} What stays is their kind, validity dates, review outcome, a checksum and the fact that they were deleted.` },
       { term: 'Replaced copies', text: `a superseded copy of any document is deleted ${days(f.supersededRetentionDays)} after its replacement is accepted.` },
-      { term: 'Stored files', text: 'are encrypted on the server.' },
+      { term: 'Stored files', text: 'documents and IGC files are stored encrypted on the server.' },
       { term: 'The audit log', text: 'records who changed what and when, by ids and field names; it never keeps personal free text such as phone numbers or contacts.' },
       { term: 'The rest of your entry', text: 'stays with the competition’s record (results, payments, grid checks) until you delete your account; then your name and contact details are removed from it.' },
     ]),
@@ -117,7 +117,7 @@ export function siteNoticeSections(): PrivacyNoticeSection[] {
     ]),
     section('account', 'What is kept about your account', [], [
       { term: 'Your account', text: 'your name, your e-mail address and when you confirmed it; your password only as a one-way hash.' },
-      { term: 'Sign-ins', text: 'each session with its start, last use, browser and network address, so that you (and the site) can see and end them.' },
+      { term: 'Sign-ins', text: 'each session with its start, last use, browser and network address. Changing your password ends every other session, deleting your account ends them all; your data download lists them.' },
       { term: 'Links sent by e-mail', text: 'for confirming your address or resetting your password: stored as a hash and valid for a short time.' },
       { term: 'Limits', text: 'failed sign-ins, sign-ups and password reset requests are counted per network address for up to an hour, against password guessing and abuse.' },
       { term: 'Roles', text: 'which competitions you take part in, and as what (entrant, scrutineer, director, organiser).' },
