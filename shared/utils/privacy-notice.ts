@@ -47,6 +47,9 @@ export function privacyNoticeFacts(
   }
 }
 
+/** Both notices say where the person downloads what the site keeps about them. */
+const SEE_AND_TAKE_AWAY: PrivacyNoticeItem = { term: 'See and take away', text: 'your account page (/account) downloads everything the site keeps about you as one file.' }
+
 const section = (id: string, title: string, paragraphs: string[], items: PrivacyNoticeItem[] = []): PrivacyNoticeSection =>
   ({ id, title, paragraphs, items: items.map(i => ({ term: i.term, text: i.text.charAt(0).toUpperCase() + i.text.slice(1) })) })
 
@@ -102,7 +105,7 @@ export function competitionNoticeSections(f: PrivacyNoticeFacts): PrivacyNoticeS
     section('rights', 'Your rights', [
       `You may see, correct and take away your data, have it deleted, restrict its use or object to it. To do so, ${askWho}; you may also complain to the data protection authority of your country.`,
     ], [
-      { term: 'See and take away', text: 'your account page (/account) downloads everything the site keeps about you as one file.' },
+      SEE_AND_TAKE_AWAY,
       { term: 'Correct', text: 'change your entry yourself while registration is open, or ask the office.' },
       { term: 'Delete', text: 'delete your account from your account page: your licence and medical files go at once, and your name and contact details are removed from your entries.' },
     ]),
@@ -125,7 +128,7 @@ export function siteNoticeSections(): PrivacyNoticeSection[] {
       { term: 'In your browser', text: 'one cookie for your session, and your display preferences; nothing that tracks you, no advertising.' },
     ]),
     section('account-rights', 'Your rights', [], [
-      { term: 'See and take away', text: 'your account page (/account) downloads everything the site keeps about you as one file.' },
+      SEE_AND_TAKE_AWAY,
       { term: 'Correct', text: 'change your name, address and password on your account page.' },
       { term: 'Delete', text: 'delete your account from your account page; what each competition keeps after that is said in its notice.' },
       { term: 'Ask', text: 'for anything about an entry, ask the organisers of its competition: their notice names who to write to.' },
