@@ -37,6 +37,7 @@ import * as m20261210000400 from './20261210000400_audit_log_forgets'
 import * as m20261210000300 from './20261210000300_document_file_retention'
 import * as m20261210000200 from './20261210000200_document_views'
 import * as m20261210000100 from './20261210000100_file_key_ids'
+import * as m20261210000500 from './20261210000500_entry_privacy_confirmation'
 
 type Migration = Knex.Migration
 
@@ -77,6 +78,7 @@ const migrations: Record<string, Migration> = {
   '20261210000300_document_file_retention': m20261210000300,
   '20261210000200_document_views': m20261210000200,
   '20261210000100_file_key_ids': m20261210000100,
+  '20261210000500_entry_privacy_confirmation': m20261210000500,
 }
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -28,6 +28,8 @@ export const DEMO_COMPETITION = {
   lateFeeAfter: '2027-05-31',
   lateFeeMinor: 5000,
   currency: 'EUR',
+  /** Named by the competition's privacy notice (invented, like every address here). */
+  privacyContactEmail: 'office@kestrel-moor.example',
   rules: {
     firmwareMarginDays: 0,
     firmwareWarningDays: 30,

@@ -4,6 +4,7 @@ import type { Knex } from 'knex'
 import { Hash } from '@adonisjs/hash'
 import { Scrypt } from '@adonisjs/hash/drivers/scrypt'
 import { faiClass } from '../shared/constants/classes'
+import { competitionNoticeSections, privacyNoticeFacts, privacyNoticeVersion } from '../shared/utils/privacy-notice'
 import { DEMO_COMPETITION, DEMO_PASSWORD, DEMO_PEOPLE } from './demo-data'
 import { DEMO_ENTRIES, DEMO_EXTRA_PILOTS, DEMO_FIRMWARE } from './demo-entries'
 import { seedDemoPayments } from './demo-payments'
@@ -72,7 +73,7 @@ export async function seedDemo(knex: Knex, opts: { reset?: boolean, tagSecret?: 
         registration_closes_on: DEMO_COMPETITION.registrationClosesOn,
         late_fee_after: DEMO_COMPETITION.lateFeeAfter,
         late_fee_minor: DEMO_COMPETITION.lateFeeMinor,
-        settings: DEMO_COMPETITION.rules,
+        settings: DEMO_SETTINGS,
         created_by: admin,
       })
       .returning('id')
@@ -110,6 +111,7 @@ export async function seedDemo(knex: Knex, opts: { reset?: boolean, tagSecret?: 
     await trx('memberships').insert(memberships).onConflict(['user_id', 'competition_id', 'role']).ignore()
 
     const organiser = idByEmail.get('organiser@gridmark.example')
+    const noticeVersion = await demoNoticeVersion()
     for (const [i, e] of DEMO_ENTRIES.entries()) {
       const entrantId = idByEmail.get(e.entrantEmail)!
       // Submitted in the spring, decided a few days later (fixed dates: the seed is repeatable).
@@ -143,6 +145,9 @@ export async function seedDemo(knex: Knex, opts: { reset?: boolean, tagSecret?: 
         withdrawn_at: e.status === 'withdrawn' ? trx.raw(`?::timestamptz + interval '20 days'`, [submittedAt]) : null,
         payment_status: e.paymentStatus,
         paid_minor: e.paymentStatus === 'paid' ? DEMO_COMPETITION.classes.find(c => c.code === e.classCode)!.entryFeeMinor : 0,
+        // Every pilot confirmed the privacy notice on entering, two days before submitting.
+        privacy_confirmed_at: submittedAt ? trx.raw(`?::timestamptz - interval '2 days'`, [submittedAt]) : DEMO_DRAFTS_CONFIRMED_AT,
+        privacy_notice_version: noticeVersion,
       }).returning('id')
       await trx('units').insert(e.units.map(u => ({
         entry_id: entry.id,
@@ -177,6 +182,22 @@ export async function seedDemo(knex: Knex, opts: { reset?: boolean, tagSecret?: 
     })
     return { seeded: true }
   })
+}
+
+const DEMO_SETTINGS = { ...DEMO_COMPETITION.rules, privacyContactEmail: DEMO_COMPETITION.privacyContactEmail }
+const DEMO_DRAFTS_CONFIRMED_AT = '2027-05-02T18:00:00Z'
+
+/** The digest of the demo competition's privacy notice, as the server computes it for a new entry. */
+async function demoNoticeVersion(): Promise<string> {
+  const organisers = DEMO_PEOPLE.filter(p => p.roles.includes('organiser')).map(p => p.name)
+  const facts = privacyNoticeFacts({
+    name: DEMO_COMPETITION.name,
+    airfieldName: DEMO_COMPETITION.airfieldName,
+    firstContestDay: DEMO_COMPETITION.firstContestDay,
+    lastContestDay: DEMO_COMPETITION.lastContestDay,
+    settings: DEMO_SETTINGS,
+  }, organisers)
+  return privacyNoticeVersion(competitionNoticeSections(facts))
 }
 
 /** Every day from first to last, inclusive, as YYYY-MM-DD (calendar arithmetic in UTC). */

@@ -16,6 +16,7 @@ import { STORED_FILES_MESSAGES } from './messages-stored-files'
 import { CROSS_SITE_MESSAGES } from './messages-cross-site'
 import { RETENTION_MESSAGES } from './messages-retention'
 import { DOCUMENTS_ACCESS_MESSAGES } from './messages-documents-access'
+import { PRIVACY_MESSAGES } from './messages-privacy'
 
 export const MESSAGES = {
   invalidInput: 'Some fields need attention.',
@@ -82,6 +83,7 @@ export const MESSAGES = {
   ...CROSS_SITE_MESSAGES,
   ...RETENTION_MESSAGES,
   ...DOCUMENTS_ACCESS_MESSAGES,
+  ...PRIVACY_MESSAGES,
 
   // --- The tracking list and the glider report (the office's paperwork) ---
   trackingStaffOnly: 'The tracking list is for the competition’s organisers, scrutineers and contest director: it lists every glider’s radio IDs.',

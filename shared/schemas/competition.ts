@@ -129,6 +129,20 @@ export const reminderDaysSchema = z
   .transform(list => [...list].sort((a, b) => b - a))
 
 const optionalDate = isoDate.nullable().optional()
+
+/**
+ * Where people write about their personal data in this competition (its privacy notice names
+ * it); optional, an empty value clears it and the notice names the organisers instead.
+ */
+export const privacyContactSchema = z
+  .string({ error: MESSAGES.privacyContactEmail })
+  .trim()
+  .toLowerCase()
+  .max(254, { error: MESSAGES.privacyContactEmail })
+  .pipe(z.union([z.literal(''), z.email({ error: MESSAGES.privacyContactEmail })], { error: MESSAGES.privacyContactEmail }))
+  .transform(v => (v === '' ? null : v))
+  .nullable()
+  .optional()
 const minorUnits = (label: string) =>
   z.number({ error: `Enter the ${label} as a number.` }).int({ error: `Enter the ${label} in whole cents.` }).min(0, { error: `The ${label} cannot be negative.` }).max(100_000_000, { error: `The ${label} looks too large.` })
 
@@ -147,6 +161,7 @@ const setupFields = {
   lateFeeAfter: optionalDate,
   lateFeeMinor: minorUnits('late fee'),
   reminderDays: reminderDaysSchema,
+  privacyContactEmail: privacyContactSchema,
   rules: competitionRulesSchema,
 }
 

@@ -79,6 +79,8 @@ export const entryBodySchema = z.object({
   pilotArmM: arm('pilot seat’s lever arm').optional(),
   copilotArmM: arm('co-pilot seat’s lever arm').optional(),
   ballastArmM: arm('water ballast’s lever arm').optional(),
+  /** The pilot confirms the competition's privacy notice (GET …/privacy-notice); the entry records it. */
+  privacyNoticeAccepted: z.literal(true, { error: MESSAGES.privacyNoticeNotAccepted }),
 }, { error: 'Send the fields as a JSON object.' }).refine(
   e => e.cgForwardLimitM === undefined || e.cgAftLimitM === undefined || e.cgForwardLimitM < e.cgAftLimitM,
   { error: 'The forward CG limit must lie ahead of the aft limit.', path: ['cgAftLimitM'] },

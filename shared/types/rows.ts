@@ -125,6 +125,10 @@ export interface EntryRow {
   waived_minor: number
   /** YYYY-MM-DD: the day of the entry's first payment or waiver. */
   first_paid_on: string | null
+  /** When the pilot confirmed the competition's privacy notice, entering; null for older entries. */
+  privacy_confirmed_at: Date | null
+  /** Which notice they confirmed: its digest (shared/utils/privacy-notice.ts). */
+  privacy_notice_version: string | null
   created_at: Date
   updated_at: Date
 }

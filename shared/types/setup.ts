@@ -35,6 +35,8 @@ export interface CompetitionSetupResponse {
   lateFeeMinor: number
   /** Days before the first contest day on which reminders go out, largest first (shared/utils/reminder-schedule.ts). */
   reminderDays: number[]
+  /** Where people write about their data (the privacy notice names it); null: the notice names the organisers. */
+  privacyContactEmail: string | null
   rules: CompetitionRules
   classes: SetupClass[]
 }

@@ -68,6 +68,7 @@ describe('entrant registration in the browser', () => {
       await page.getByLabel('Span (m)').fill('15')
       await page.getByLabel('MTOM (kg)').fill('525')
       await page.getByLabel('Empty mass (kg)').fill('262,5')
+      await page.getByLabel('Privacy notice').check()
       await screenshot(page, 'entry-new-phone')
       await expectNoSidewaysScroll(page)
       await page.getByRole('button', { name: 'Save the draft entry' }).click()

@@ -50,6 +50,7 @@ export function entryBody(classId: string, overrides: Record<string, unknown> = 
     mtomKg: 525,
     emptyMassKg: 255,
     datumDescription: 'Wing leading edge at the root',
+    privacyNoticeAccepted: true,
     ...overrides,
   }
 }

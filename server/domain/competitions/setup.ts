@@ -23,6 +23,7 @@ import { useDb } from '#server/utils/db'
 import { fieldError, httpError } from '#server/utils/errors'
 import { rulesOf } from '#shared/utils/rules'
 import { reminderScheduleOf } from '#shared/utils/reminder-schedule'
+import { privacyContactOf } from '#shared/utils/privacy-notice'
 import { toClassSummary } from './competitions'
 
 function slugFor(name: string): string {
@@ -117,6 +118,7 @@ export async function competitionSetup(competitionId: string, db: Knex = useDb()
     lateFeeAfter: row.late_fee_after,
     lateFeeMinor: row.late_fee_minor,
     reminderDays: reminderScheduleOf(row.settings),
+    privacyContactEmail: privacyContactOf(row.settings),
     rules: rulesOf(row.settings),
     classes,
   }
@@ -143,6 +145,7 @@ function setupValuesOf(s: CompetitionSetupResponse): SetupValues {
     lateFeeAfter: s.lateFeeAfter,
     lateFeeMinor: s.lateFeeMinor,
     reminderDays: s.reminderDays,
+    privacyContactEmail: s.privacyContactEmail,
     rules: s.rules,
   }
 }
@@ -181,8 +184,8 @@ export async function updateCompetitionSetup(competitionId: string, patch: Compe
       registration_closes_on: merged.registrationClosesOn ?? null,
       late_fee_after: merged.lateFeeAfter ?? null,
       late_fee_minor: merged.lateFeeMinor,
-      // The reminder schedule lives beside the rules in settings (it is read by no check).
-      settings: { ...merged.rules, reminderDays: merged.reminderDays },
+      // The reminder schedule and the privacy contact live beside the rules in settings (no check reads them).
+      settings: { ...merged.rules, reminderDays: merged.reminderDays, privacyContactEmail: merged.privacyContactEmail ?? null },
       updated_at: trx.fn.now(),
     })
     if (changes.practiceDays || changes.contestDays) {

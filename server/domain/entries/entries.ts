@@ -25,6 +25,8 @@ import { fieldChange } from '#domain/audit/personal-fields'
 import { dossierChanged, noteChangeAfterAcceptance } from '#domain/board/dossier-changed'
 import { UNIT_FIELDS, writeUnitChange, type UnitField } from '#domain/board/unit-changes'
 import { findCompetition, listClasses } from '#domain/competitions/competitions'
+import { currentNoticeVersion } from '#domain/competitions/privacy-notice'
+import { OPEN_SQL, TODAY_SQL } from '#domain/competitions/registration-sql'
 import { settleEntryPayments } from '#domain/fees/fees'
 import { countFindings, entryFindings, findingsByEntry } from '#domain/findings/findings'
 import { enqueueMail } from '#domain/mail/outbox'
@@ -134,11 +136,6 @@ interface RegistrationWindow {
   open: boolean
   closed: boolean
 }
-
-/** SQL for "today within the window", in the competition's (aliased `c`) time zone. */
-const TODAY_SQL = `(now() at time zone c.time_zone)::date`
-const OPEN_SQL = `((c.registration_opens_on IS NULL OR c.registration_opens_on <= ${TODAY_SQL})
-  AND (c.registration_closes_on IS NULL OR c.registration_closes_on >= ${TODAY_SQL}))`
 
 export async function registrationWindow(competitionId: string, db: Knex = useDb()): Promise<RegistrationWindow> {
   const row = await db('competitions as c').where('c.id', competitionId).first(
@@ -316,7 +313,7 @@ const ENTRY_FIELDS = {
   pilotArmM: 'pilot_arm_m',
   copilotArmM: 'copilot_arm_m',
   ballastArmM: 'ballast_arm_m',
-} as const satisfies Record<keyof EntryBody, keyof EntryRow>
+} as const satisfies Record<Exclude<keyof EntryBody, 'privacyNoticeAccepted'>, keyof EntryRow>
 type EntryField = keyof typeof ENTRY_FIELDS
 const NUMERIC_FIELDS = new Set<EntryField>(['spanM', 'mtomKg', 'emptyMassKg', 'cgForwardLimitM', 'cgAftLimitM', 'pilotArmM', 'copilotArmM', 'ballastArmM'])
 
@@ -397,6 +394,9 @@ export async function createEntry(user: User, competitionId: string, body: Entry
       values[column] = v === undefined ? null : v
     }
     values.crew_names = body.crewNames ?? []
+    // The body confirmed the notice (the schema refuses it otherwise): record when, and which.
+    values.privacy_confirmed_at = trx.fn.now()
+    values.privacy_notice_version = await currentNoticeVersion(competitionId, trx)
     const [row] = await trx('entries').insert(values).returning('id')
     await audit(trx, {
       actorUserId: user.id, competitionId, action: 'entry.created', subjectType: 'entry', subjectId: row.id,

@@ -95,6 +95,46 @@ describe('EntryForm', () => {
     expect(sent).toMatchObject({ copilotName: null, datumDescription: null, emptyMassKg: 262.5, crewNames: ['Ray', 'Rita'], compId: 'KT', cgForwardLimitM: null })
   })
 
+  it('sends a new entry only with the privacy notice confirmed, and links to the competition’s notice', async () => {
+    const session = useSessionStore()
+    session.user = { id: 'u1', email: 'rosa@example.org', name: 'Rosa Pilot', isAdmin: false, emailVerified: true }
+    let sent: Record<string, unknown> | undefined
+    const form = await mountSuspended(EntryForm, {
+      props: { mode: 'create', competitionId: 'c-42', classes: [classes[0]!], submitLabel: 'Save', busyLabel: '…', action: async (body: unknown) => { sent = body as Record<string, unknown> } },
+    })
+    cleanups.push(() => {
+      form.unmount()
+      session.user = null
+    })
+    expect(form.get('[data-testid="entry-privacy-link"]').attributes('href')).toBe('/competitions/c-42/privacy')
+    await form.get('#entry-new-gliderType').setValue('Kestrel 15')
+    await form.get('#entry-new-registration').setValue('G-KTST')
+    await form.get('#entry-new-compId').setValue('kt')
+    await form.get('form').trigger('submit')
+    await flushPromises()
+    expect(sent).toBeUndefined()
+    expect(form.get('#entry-new-privacyNoticeAccepted-error').text()).toContain('tick the box to confirm it')
+    expect(form.get('#entry-new-privacyNoticeAccepted').attributes('aria-invalid')).toBe('true')
+
+    await form.get('#entry-new-privacyNoticeAccepted').setValue(true)
+    await form.get('form').trigger('submit')
+    await flushPromises()
+    expect(sent).toMatchObject({ privacyNoticeAccepted: true, compId: 'KT', pilotName: 'Rosa Pilot' })
+  })
+
+  it('has no privacy box when changing an entry, and sends no confirmation', async () => {
+    let sent: Record<string, unknown> | undefined
+    const form = await mountSuspended(EntryForm, {
+      props: { mode: 'edit', classes, initial, submitLabel: 'Save', busyLabel: '…', action: async (body: unknown) => { sent = body as Record<string, unknown> } },
+    })
+    cleanups.push(() => form.unmount())
+    expect(form.find('[data-testid="entry-privacy"]').exists()).toBe(false)
+    await form.get('form').trigger('submit')
+    await flushPromises()
+    expect(sent).toBeDefined()
+    expect(sent).not.toHaveProperty('privacyNoticeAccepted')
+  })
+
   it('refuses a required field left empty before sending anything', async () => {
     let called = false
     const form = await mountSuspended(EntryForm, {
