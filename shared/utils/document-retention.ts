@@ -5,9 +5,10 @@ import { addDays, dateInZone } from '../engine/dates'
 import type { IsoDate } from '../engine/types'
 import { DOCUMENT_KIND_LABELS, type DocumentKind } from '../constants/entries'
 import type { FileDeletionReason } from '../constants/files'
+import { PERSONAL_DOCUMENT_KINDS } from './document-access'
 
-/** Documents about the pilot rather than the glider: kept only for the competition's retention days. */
-export const MEDICAL_RETENTION_KINDS = ['licence', 'medical'] as const satisfies readonly DocumentKind[]
+/** Documents about the pilot rather than the glider (the need-to-know kinds): kept only for the competition's retention days. */
+export const MEDICAL_RETENTION_KINDS = PERSONAL_DOCUMENT_KINDS
 
 /** Days a replaced copy of any kind is kept once a newer copy of it was accepted. */
 export const SUPERSEDED_RETENTION_DAYS = 30

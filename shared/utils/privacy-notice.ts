@@ -5,12 +5,10 @@ import { addDays } from '../engine/dates'
 import type { IsoDate } from '../engine/types'
 import type { PrivacyNoticeFacts, PrivacyNoticeItem, PrivacyNoticeSection } from '../types/api-privacy'
 import { rulesOf } from './rules'
+import { SUPERSEDED_RETENTION_DAYS } from './document-retention'
 
 /** The date of the current wording; change it with the wording. */
 export const PRIVACY_NOTICE_REVISION = '2026-12-04'
-
-/** A superseded copy of any document is kept this long after its replacement is accepted. */
-export const SUPERSEDED_RETENTION_DAYS = 30
 
 const longDate = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' })
 const inWords = (day: string) => longDate.format(new Date(`${day}T00:00:00Z`))

@@ -94,8 +94,8 @@ async function asRole(email: string | null, paths: string[], settle?: (page: Pag
 const c = () => `/competitions/${competitionId}`
 
 describe('the CSP on every page of the demo walk', () => {
-  it('signed out: home, sign-in, sign-up, a tag page, an invitation page, a missing page', async () => {
-    await asRole(null, ['/', '/sign-in', '/sign-up', '/password/forgot', '/password/reset', '/verify-email', new URL(tagUrl).pathname, '/invitations/not-a-real-token', '/no-such-page'])
+  it('signed out: home, sign-in, sign-up, the privacy notices, a tag page, an invitation page, a missing page', async () => {
+    await asRole(null, ['/', '/sign-in', '/sign-up', '/password/forgot', '/password/reset', '/verify-email', '/privacy', `${c()}/privacy`, new URL(tagUrl).pathname, '/invitations/not-a-real-token', '/no-such-page'])
   }, 120_000)
 
   it('organiser: overview, set-up, people, payments, firmware, documents with a PDF in its frame, entries, tags, checks', async () => {
