@@ -10,6 +10,7 @@ import { MESSAGES } from '#shared/constants/messages'
 import type { DocumentRow } from '#shared/types/rows'
 import type { DocumentListResponse, DocumentQueueResponse, DocumentView, QueueDocumentView } from '#shared/types/files'
 import type { ReviewBody } from '#shared/schemas/files'
+import { decideDocumentFile, type DocumentReader } from '#shared/utils/document-access'
 import { fileDeletedNote } from '#shared/utils/document-retention'
 import { audit } from '#domain/audit/audit'
 import { dossierChanged, noteChangeAfterAcceptance } from '#domain/board/dossier-changed'
@@ -160,6 +161,8 @@ export async function reviewDocument(input: {
   competitionName: string
   documentId: string
   actorUserId: string
+  /** The reviewer as need to know sees them: nobody reviews a file they may not open. */
+  reader: DocumentReader
   body: ReviewBody
 }): Promise<DocumentView> {
   await useDb().transaction(async (trx) => {
@@ -168,6 +171,7 @@ export async function reviewDocument(input: {
       .forUpdate()
       .first()
     if (!doc) throw httpError(404, MESSAGES.queueDocumentNotFound)
+    if (!decideDocumentFile(doc.kind, input.reader).allowed) throw httpError(403, MESSAGES.personalDocumentReviewNeedToKnow)
     if (doc.status !== 'pending' || doc.superseded) throw httpError(409, MESSAGES.alreadyReviewed)
     const accepted = input.body.decision === 'accept'
     const reason = input.body.decision === 'reject' ? input.body.reason : null

@@ -182,6 +182,22 @@ describe('the file of each kind of document, for each caller', () => {
   })
 })
 
+describe('reviewing a medical or licence document', () => {
+  it('is refused to a site administrator who may not open it (403, still pending), allowed once they hold the scrutineer role', async () => {
+    const admin = await signedUpClient(baseUrl, 'Rita Reviewadmin')
+    await testDb()('users').where({ id: admin.user.id }).update({ is_admin: true })
+    const review = (kind: Kind) => admin.client.post(`/api/competitions/${competitionId}/documents/${documentIds[kind]}/review`, { decision: 'accept' })
+    const refused = await review('medical')
+    expect(refused.status).toBe(403)
+    expect(refused.body.message).toMatch(/scrutineer or organiser/)
+    expect((await testDb()('documents').where({ id: documentIds.medical }).first()).status).toBe('pending')
+    // The glider's papers are reviewed by any staff, administrators included (as before).
+    expect((await review('insurance')).status).toBe(200)
+    await testDb()('memberships').insert({ user_id: admin.user.id, competition_id: competitionId, role: 'scrutineer' })
+    expect((await review('medical')).status).toBe(200)
+  })
+})
+
 describe('what the lists tell the pages', () => {
   it('says who the caller is to the rule: the pilot, roles held, an administrator’s none', async () => {
     expect((await clients.pilot.get(docs())).body.fileAccess).toEqual({ isEntrant: true, rolesHeld: ['entrant'] })

@@ -1,5 +1,6 @@
 // POST /api/competitions/:competitionId/documents/:documentId/review — scrutineers and organisers.
-// { decision: 'accept' } or { decision: 'reject', reason }; a rejection e-mails the entrant.
+// { decision: 'accept' } or { decision: 'reject', reason }; a rejection e-mails the entrant. A medical
+// or licence document only by one who may open it (need to know: an administrator needs the role here).
 import { competitionDocumentParamsSchema, reviewBodySchema } from '#shared/schemas/files'
 import { reviewDocument } from '#domain/files/documents'
 
@@ -12,6 +13,7 @@ export default defineApiHandler(async (event) => {
     competitionName: access.competition.name,
     documentId,
     actorUserId: access.user.id,
+    reader: await documentReaderOf(access),
     body,
   })
   return { document }
