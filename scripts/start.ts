@@ -12,6 +12,7 @@ import { prepareDemoDatabase } from './lib/demo-db'
 import { playDemoDay } from './lib/demo-day'
 import { isPortFree, sleep } from './lib/net'
 import { filesKey, sessionPassword } from './lib/secrets'
+import { sealDemoFiles } from './lib/file-maintenance'
 import { startServices } from './lib/services'
 import { printSignIns } from './lib/sign-ins'
 
@@ -67,6 +68,8 @@ runMain(async () => {
   step(applied.length > 0 ? `Applied ${applied.length} migration(s): ${applied.join(', ')}` : 'The schema is up to date')
   const { seeded } = await seed(databaseUrl, false, password, filesSealKey)
   step(seeded ? 'Seeded the demo data' : 'Demo data already present (npm run seed:reset starts it over)')
+  const sealed = await sealDemoFiles(databaseUrl, filesSealKey)
+  if (sealed > 0) step(`Encrypted ${sealed} stored file${sealed === 1 ? '' : 's'} kept from before files were encrypted`)
 
   await ensureBuild()
   if (!(await isPortFree(port, host))) {

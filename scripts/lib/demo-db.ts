@@ -5,7 +5,7 @@ import { createHash } from 'node:crypto'
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { localDataDir, repoRoot, ScriptError, step } from './common'
-import { clusterUrl, createDatabase, ensureAppRole, ensurePostgresBinaries, initCluster, randomClusterPasswords, serverUserCanReach, startCluster, trustsConnections, upgradeTrustCluster } from './postgres'
+import { clusterUrl, createDatabase, ensureAppRole, ensurePostgresBinaries, giveAppOwnership, initCluster, randomClusterPasswords, serverUserCanReach, startCluster, trustsConnections, upgradeTrustCluster } from './postgres'
 import type { Cluster, ClusterPasswords } from './postgres'
 import { clusterPasswordsFile, readClusterPasswords, saveClusterPasswords } from './secrets'
 
@@ -91,6 +91,9 @@ export async function prepareDemoDatabase(): Promise<string> {
   if (trustsConnections(cluster)) {
     await upgradeTrustCluster(cluster, passwords, DEMO_DATABASE)
     step(`The demo database now asks every connection for a password (kept in ${clusterPasswordsFile}); the app connects as a role that is not a superuser`)
+  }
+  else {
+    await giveAppOwnership(cluster, passwords, DEMO_DATABASE)
   }
   return clusterUrl(cluster, passwords, DEMO_DATABASE)
 }

@@ -8,6 +8,7 @@ import fsDriver from 'unstorage/drivers/fs'
 import { createKnexConfig } from '../../knexfile'
 import { FileKeyError, fileKeyring, FILES_KEY_VARIABLE, FILES_OLD_KEYS_VARIABLE, type FileKeyring } from '../../server/domain/files/file-crypt'
 import { uploadsDriverFromEnv, type UploadsStore } from '../../server/domain/files/file-store'
+import { filesLeftUnderOlderKeys, rekeyFiles } from '../../server/domain/files/rekey'
 import { localDataDir, ScriptError, step } from './common'
 import { prepareDemoDatabase } from './demo-db'
 import { filesKey } from './secrets'
@@ -33,6 +34,31 @@ function keyringFor(ownDatabase: string | undefined): FileKeyring {
   }
 }
 
+function storeOf(chosen: ReturnType<typeof uploadsDriverFromEnv>): UploadsStore {
+  const folder = join(localDataDir, 'uploads')
+  return chosen
+    ? { storage: createStorage({ driver: chosen.driver }), folder: chosen.folder }
+    : { storage: createStorage({ driver: fsDriver({ base: folder }) }), folder }
+}
+
+/**
+ * For npm start: seals under `key` the demo's files stored before encryption (or under another
+ * key), so nothing readable stays on disk after an upgrade. Returns how many it sealed.
+ */
+export async function sealDemoFiles(url: string, key: string): Promise<number> {
+  const store = storeOf(uploadsDriverFromEnv(process.env))
+  const keyring = fileKeyring({ key, oldKeys: process.env[FILES_OLD_KEYS_VARIABLE] })
+  const db = knex(createKnexConfig(url))
+  try {
+    if (await filesLeftUnderOlderKeys(db, keyring.current!.id) === 0) return 0
+    return (await rekeyFiles(db, store, keyring)).moved
+  }
+  finally {
+    await db.destroy()
+    await store.storage.dispose()
+  }
+}
+
 /** Opens the database and the storage for one task and always closes the pool. */
 export async function withFileMaintenance(task: (m: FileMaintenance) => Promise<void>, options: { keys?: boolean } = {}): Promise<void> {
   const ownDatabase = process.env.NUXT_DATABASE_URL || process.env.DATABASE_URL
@@ -46,9 +72,7 @@ export async function withFileMaintenance(task: (m: FileMaintenance) => Promise<
     throw new ScriptError((error as Error).message)
   }
   const folder = join(localDataDir, 'uploads')
-  const store: UploadsStore = chosen
-    ? { storage: createStorage({ driver: chosen.driver }), folder: chosen.folder }
-    : { storage: createStorage({ driver: fsDriver({ base: folder }) }), folder }
+  const store = storeOf(chosen)
   step(`Files in ${chosen?.where ?? `the folder ${folder}`}${keyring ? `; key ${keyring.current!.id} (${FILES_KEY_VARIABLE})` : ''}`)
   const db = knex(createKnexConfig(url))
   try {

@@ -245,6 +245,31 @@ export function trustsConnections(cluster: Cluster): boolean {
 }
 
 /**
+ * Makes the app's role the owner of `database` and of every table, view, sequence, type and
+ * function of the app in it that it does not own yet (a cluster made before the role existed,
+ * where the superuser created them); migrations that replace a function need to own it.
+ * Idempotent and cheap when nothing is left to move, so the demo runs it at every start.
+ */
+export async function giveAppOwnership(cluster: Cluster, passwords: ClusterPasswords, database: string): Promise<void> {
+  assertIdentifier(database)
+  await psql(cluster, passwords, `ALTER DATABASE "${database}" OWNER TO ${APP_ROLE}`)
+  // Tables (with their indexes and owned sequences), views, free sequences, types and functions.
+  await psql(cluster, passwords, `DO $$ DECLARE r record; BEGIN
+    FOR r IN SELECT c.oid::regclass AS name FROM pg_class c JOIN pg_namespace n ON n.oid = c.relnamespace
+      WHERE n.nspname = 'public' AND c.relkind IN ('r', 'p', 'v', 'm', 'f', 'S') AND c.relowner <> '${APP_ROLE}'::regrole
+        AND NOT EXISTS (SELECT 1 FROM pg_depend d WHERE d.classid = 'pg_class'::regclass AND d.objid = c.oid AND d.deptype IN ('a', 'i'))
+    LOOP EXECUTE format('ALTER TABLE %s OWNER TO ${APP_ROLE}', r.name); END LOOP;
+    FOR r IN SELECT t.oid::regtype AS name FROM pg_type t JOIN pg_namespace n ON n.oid = t.typnamespace
+      WHERE n.nspname = 'public' AND t.typtype IN ('e', 'd') AND t.typowner <> '${APP_ROLE}'::regrole
+    LOOP EXECUTE format('ALTER TYPE %s OWNER TO ${APP_ROLE}', r.name); END LOOP;
+    FOR r IN SELECT p.oid::regprocedure AS name FROM pg_proc p JOIN pg_namespace n ON n.oid = p.pronamespace
+      WHERE n.nspname = 'public' AND p.proowner <> '${APP_ROLE}'::regrole
+        AND NOT EXISTS (SELECT 1 FROM pg_depend d WHERE d.classid = 'pg_proc'::regclass AND d.objid = p.oid AND d.deptype = 'e')
+    LOOP EXECUTE format('ALTER ROUTINE %s OWNER TO ${APP_ROLE}', r.name); END LOOP;
+  END $$`, database)
+}
+
+/**
  * Brings a running cluster made before passwords were required (`trust`, the app connecting
  * as the superuser `app`) to password authentication: `app` gets a password and stays the
  * superuser, the app's own role takes over `database` and everything in it, and pg_hba.conf
@@ -254,17 +279,7 @@ export async function upgradeTrustCluster(cluster: Cluster, passwords: ClusterPa
   assertIdentifier(database)
   await psql(cluster, passwords, `ALTER ROLE "${passwords.superuserName}" PASSWORD '${passwords.superuser}'`)
   await ensureAppRole(cluster, passwords)
-  await psql(cluster, passwords, `ALTER DATABASE "${database}" OWNER TO ${APP_ROLE}`)
-  // Tables (with their indexes and owned sequences), views, free sequences and types of the app.
-  await psql(cluster, passwords, `DO $$ DECLARE r record; BEGIN
-    FOR r IN SELECT c.oid::regclass AS name FROM pg_class c JOIN pg_namespace n ON n.oid = c.relnamespace
-      WHERE n.nspname = 'public' AND c.relkind IN ('r', 'p', 'v', 'm', 'f', 'S')
-        AND NOT EXISTS (SELECT 1 FROM pg_depend d WHERE d.classid = 'pg_class'::regclass AND d.objid = c.oid AND d.deptype IN ('a', 'i'))
-    LOOP EXECUTE format('ALTER TABLE %s OWNER TO ${APP_ROLE}', r.name); END LOOP;
-    FOR r IN SELECT t.oid::regtype AS name FROM pg_type t JOIN pg_namespace n ON n.oid = t.typnamespace
-      WHERE n.nspname = 'public' AND t.typtype IN ('e', 'd')
-    LOOP EXECUTE format('ALTER TYPE %s OWNER TO ${APP_ROLE}', r.name); END LOOP;
-  END $$`, database)
+  await giveAppOwnership(cluster, passwords, database)
   const hba = join(cluster.dataDir, 'pg_hba.conf')
   writeFileSync(hba, readFileSync(hba, 'utf8').replace(/\btrust(\s*)$/gm, 'scram-sha-256$1'))
   await runTool('Reloading PostgreSQL', cluster.binDir, 'pg_ctl', ['-D', cluster.dataDir, 'reload'])
