@@ -10,6 +10,7 @@ import type { Knex } from 'knex'
 import { seal, type FileKeyring } from '../server/domain/files/file-crypt'
 import { DOCUMENT_KIND_LABELS, type DocumentKind } from '../shared/constants/entries'
 import { takeOffMass } from '../shared/engine/weigh-in'
+import { isPersonalDocument } from '../shared/utils/document-access'
 import { DEMO_ENTRIES, DEMO_WEIGH_IN } from './demo-entries'
 
 const uploadsDir = () => process.env.NUXT_UPLOADS_DIR ?? resolve(dirname(fileURLToPath(import.meta.url)), '../.data/uploads')
@@ -79,7 +80,7 @@ export async function seedDemoDocuments(trx: Knex, competitionId: string, files:
       const id = randomUUID()
       const fileKeyId = writeSealed('documents', entry.id, id, data, files)
       minutes += 7
-      await trx('documents').insert({
+      const [inserted] = await trx('documents').insert({
         entry_id: entry.id,
         competition_id: competitionId,
         kind,
@@ -96,7 +97,21 @@ export async function seedDemoDocuments(trx: Knex, competitionId: string, files:
         reviewed_at: plan.status === 'pending' ? null : trx.raw(`now() - interval '2 days'`),
         uploaded_by: entry.entrant_user_id,
         uploaded_at: trx.raw(`now() - interval '20 days' + (? || ' minutes')::interval`, [String(minutes)]),
-      })
+      }).returning('id') as { id: string }[]
+      // The scrutineer opened each medical or licence file they reviewed: the pilot's record of
+      // openings is not empty in the demo (addresses from the documentation range, RFC 5737).
+      if (plan.status !== 'pending' && scrutineer && isPersonalDocument(kind)) {
+        await trx('document_views').insert({
+          document_id: inserted!.id,
+          entry_id: entry.id,
+          competition_id: competitionId,
+          document_kind: kind,
+          viewer_user_id: scrutineer.user_id,
+          viewer_role: 'scrutineer',
+          client_address: '192.0.2.41',
+          viewed_at: trx.raw(`now() - interval '2 days' - interval '3 minutes'`),
+        })
+      }
     }
   }
 }

@@ -73,9 +73,17 @@ export async function detectDocumentType(head: Uint8Array): Promise<DocumentMedi
   return found && (DOCUMENT_MEDIA_TYPES as readonly string[]).includes(found.mime) ? found.mime as DocumentMediaType : null
 }
 
-export async function listDocuments(entryId: string): Promise<DocumentListResponse> {
+/**
+ * A file's name often carries the pilot's name: it is told only to a reader who may open the
+ * file (need to know); the others read the kind, validity and review outcome.
+ */
+function forReader<T extends DocumentView>(view: T, reader: DocumentReader): T {
+  return decideDocumentFile(view.kind, reader).allowed ? view : { ...view, originalFilename: '' }
+}
+
+export async function listDocuments(entryId: string, reader: DocumentReader): Promise<DocumentListResponse> {
   const rows = await selectDocuments(useDb()).where('d.entry_id', entryId).orderBy('d.uploaded_at', 'desc').orderBy('d.id') as DocumentSelect[]
-  const views = rows.map(toView)
+  const views = rows.map(r => forReader(toView(r), reader))
   const order = Object.keys(DOCUMENT_KIND_LABELS)
   return {
     current: views.filter(v => !v.superseded).sort((a, b) => order.indexOf(a.kind) - order.indexOf(b.kind)),
@@ -137,7 +145,7 @@ export async function createDocument(input: {
   return toView(created)
 }
 
-export async function documentQueue(competitionId: string): Promise<DocumentQueueResponse> {
+export async function documentQueue(competitionId: string, reader: DocumentReader): Promise<DocumentQueueResponse> {
   const rows = await selectDocuments(useDb())
     .join('entries as e', 'e.id', 'd.entry_id')
     .select('e.comp_id', 'e.pilot_name', 'e.glider_type', 'e.registration')
@@ -146,7 +154,7 @@ export async function documentQueue(competitionId: string): Promise<DocumentQueu
     .orderBy('d.id') as (DocumentSelect & { comp_id: string, pilot_name: string, glider_type: string, registration: string })[]
   return {
     documents: rows.map((r): QueueDocumentView => ({
-      ...toView(r),
+      ...forReader(toView(r), reader),
       compId: r.comp_id,
       pilotName: r.pilot_name,
       gliderType: r.glider_type,

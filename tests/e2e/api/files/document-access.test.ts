@@ -208,6 +208,17 @@ describe('what the lists tell the pages', () => {
     expect(queue.body.fileAccess).toEqual({ isEntrant: false, rolesHeld: [] })
     expect((await clients.scrutineer.get(`/api/competitions/${competitionId}/documents/queue`)).body.fileAccess).toEqual({ isEntrant: false, rolesHeld: ['scrutineer'] })
   })
+
+  it('names a medical or licence file only to those who may open it (a file name often carries the pilot’s name)', async () => {
+    const names = async (client: ApiClient) => Object.fromEntries(((await client.get(docs())).body.current as { kind: string, originalFilename: string }[])
+      .map(d => [d.kind, d.originalFilename]))
+    // (an earlier test replaced the medical file with medical-2.pdf)
+    const medical = expect.stringMatching(/^medical(-\d)?\.pdf$/)
+    expect(await names(clients.pilot)).toMatchObject({ medical, licence: 'licence.pdf', insurance: 'insurance.pdf' })
+    expect(await names(clients.scrutineer)).toMatchObject({ medical, licence: 'licence.pdf' })
+    expect(await names(clients.director)).toMatchObject({ medical: '', licence: '', airworthiness: 'airworthiness.pdf', insurance: 'insurance.pdf' })
+    expect(await names(clients['site admin without a role'])).toMatchObject({ medical: '', licence: '', insurance: 'insurance.pdf' })
+  })
 })
 
 describe('the entry’s record of openings', () => {

@@ -6,5 +6,6 @@ import { documentQueue } from '#domain/files/documents'
 export default defineApiHandler(async (event) => {
   const { competitionId } = await validParams(event, competitionParamsSchema)
   const access = await requireRole(event, competitionId, ['scrutineer', 'organiser'])
-  return { ...await documentQueue(competitionId), fileAccess: await documentReaderOf(access) }
+  const reader = await documentReaderOf(access)
+  return { ...await documentQueue(competitionId, reader), fileAccess: reader }
 })

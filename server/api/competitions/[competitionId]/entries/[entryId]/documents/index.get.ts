@@ -6,5 +6,6 @@ import { listDocuments } from '#domain/files/documents'
 export default defineApiHandler(async (event) => {
   const { competitionId, entryId } = await validParams(event, entryParamsSchema)
   const access = await requireEntryAccess(event, competitionId, entryId, 'owner-or-staff')
-  return { ...await listDocuments(entryId), fileAccess: await documentReaderOf(access) }
+  const reader = await documentReaderOf(access)
+  return { ...await listDocuments(entryId, reader), fileAccess: reader }
 })
