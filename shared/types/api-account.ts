@@ -38,7 +38,11 @@ export interface AccountExport {
     igcFiles: Record<string, unknown>[]
     payments: (Record<string, unknown> & { refunds: Record<string, unknown>[] })[]
     findings: Record<string, unknown>[]
+    /** Who opened the entry's medical and licence files: name, role, kind, when. */
+    documentOpenings: { entry_id: string, document_id: string | null, document_kind: string, viewer_name: string, viewer_role: string, viewed_at: string }[]
   })[]
+  /** The medical and licence files this person opened as staff, with their address then. */
+  documentsOpened: { competition_id: string, entry_id: string, document_id: string | null, document_kind: string, viewer_role: string, client_address: string, viewed_at: string }[]
   messagesWritten: { id: string, competition_id: string, entry_id: string, from_office: boolean, body: string, created_at: string }[]
   sessions: { created_at: string, last_seen_at: string, revoked_at: string | null, user_agent: string | null, ip_address: string | null }[]
   auditLog: { id: string, at: string, actor_user_id: string | null, competition_id: string | null, action: string, subject_type: string, subject_id: string | null, details: Record<string, unknown> }[]

@@ -11,7 +11,8 @@ import { findingsByEntry } from '#domain/findings/findings'
 export const EXPORT_AUDIT_LIMIT = 20000
 
 const DOCUMENT_COLUMNS = ['id', 'entry_id', 'competition_id', 'kind', 'original_filename', 'media_type', 'size_bytes', 'sha256',
-  'expires_on', 'status', 'review_reason', 'reviewed_at', 'uploaded_at', 'superseded'] as const
+  'expires_on', 'status', 'review_reason', 'reviewed_at', 'uploaded_at', 'superseded', 'file_deleted_at', 'file_deleted_reason',
+  'file_kept_days'] as const
 const IGC_COLUMNS = ['id', 'entry_id', 'competition_id', 'unit_id', 'original_filename', 'sha256', 'size_bytes', 'flight_date',
   'pilot', 'copilot', 'glider_type', 'glider_id', 'declared_comp_id', 'declared_class', 'recorder_type', 'firmware_version',
   'recorder_id', 'extensions', 'has_g_record', 'uploaded_at', 'superseded'] as const
@@ -36,7 +37,7 @@ export async function exportAccount(userId: string, now = new Date()): Promise<A
       .select('e.*', 'c.name as competition_name', 'k.name as class_name')
     const entryIds = entries.map(e => e.id as string)
 
-    const [units, documents, igcFiles, payments, refunds, messages, sessions, auditRows] = await Promise.all([
+    const [units, documents, igcFiles, payments, refunds, messages, sessions, auditRows, openings, opened] = await Promise.all([
       trx('units').whereIn('entry_id', entryIds).orderBy('created_at'),
       trx('documents').whereIn('entry_id', entryIds).orderBy('uploaded_at').select(...DOCUMENT_COLUMNS),
       trx('igc_files').whereIn('entry_id', entryIds).orderBy('uploaded_at').select(...IGC_COLUMNS),
@@ -54,6 +55,12 @@ export async function exportAccount(userId: string, now = new Date()): Promise<A
           .orWhere(s => s.where('subject_type', 'entry').whereIn('subject_id', entryIds)))
         .orderBy('id', 'desc').limit(EXPORT_AUDIT_LIMIT)
         .select('id', 'at', 'actor_user_id', 'competition_id', 'action', 'subject_type', 'subject_id', 'details'),
+      // Who opened this person's medical and licence files (not from where: that is the viewer's).
+      trx('document_views as v').join('users as u', 'u.id', 'v.viewer_user_id').whereIn('v.entry_id', entryIds).orderBy('v.viewed_at')
+        .select('v.entry_id', 'v.document_id', 'v.document_kind', 'u.name as viewer_name', 'v.viewer_role', 'v.viewed_at'),
+      // The files this person opened as staff, with their own address.
+      trx('document_views').where({ viewer_user_id: userId }).orderBy('viewed_at')
+        .select('competition_id', 'entry_id', 'document_id', 'document_kind', 'viewer_role', 'client_address', 'viewed_at'),
     ])
 
     const competitions = [...new Set(entries.map(e => e.competition_id as string))]
@@ -64,7 +71,7 @@ export async function exportAccount(userId: string, now = new Date()): Promise<A
     }
 
     const unitsOf = byEntry(units), documentsOf = byEntry(documents), igcOf = byEntry(igcFiles)
-    const paymentsOf = byEntry(payments), refundsOf = byEntry(refunds)
+    const paymentsOf = byEntry(payments), refundsOf = byEntry(refunds), openingsOf = byEntry(openings)
     return {
       format: 'gridmark-account-export',
       version: 1,
@@ -78,7 +85,9 @@ export async function exportAccount(userId: string, now = new Date()): Promise<A
         igcFiles: igcOf.get(e.id) ?? [],
         payments: (paymentsOf.get(e.id) ?? []).map(p => ({ ...p, refunds: (refundsOf.get(e.id) ?? []).filter(r => r.payment_id === p.id) })),
         findings: findings.get(e.id) ?? [],
+        documentOpenings: openingsOf.get(e.id) ?? [],
       })),
+      documentsOpened: opened,
       messagesWritten: messages,
       sessions,
       auditLog: auditRows,

@@ -107,6 +107,10 @@ describe('GET /api/me/export', () => {
     const upload = await postForm(me.client, `/api/competitions/${competitionId}/entries/${mine}/documents`,
       { kind: 'insurance', expiresOn: '2027-12-31' }, { name: 'insurance.pdf', data: tinyPdf('Insurance'), type: 'application/pdf' })
     expect(upload.status).toBe(201)
+    const medical = await postForm(me.client, `/api/competitions/${competitionId}/entries/${mine}/documents`,
+      { kind: 'medical', expiresOn: '2027-12-31' }, { name: 'medical.pdf', data: tinyPdf('Medical'), type: 'application/pdf' })
+    expect(medical.status).toBe(201)
+    expect((await me.client.get(`/api/competitions/${competitionId}/entries/${mine}/documents/${medical.body.document.id}/file`)).status).toBe(200)
 
     const res = await me.client.get('/api/me/export')
     expect(res.status).toBe(200)
@@ -118,7 +122,14 @@ describe('GET /api/me/export', () => {
     expect(data.memberships).toEqual([expect.objectContaining({ competition_id: competitionId, role: 'entrant', competition_name: 'Export Cup' })])
     expect(data.entries.map((e: { id: string }) => e.id)).toEqual([mine])
     expect(data.entries[0]).toMatchObject({ comp_id: 'EX1', competition_name: 'Export Cup' })
-    expect(data.entries[0].documents).toEqual([expect.objectContaining({ kind: 'insurance', original_filename: 'insurance.pdf' })])
+    expect(data.entries[0].documents).toEqual([
+      expect.objectContaining({ kind: 'insurance', original_filename: 'insurance.pdf', file_deleted_at: null }),
+      expect.objectContaining({ kind: 'medical', original_filename: 'medical.pdf' }),
+    ])
+    // Who opened the pilot's medical file (here the pilot), without the viewer's address; and what they opened themselves.
+    expect(data.entries[0].documentOpenings).toEqual([expect.objectContaining({ document_kind: 'medical', viewer_name: 'Exporting Pilot', viewer_role: 'entrant' })])
+    expect(data.entries[0].documentOpenings[0].client_address).toBeUndefined()
+    expect(data.documentsOpened).toEqual([expect.objectContaining({ entry_id: mine, document_kind: 'medical', client_address: me.client.address })])
     expect(data.entries[0].documents[0].storage_key).toBeUndefined()
     expect(data.entries[0].findings.length).toBeGreaterThan(0)
     expect(data.sessions.length).toBeGreaterThan(0)
