@@ -79,7 +79,7 @@ export function competitionNoticeSections(f: PrivacyNoticeFacts): PrivacyNoticeS
       { term: 'IGC files', text: 'the files from your flight recorders, with the header they declare (pilot, glider, recorder).' },
       { term: 'Payments', text: 'amounts, their state, references and refunds. Card details go to the payment provider and never reach this site.' },
       { term: 'Grid checks', text: 'on each contest day the scrutineer’s checklist, weigh-ins with the masses, notes and outcome; the director’s holds, releases and waivers.' },
-      { term: 'Who opened your files', text: 'each time someone opens your licence or medical file: who, when and from which network address.' },
+      { term: 'Who opened your files', text: 'each time someone opens your licence or medical file: who, when and from which network address (the address goes when the file is deleted).' },
     ]),
     section('why', 'Why', [
       'To take and review your entry; to check before and during the contest that the glider, its units, the pilot’s licence and medical meet the competition’s rules; to reach you and your emergency contact on contest days; to collect the entry fee; and to keep a record of the office’s and the officials’ decisions that can be checked afterwards.',

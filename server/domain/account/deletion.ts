@@ -98,7 +98,11 @@ export async function deleteAccount(event: H3Event, user: User, input: AccountDe
     const entryIds = entries.map(e => e.id)
     const personal: { id: string, entry_id: string, competition_id: string, storage_key: string }[] = await trx('documents')
       .whereIn('entry_id', entryIds).whereIn('kind', PERSONAL_DOCUMENT_KINDS).select('id', 'entry_id', 'competition_id', 'storage_key')
-    if (personal.length) await trx('documents').whereIn('id', personal.map(d => d.id)).delete()
+    if (personal.length) {
+      // Who opened them and when stays on record; from where goes with the files (as on schedule).
+      await trx('document_views').whereIn('document_id', personal.map(d => d.id)).update({ client_address: '' })
+      await trx('documents').whereIn('id', personal.map(d => d.id)).delete()
+    }
     await trx('entries').whereIn('id', entryIds).update({
       pilot_name: DELETED_NAME, pilot_nationality: null, pilot_licence_number: null, pilot_phone: null, emergency_contact: null,
       updated_at: trx.fn.now(),

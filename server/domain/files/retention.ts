@@ -90,6 +90,8 @@ async function deleteFiles(reason: FileDeletionReason, keptDays: number, due: (t
         file_deleted_reason: reason,
         file_kept_days: keptDays,
       })
+      // The record that someone opened the file stays (who, when); where from goes with the file.
+      await trx('document_views').whereIn('document_id', rows.map(r => r.id)).update({ client_address: '' })
       await audit(trx, rows.map(r => ({
         actorUserId: null,
         competitionId: r.competition_id,

@@ -320,7 +320,7 @@ describe('a deleted account', () => {
     expect(gone.status).toBe(200)
     expect(await testDb()('documents').where({ id: up.body.document.id }).first()).toBeUndefined()
     expect(await viewRows({ entry_id: entry })).toEqual([
-      expect.objectContaining({ document_id: null, document_kind: 'medical', viewer_user_id: ids.scrutineer }),
+      expect.objectContaining({ document_id: null, document_kind: 'medical', viewer_user_id: ids.scrutineer, client_address: '' }),
     ])
   })
 })

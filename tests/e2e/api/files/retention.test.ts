@@ -149,6 +149,10 @@ describe('POST /api/admin/retention/run', () => {
     expect(gone.status).toBe(410)
     expect(JSON.parse(gone.data.toString()).message).toMatch(/^This file is no longer kept: it was deleted on the competition’s retention schedule\./)
     for (const kept of ['A2', 'I1', 'I2', 'M2', 'L1']) expect((await getBytes(pilot, fileOf(kept))).status).toBe(200)
+    // The pilot's openings of the medical and licence files are recorded with the address.
+    const openings = await testDb()('document_views').whereIn('document_id', [doc.M2!.id, doc.L1!.id])
+    expect(openings).toHaveLength(2)
+    expect(openings.every(v => v.client_address === pilot.address)).toBe(true)
     expect((await rowOf('M1')).file_deleted_reason).toBe('retention-superseded')
   })
 
@@ -167,6 +171,10 @@ describe('POST /api/admin/retention/run', () => {
     expect(storedFileCount('documents', entryA)).toBe(3)
     expect(storedFileCount('documents', entryB)).toBe(3)
     for (const gone of ['M2', 'L1', 'MB']) expect((await getBytes(organiser, fileOf(gone))).status).toBe(410)
+    // Who opened them and when stays on record; from where goes with the files.
+    const openings = await testDb()('document_views').whereIn('document_id', [doc.M2!.id, doc.L1!.id])
+    expect(openings.length).toBeGreaterThanOrEqual(2)
+    expect(openings.map(v => v.client_address)).toEqual(openings.map(() => ''))
     for (const kept of ['A2', 'I1', 'I2', 'B3', 'J1', 'J2']) expect((await getBytes(organiser, fileOf(kept))).status).toBe(200)
   })
 
