@@ -117,18 +117,26 @@ describe('a removed member’s sockets', () => {
     const control = await connect(second.url, onSecond(w.director.client))
     expect(await joinBoard(removed, w.competitionId)).toEqual({ ok: true, scope: 'staff' })
     expect(await joinBoard(control, w.competitionId)).toEqual({ ok: true, scope: 'staff' })
-    // Before: a check through the first instance reaches both.
-    const first = await w.scrutineer.client.post(`${w.base}/grid-checks`, checkBody(entryId))
-    expect(first.status).toBe(201)
-    const seen = await control.next('board:tile', e => e.entryId === entryId, 10_000)
-    expect((await removed.next('board:tile', e => e.seq === seen.seq)).entryId).toBe(entryId)
+    // Before: a check through the first instance reaches both. The second instance hears the
+    // first once its adapter LISTENs, which it sets up on its own after start: until a check
+    // through the first reaches it, another is sent (for at most 30 s).
+    const ready = Date.now() + 30_000
+    let seen: { seq: number } | undefined
+    while (!seen) {
+      const first = await w.scrutineer.client.post(`${w.base}/grid-checks`, checkBody(entryId))
+      expect(first.status).toBe(201)
+      seen = await control.next('board:tile', e => e.entryId === entryId, 3_000).catch(() => undefined)
+      if (!seen && Date.now() > ready) throw new Error(`The second instance never heard the first:\n${second.output()}`)
+    }
+    const seenSeq = seen.seq
+    expect((await removed.next('board:tile', e => e.seq === seenSeq)).entryId).toBe(entryId)
 
     await remove(remote.user.id, 'director')
 
     const { seq } = (await w.director.client.get(`${w.base}/board`)).body
     const res = await w.scrutineer.client.post(`${w.base}/grid-checks`, checkBody(entryId))
     expect(res.status).toBe(201)
-    const heard = await control.next('board:tile', e => e.entryId === entryId && e.seq > seq, 10_000)
+    const heard = await control.next('board:tile', e => e.entryId === entryId && e.seq > seq, 20_000)
     expect(heard.competitionId).toBe(w.competitionId)
     expect((await eventsSoFar(removed, 'board:tile')).filter(e => e.seq > seq)).toEqual([])
     expect(removed.socket.connected).toBe(true)
