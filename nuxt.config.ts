@@ -183,12 +183,20 @@ export default defineNuxtConfig({
     },
   },
 
+  // The grid app shell (utils/gridPageCache.ts): rendered without the server's data, so it
+  // carries no user's or competition's data and renders any grid page on the phone.
+  routeRules: {
+    '/grid-shell': { ssr: false },
+  },
+
   // The scrutineer's phone works on the grid without signal (../shared/STACK.md, "Offline with
   // @vite-pwa/nuxt in an SSR app"): the worker precaches the built assets and keeps the grid and
   // /t/ pages NetworkFirst, so a reload offline renders from the last copy. There is no SPA
   // index.html to fall back to (navigateFallback: null); every other page stays network-only.
   // plugins/grid-page-cache.client.ts puts pages opened before the worker took control, and
-  // in-app navigations, into the same cache.
+  // in-app navigations, into the same cache, with the grid app shell: a grid page never opened
+  // online (a grid check from the day's list, a tag link) gets the shell when there is no
+  // signal, and renders from the day's pack (middleware/auth.global.ts lets it, offline).
   pwa: {
     registerType: 'autoUpdate',
     manifest: {
@@ -215,6 +223,10 @@ export default defineNuxtConfig({
           networkTimeoutSeconds: 5,
           expiration: { maxEntries: 300, maxAgeSeconds: 60 * 60 * 24 * 30 },
           cacheableResponse: { statuses: [200] },
+          // No network and no copy of this page: the grid app shell, if kept.
+          plugins: [{
+            handlerDidError: async () => (await caches.match('/grid-shell', { cacheName: 'gridmark-grid-pages' })) ?? undefined,
+          }],
         },
       }],
     },

@@ -1,4 +1,5 @@
 import type { Role } from '#shared/constants/roles'
+import type { MeResponse } from '#shared/types/api'
 import type { PageAuth } from '~/utils/pageAccess'
 
 // Page access contract (definePageMeta):
@@ -16,18 +17,31 @@ declare module '#app' {
   }
 }
 
+/** The session kept on this phone, when the guard may go on with it; loaded only then, so no page carries it. */
+async function keptSessionOffline(path: string, status: number | undefined): Promise<MeResponse | null> {
+  if (!import.meta.client) return null
+  const { keptSessionFor } = await import('~/utils/keptSession')
+  return keptSessionFor(path, status)
+}
+
 export default defineNuxtRouteMiddleware(async (to) => {
   const session = useSessionStore()
   try {
     await session.load()
   }
-  catch {
-    return abortNavigation(createError({
-      status: 503,
-      statusText: 'Service Unavailable',
-      message: 'Gridmark cannot reach its server right now. Please try again in a moment.',
-      fatal: true,
-    }))
+  catch (error) {
+    // No answer at all: a launch-grid page may go on offline with the session kept on this
+    // phone when the day's pack is here too (utils/keptSession.ts); anything else cannot.
+    const kept = await keptSessionOffline(to.path, apiStatus(error))
+    if (!kept) {
+      return abortNavigation(createError({
+        status: 503,
+        statusText: 'Service Unavailable',
+        message: 'Gridmark cannot reach its server right now. Please try again in a moment.',
+        fatal: true,
+      }))
+    }
+    session.useKept(kept)
   }
 
   const decision = decidePageAccess({

@@ -1,27 +1,40 @@
+import { GRID_PAGE_CACHE, GRID_SHELL_PATH } from '~/utils/gridPageCache'
+
 // Puts the launch-grid pages into the worker's page cache (nuxt.config.ts, pwa.workbox): the
 // first page load happens before the worker takes control and in-app navigations never reach
 // it, so without this a reload with no signal would find nothing. Same cache name as the
 // worker's NetworkFirst rule; the worker then serves these copies when the network is gone.
-export const GRID_PAGE_CACHE = 'gridmark-grid-pages'
+// With the first grid page of a visit (when the day's pack comes) it also keeps the grid app
+// shell, which the worker serves for a grid check or tag link never opened online.
 const GRID_PAGE = /^\/competitions\/[^/]+\/grid(?:\/|$)|^\/t\//
 
 export default defineNuxtPlugin(() => {
   if (!('serviceWorker' in navigator) || !('caches' in window)) return
   const router = useRouter()
   const ready = navigator.serviceWorker.ready
+  // Kept again once per visit (it names this build's scripts) and whenever sign-out dropped it.
+  let shellFresh = false
+
+  async function put(path: string) {
+    try {
+      const cache = await caches.open(GRID_PAGE_CACHE)
+      const url = new URL(path, location.origin).toString()
+      const res = await fetch(url, { credentials: 'same-origin', headers: { accept: 'text/html' } })
+      if (res.ok && (res.headers.get('content-type') ?? '').includes('text/html')) await cache.put(url, res)
+      return res.ok
+    }
+    catch {
+      // No signal or storage full: the page simply is not kept this time.
+      return false
+    }
+  }
 
   async function keep(fullPath: string) {
     if (!GRID_PAGE.test(fullPath) || !navigator.onLine) return
     await ready
-    try {
-      const cache = await caches.open(GRID_PAGE_CACHE)
-      const url = new URL(fullPath, location.origin).toString()
-      const res = await fetch(url, { credentials: 'same-origin', headers: { accept: 'text/html' } })
-      if (res.ok && (res.headers.get('content-type') ?? '').includes('text/html')) await cache.put(url, res)
-    }
-    catch {
-      // No signal or storage full: the page simply is not kept this time.
-    }
+    await put(fullPath)
+    if (shellFresh && await caches.match(GRID_SHELL_PATH, { cacheName: GRID_PAGE_CACHE })) return
+    shellFresh = await put(GRID_SHELL_PATH)
   }
 
   void keep(router.currentRoute.value.fullPath)

@@ -2,9 +2,12 @@ import type { MeResponse, MembershipSummary, PublicUser } from '#shared/types/ap
 import type { Role } from '#shared/constants/roles'
 import type { SignInInput, SignUpInput } from '#shared/schemas/auth'
 import { effectiveRoles } from '#shared/utils/access'
+import { forgetGridPages } from '~/utils/gridPageCache'
 
 // Who is signed in and which competitions they belong to. Loaded once per page load from
 // /api/me (by middleware/auth.global.ts) and after each sign-in; the server stays the authority.
+// The phone keeps the last confirmed answer (utils/keptSession.ts) for opening the launch-grid
+// pages with no signal; `offline` says the answer shown is that kept one.
 export const useSessionStore = defineStore('session', () => {
   // On the server, a plain $fetch would not carry the browser's cookie to /api/me.
   const requestFetch = useRequestFetch()
@@ -12,6 +15,9 @@ export const useSessionStore = defineStore('session', () => {
   const user = ref<PublicUser | null>(null)
   const memberships = ref<MembershipSummary[]>([])
   const loaded = ref(false)
+  const offline = ref(false)
+  // What this app run last kept on the phone (so each page change does not write it again).
+  let keptAs: string | undefined
 
   const signedIn = computed(() => user.value !== null)
   const isAdmin = computed(() => user.value?.isAdmin === true)
@@ -20,18 +26,41 @@ export const useSessionStore = defineStore('session', () => {
     user.value = me?.user ?? null
     memberships.value = me?.memberships ?? []
     loaded.value = true
+    offline.value = false
   }
 
-  /** Loads /api/me; a 401 means signed out. Other failures are thrown for the caller to show. */
+  /** Keeps (or forgets) the server's answer on the phone, once per change; never from an offline copy. */
+  function remember() {
+    if (!import.meta.client || offline.value || !navigator.onLine) return
+    const key = JSON.stringify(user.value ? { user: user.value, memberships: memberships.value } : null)
+    if (key === keptAs) return
+    keptAs = key
+    const me = JSON.parse(key) as MeResponse | null
+    // Loaded apart (IndexedDB), after the page: no page waits for it.
+    void import('~/utils/keptSession').then(kept => (me ? kept.keepSession(me) : kept.forgetSession())).catch(() => {})
+  }
+
+  /**
+   * Loads /api/me; a 401 means signed out. Other failures are thrown for the caller to show.
+   * While the kept copy is in use, each call asks the server again.
+   */
   async function load(options: { force?: boolean } = {}) {
-    if (loaded.value && !options.force) return
-    try {
-      apply(await requestFetch<MeResponse>('/api/me'))
+    if (!loaded.value || offline.value || options.force) {
+      try {
+        apply(await requestFetch<MeResponse>('/api/me'))
+      }
+      catch (error) {
+        if (apiStatus(error) === 401) apply(null)
+        else throw error
+      }
     }
-    catch (error) {
-      if (apiStatus(error) === 401) apply(null)
-      else throw error
-    }
+    remember()
+  }
+
+  /** Goes on with the session kept on this phone (the page guard decided the server is out of reach). */
+  function useKept(me: MeResponse) {
+    apply(me)
+    offline.value = true
   }
 
   /** Roles held in a competition, as /api/me listed them. */
@@ -65,12 +94,15 @@ export const useSessionStore = defineStore('session', () => {
       // Forget the user (and every page's cached data) even if the server could not be reached.
       apply(null)
       clearNuxtData()
-      // Grid pages kept for offline use were rendered for this user; the next one must not see
-      // them. Grid checks still waiting to be sent stay on the phone (IndexedDB) and are sent
-      // when a scrutineer signs in again.
-      if (import.meta.client && 'caches' in window) await caches.delete('gridmark-grid-pages').catch(() => false)
+      // Grid pages kept for offline use were rendered for this user, and the kept session is
+      // theirs; the next one must see neither. Grid checks still waiting to be sent stay on the
+      // phone (IndexedDB) and are sent when a scrutineer signs in again.
+      if (import.meta.client) {
+        keptAs = undefined
+        await Promise.all([forgetGridPages(), import('~/utils/keptSession').then(kept => kept.forgetSession()).catch(() => {})])
+      }
     }
   }
 
-  return { user, memberships, loaded, signedIn, isAdmin, load, rolesIn, hasRole, signIn, signUp, signOut }
+  return { user, memberships, loaded, offline, signedIn, isAdmin, load, useKept, rolesIn, hasRole, signIn, signUp, signOut }
 })

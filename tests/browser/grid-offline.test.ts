@@ -38,7 +38,8 @@ describe('the launch grid offline', () => {
     const day = await page.getByTestId('grid-scanner').getAttribute('data-pack-day')
     expect(day).toMatch(/^\d{4}-\d{2}-\d{2}$/)
     // The page itself is in the worker's cache (put there by plugins/grid-page-cache.client.ts).
-    await page.waitForFunction(async () => (await (await caches.open('gridmark-grid-pages')).match(location.href)) !== undefined)
+    // Polled from here: waitForFunction would take the predicate's promise itself for a yes.
+    await expect.poll(() => page.evaluate(async () => (await (await caches.open('gridmark-grid-pages')).match(location.href)) !== undefined)).toBe(true)
 
     await browser.context.setOffline(true)
     await page.locator('[data-testid="sync-status"][data-online="false"]').waitFor()
