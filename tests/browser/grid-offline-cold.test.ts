@@ -9,9 +9,8 @@
 import { randomUUID } from 'node:crypto'
 import type { Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { GOOD_PASSWORD } from '../support/api'
 import { closeTestDb, createEntry } from '../support/db'
-import { launchBrowser, openPage, screenshot, signInThroughForm, waitForHydration, type Browser } from '../support/browser'
+import { launchBrowser, openLaunchGridForOffline, screenshot, waitForHydration, type Browser } from '../support/browser'
 import { entriesWorld, type EntriesWorld } from '../support/entries'
 
 const baseUrl = inject('baseUrl')
@@ -54,11 +53,7 @@ describe('a grid check from a cold link offline', () => {
   it('renders from the pack, keeps a check across a reload, sends it once, and keeps nothing after sign-out', async () => {
     const gridPath = `/competitions/${w.competitionId}/grid`
     const [ca, cb] = entries as [typeof entries[number], typeof entries[number]]
-    const page = await openPage(browser.context, baseUrl, '/sign-in', 'phone')
-    await signInThroughForm(page, baseUrl, w.scrutineer.email, GOOD_PASSWORD, gridPath)
-    await page.locator('[data-testid="grid-scanner"][data-ready="true"]').waitFor()
-    await page.waitForFunction(() => navigator.serviceWorker?.controller != null, undefined, { timeout: 30_000 })
-    const day = await page.getByTestId('grid-scanner').getAttribute('data-pack-day')
+    const { page, day } = await openLaunchGridForOffline(browser, baseUrl, w.scrutineer.email, w.competitionId)
     expect(day).toMatch(/^\d{4}-\d{2}-\d{2}$/)
     // The shell is kept beside the grid page, and the session the server confirmed. (Polled from
     // here: waitForFunction would take the predicate's promise itself for a yes.)

@@ -3,9 +3,8 @@
 // short codes, reloads the page still offline (it renders from the worker's cache and shows the
 // three waiting), and when the connection returns they are sent: exactly three stored, none twice.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { GOOD_PASSWORD } from '../support/api'
 import { closeTestDb, createEntry } from '../support/db'
-import { launchBrowser, openPage, screenshot, signInThroughForm, waitForHydration, type Browser } from '../support/browser'
+import { launchBrowser, openLaunchGridForOffline, screenshot, waitForHydration, type Browser } from '../support/browser'
 import { entriesWorld, type EntriesWorld } from '../support/entries'
 
 const baseUrl = inject('baseUrl')
@@ -31,15 +30,9 @@ afterAll(async () => {
 describe('the launch grid offline', () => {
   it('keeps three checks made offline across a reload and sends each exactly once when back online', async () => {
     const gridPath = `/competitions/${w.competitionId}/grid`
-    const page = await openPage(browser.context, baseUrl, '/sign-in', 'phone')
-    await signInThroughForm(page, baseUrl, w.scrutineer.email, GOOD_PASSWORD, gridPath)
-    await page.locator('[data-testid="grid-scanner"][data-ready="true"]').waitFor()
-    await page.waitForFunction(() => navigator.serviceWorker?.controller != null, undefined, { timeout: 30_000 })
-    const day = await page.getByTestId('grid-scanner').getAttribute('data-pack-day')
-    expect(day).toMatch(/^\d{4}-\d{2}-\d{2}$/)
     // The page itself is in the worker's cache (put there by plugins/grid-page-cache.client.ts).
-    // Polled from here: waitForFunction would take the predicate's promise itself for a yes.
-    await expect.poll(() => page.evaluate(async () => (await (await caches.open('gridmark-grid-pages')).match(location.href)) !== undefined)).toBe(true)
+    const { page, day } = await openLaunchGridForOffline(browser, baseUrl, w.scrutineer.email, w.competitionId)
+    expect(day).toMatch(/^\d{4}-\d{2}-\d{2}$/)
 
     await browser.context.setOffline(true)
     await page.locator('[data-testid="sync-status"][data-online="false"]').waitFor()

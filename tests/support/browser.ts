@@ -4,6 +4,7 @@ import { mkdir, mkdtemp, rm } from 'node:fs/promises'
 import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
 import { chromium, type BrowserContext, type Page } from 'playwright-core'
+import { expect } from 'vitest'
 import { GOOD_PASSWORD } from './api'
 
 declare module 'vitest' {
@@ -127,4 +128,20 @@ export async function openGridCheck(browser: Browser, baseUrl: string, email: st
   await page.goto(`${baseUrl}${gridPath}/${entryId}`)
   await page.locator('[data-testid="grid-check"][data-ready="true"]').waitFor()
   return page
+}
+
+/**
+ * A scrutineer's phone on the launch grid, online: signed in, the day's pack kept, the offline
+ * worker in control and the grid page in its cache. Returns the page and the pack's day.
+ */
+export async function openLaunchGridForOffline(browser: Browser, baseUrl: string, email: string, competitionId: string): Promise<{ page: Page, day: string }> {
+  const gridPath = `/competitions/${competitionId}/grid`
+  const page = await openPage(browser.context, baseUrl, '/sign-in', 'phone')
+  await signInThroughForm(page, baseUrl, email, GOOD_PASSWORD, gridPath)
+  await page.locator('[data-testid="grid-scanner"][data-ready="true"]').waitFor()
+  await page.waitForFunction(() => navigator.serviceWorker?.controller != null, undefined, { timeout: 30_000 })
+  const day = await page.getByTestId('grid-scanner').getAttribute('data-pack-day') ?? ''
+  // Polled from here: waitForFunction would take the predicate's promise itself for a yes.
+  await expect.poll(() => page.evaluate(async () => (await (await caches.open('gridmark-grid-pages')).match(location.href)) !== undefined)).toBe(true)
+  return { page, day }
 }
