@@ -319,7 +319,7 @@ async function latencyRun(opts: {
   const byKey = new Map<string, Submission>()
   const samplesOf = (sub: Submission) => (sub.solo ? run.solo : run.busy)
 
-  step(`Connecting ${nBoards} board screens and ${nPollers} polling screens in ${BOARD_BENCH.screenProcesses} processes`)
+  step(`Connecting ${nBoards} board screens and ${nPollers} polling screens in ${BOARD_BENCH.screenProcesses} process${BOARD_BENCH.screenProcesses === 1 ? '' : 'es'}`)
   const t0Connect = Date.now()
   const screens = await ScreenProcesses.start(BOARD_BENCH.screenProcesses, {
     baseUrl: opts.baseUrl,
@@ -663,7 +663,7 @@ function summarise(run: LatencyRun, snapshotMs: number, nBoards: number, nPoller
     `board bench: lost events: ${lostPush} pushed, ${lostPoll} polled; tile events out of order: ${run.outOfOrder}; screens dropped: ${run.disconnects}`,
     `board bench: before that, ${soloPost.length} checks one at a time: POST p50 ${ms(percentile(soloPost, 50))}, on the boards p50 ${ms(percentile(soloPush, 50))}, p95 ${ms(percentile(soloPush, 95))}`,
     `board bench: machine load (1-minute average, ${availableParallelism()} cores): ${run.load[0].toFixed(1)} when the busy run began, ${run.load[1].toFixed(1)} when it ended`,
-    `board bench: screens in ${run.screens.processes} processes; their event loops' worst delay p95 ${ms(run.screens.loopDelayP95Ms)}, max ${ms(run.screens.loopDelayMaxMs)}`,
+    `board bench: screens in ${run.screens.processes} process${run.screens.processes === 1 ? '' : 'es'}; their event loops' worst delay p95 ${ms(run.screens.loopDelayP95Ms)}, max ${ms(run.screens.loopDelayMaxMs)}`,
   ]
   const failed = lostPush > 0 || lostPoll > 0 || run.failures.length > 0 || recorded.length === 0 || run.disconnects > 0
   if (run.failures.length) {
