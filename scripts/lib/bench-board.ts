@@ -1,31 +1,32 @@
 // The live board under load, for `npm run bench`: a throwaway PostgreSQL cluster (as `npm
-// test` makes one), the built server, and in this process the screens and phones of a busy
-// morning on the grid.
+// test` makes one), the built server, and the screens and phones of a busy morning on the
+// grid — the phones in this process, the screens in processes of their own (bench-screens.ts).
 //
 //   latency    competition of 300 entries, today's day opened by its director. 200 board
 //              screens on socket.io and 20 polling screens (GET …/board every 2 s, each at its
 //              own phase) watch while 30 scrutineers each send a grid check every 4–8 s
 //              (jittered; GRIDMARK_BENCH_PACE=stress: every 1–2 s) for 30 s. For each check:
-//              from just before its POST to the moment
-//              each screen first shows the entry's tile carrying that check (matched on entry
-//              id and `lastCheck.at` = the check's `checkedAt`). Before that, 20 checks one at
-//              a time show what a check costs with no queue (reported apart, with the machine's
-//              load: other work on the machine shows in every figure).
+//              from just before its POST to the moment each screen first shows the entry's
+//              tile carrying that check (matched on entry id and `lastCheck.at` = the check's
+//              `checkedAt`), on the wall clock all processes of the machine share. Where that
+//              time went: the check's Server-Timing (arrival, auth, the board's lock, the
+//              writes, commit, emit, the push to every screen) and the screens' own delay.
+//              Before that, 20 checks one at a time show what a check costs with no queue
+//              (reported apart, with the machine's load: other work shows in every figure).
 //   snapshot   competition of 1,000 entries with its day open: GET …/board, the median of
 //              30 sequential requests after a warm-up, timed here on loopback.
 //
-// Everything it started (sockets, server, cluster, /tmp folder) is removed in every case,
-// Ctrl-C included. The clients keep their work small: a tile event is matched by one map
+// Everything it started (screens, server, cluster, /tmp folder) is removed in every case,
+// Ctrl-C included. The clients keep their work small: a tile event is noted by one set
 // look-up; a polled board is parsed once and only changed tiles are looked at.
-import { rmSync } from 'node:fs'
+import { readFileSync, rmSync } from 'node:fs'
 import { join } from 'node:path'
 import { performance } from 'node:perf_hooks'
 import { randomBytes, randomUUID } from 'node:crypto'
 import { availableParallelism, loadavg } from 'node:os'
 import knex from 'knex'
-import { io, type Socket } from 'socket.io-client'
 import { createKnexConfig } from '../../knexfile'
-import type { BoardJoinAck, BoardSnapshot, BoardTileEvent } from '../../shared/types/api-board'
+import type { BoardSnapshot } from '../../shared/types/api-board'
 import { startServer, type RunningServer } from '../../tests/support/server'
 import { BENCH_PASSWORD, benchToday, createBenchCompetition, createBenchUsers, type BenchUser } from './bench-data'
 import { ensureBuild } from './build'
@@ -33,6 +34,7 @@ import { formatDuration, ScriptError, step } from './common'
 import { migrate } from './db'
 import { clusterUrl, createDatabase, ensurePostgresBinaries, isClusterRunning, randomClusterPasswords, startThrowawayCluster, stopCluster, throwawayDir, type Cluster } from './postgres'
 import { randomSessionPassword } from './secrets'
+import { ScreenProcesses, type ScreensReport } from './bench-screens'
 
 const BENCH_DATABASE = 'gridmark_bench'
 
@@ -42,6 +44,12 @@ export const BOARD_BENCH = {
   boardClients: 200,
   pollingClients: 20,
   scrutineers: 30,
+  /**
+   * The screens' processes (the board and polling screens dealt out in turn): with the server,
+   * PostgreSQL and the phones on 2 cores, a few processes let a frame reach every screen without
+   * 200 decodes queueing in one event loop, and keep the screens off the phones' process.
+   */
+  screenProcesses: Number(process.env.GRIDMARK_BENCH_SCREEN_PROCESSES) || 4,
   /**
    * Each scrutineer waits 4–8 s (uniformly) between the end of one check and the start of the
    * next: about 5 checks a second from 30 scrutineers. A real grid check takes minutes (walk to
@@ -63,7 +71,7 @@ export const BOARD_BENCH = {
   snapshotRuns: 30,
 } as const
 
-export const TARGETS = { scanToBoardP95Ms: 50, boardSnapshot1000Ms: 20 } as const
+export const TARGETS = { scanToBoardP95Ms: 25, pushVsPollRatio: 60, boardSnapshot1000Ms: 20 } as const
 
 export interface BoardBenchResult {
   figures: { name: string, value: number, unit: string, digits: number }[]
@@ -188,14 +196,44 @@ function median(xs: number[]): number {
 // ---------------------------------------------------------------------------------------
 // The latency run
 
+/** The grid check's Server-Timing (server/utils/server-timing.ts): durations in ms, `start` on the server's wall clock. */
+interface ServerTiming {
+  start: number
+  auth: number
+  lock: number
+  write: number
+  commit: number
+  emit: number
+  push: number
+}
+
+function parseServerTiming(header: string | null): ServerTiming | undefined {
+  if (!header) return undefined
+  const t: Partial<ServerTiming> = {}
+  for (const part of header.split(',')) {
+    const [name, ...params] = part.trim().split(';')
+    for (const p of params) {
+      const [k, v] = p.split('=')
+      if (k === 'dur' || k === 'desc') t[name as keyof ServerTiming] = Number(v!.replace(/"/g, ''))
+    }
+  }
+  const keys: (keyof ServerTiming)[] = ['start', 'auth', 'lock', 'write', 'commit', 'emit', 'push']
+  return keys.every(k => Number.isFinite(t[k])) ? t as ServerTiming : undefined
+}
+
+/** The instant the server began pushing a check to its screens, on its wall clock. */
+const emitStartOf = (s: ServerTiming) => s.start + s.auth + s.lock + s.write + s.commit + s.emit
+
 interface Submission {
   entryId: string
+  /** Just before its POST, on the wall clock every process of the machine shares. */
   t0: number
   /** 201 once the server recorded it; anything else is a failed check. */
   status: number
   postMs: number
   /** Sent alone before the busy run (see `soloChecks`): counted apart. */
   solo: boolean
+  server?: ServerTiming
   pushSeen: Uint8Array
   pollSeen: Uint8Array
 }
@@ -206,39 +244,61 @@ interface Samples {
   post: number[]
 }
 
+/** Where a busy check's time went, one sample per check (per check and screen for `emitToClient`). */
+interface Breakdown {
+  postToServer: number[]
+  auth: number[]
+  lock: number[]
+  write: number[]
+  commit: number[]
+  serverToCommit: number[]
+  commitToEmit: number[]
+  emitLoop: number[]
+  emitToClient: number[]
+}
+
 interface LatencyRun {
   submissions: Submission[]
   busy: Samples
   solo: Samples
+  breakdown: Breakdown
   outOfOrder: number
   disconnects: number
   failures: string[]
   /** 1-minute load average of the machine when the busy run started and ended. */
   load: [number, number]
+  /** CPU time over the busy run, in % of one core: the server, the scrutineers' process, the screens' processes. */
+  cpu: { server: number, scrutineers: number, screens: number }
+  /** The screens' processes: their number, and the worst event-loop delay among them (p95, max). */
+  screens: { processes: number, loopDelayP95Ms: number, loopDelayMaxMs: number }
 }
 
 const SOLO_CHECKS = 20
 
-async function connectBoard(baseUrl: string, cookie: string, competitionId: string): Promise<Socket> {
-  const socket = io(baseUrl, { transports: ['websocket'], extraHeaders: { cookie }, reconnection: false, timeout: 20_000 })
-  await new Promise<void>((resolve, reject) => {
-    socket.once('connect', () => resolve())
-    socket.once('connect_error', error => reject(new ScriptError(`A board screen could not connect: ${error.message}`)))
-  })
-  const ack = await socket.timeout(20_000).emitWithAck('board:join', { competitionId }) as BoardJoinAck
-  if (!ack.ok || ack.scope !== 'staff') throw new ScriptError(`A board screen was not let in: ${JSON.stringify(ack)}`)
-  return socket
+const wallClockMs = () => performance.timeOrigin + performance.now()
+
+/** CPU time (user + system) of a process so far, in ms; NaN where /proc cannot tell. */
+function processCpuMs(pid: number): number {
+  try {
+    const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1]!.split(' ')
+    return ((Number(fields[11]) + Number(fields[12])) * 1000) / 100
+  }
+  catch {
+    return Number.NaN
+  }
 }
 
 async function latencyRun(opts: {
   baseUrl: string
+  serverPid: number
   competitionId: string
   entryIds: readonly string[]
   day: string
   boardCookies: readonly string[]
   pollers: readonly BenchClient[]
   scrutineers: readonly BenchClient[]
-  sockets: Socket[]
+  /** Set once the screens' processes run, so the caller can close them whatever happens. */
+  started: (screens: ScreenProcesses) => void
 }): Promise<LatencyRun> {
   const { competitionId, entryIds, day } = opts
   const nBoards = opts.boardCookies.length
@@ -248,37 +308,50 @@ async function latencyRun(opts: {
     submissions: [],
     busy: { push: [], poll: [], post: [] },
     solo: { push: [], poll: [], post: [] },
+    breakdown: { postToServer: [], auth: [], lock: [], write: [], commit: [], serverToCommit: [], commitToEmit: [], emitLoop: [], emitToClient: [] },
     outOfOrder: 0,
     disconnects: 0,
     failures: [],
     load: [0, 0],
+    cpu: { server: Number.NaN, scrutineers: Number.NaN, screens: Number.NaN },
+    screens: { processes: BOARD_BENCH.screenProcesses, loopDelayP95Ms: 0, loopDelayMaxMs: 0 },
   }
   const byKey = new Map<string, Submission>()
   const samplesOf = (sub: Submission) => (sub.solo ? run.solo : run.busy)
 
-  step(`Connecting ${nBoards} board screens`)
+  step(`Connecting ${nBoards} board screens and ${nPollers} polling screens in ${BOARD_BENCH.screenProcesses} process${BOARD_BENCH.screenProcesses === 1 ? '' : 'es'}`)
   const t0Connect = Date.now()
-  const sockets = await inBatches(opts.boardCookies, 20, cookie => connectBoard(opts.baseUrl, cookie, competitionId))
-  opts.sockets.push(...sockets)
-  console.log(`  ✓ ${sockets.length} screens joined the board (${formatDuration(Date.now() - t0Connect)})`)
-
-  sockets.forEach((socket, c) => {
-    let lastSeq = 0
-    socket.on('board:tile', (e: BoardTileEvent) => {
-      const now = performance.now()
-      if (e.seq <= lastSeq) run.outOfOrder++
-      else lastSeq = e.seq
-      const at = e.tile?.lastCheck?.at
-      if (!at) return
-      const sub = byKey.get(`${e.entryId}|${at}`)
-      if (!sub || sub.pushSeen[c]) return
-      sub.pushSeen[c] = 1
-      samplesOf(sub).push.push(now - sub.t0)
-    })
-    socket.on('disconnect', (reason) => {
-      if (reason !== 'io client disconnect') run.disconnects++
-    })
+  const screens = await ScreenProcesses.start(BOARD_BENCH.screenProcesses, {
+    baseUrl: opts.baseUrl,
+    competitionId,
+    pollIntervalMs: BOARD_BENCH.pollIntervalMs,
+    boards: [...opts.boardCookies],
+    pollers: opts.pollers.map(p => ({ cookie: p.cookie, address: p.address })),
   })
+  opts.started(screens)
+  console.log(`  ✓ ${nBoards} screens joined the board (${formatDuration(Date.now() - t0Connect)})`)
+
+  /** Takes in what the screens saw: each screen's first sight of each check. */
+  function absorb(reports: readonly ScreensReport[]): void {
+    for (const r of reports) {
+      run.outOfOrder += r.outOfOrder
+      run.disconnects += r.disconnects
+      run.failures.push(...r.failures)
+      for (const [key, c, at] of r.push) {
+        const sub = byKey.get(key)
+        if (!sub || sub.pushSeen[c]) continue
+        sub.pushSeen[c] = 1
+        samplesOf(sub).push.push(at - sub.t0)
+        if (!sub.solo && sub.server) run.breakdown.emitToClient.push(at - emitStartOf(sub.server))
+      }
+      for (const [key, p, at] of r.poll) {
+        const sub = byKey.get(key)
+        if (!sub || sub.solo || sub.pollSeen[p]) continue
+        sub.pollSeen[p] = 1
+        run.busy.poll.push(at - sub.t0)
+      }
+    }
+  }
 
   // One grid check: registered under its key before it is sent (a push may beat the answer).
   const lastChecked = new Float64Array(entryIds.length).fill(-Infinity)
@@ -303,18 +376,31 @@ async function latencyRun(opts: {
     const sub: Submission = { entryId, t0: 0, status: 0, postMs: 0, solo, pushSeen: new Uint8Array(nBoards), pollSeen: new Uint8Array(nPollers) }
     byKey.set(`${entryId}|${checkedAt}`, sub)
     run.submissions.push(sub)
-    sub.t0 = performance.now()
+    sub.t0 = wallClockMs()
     try {
       const res = await client.post(`${base}/grid-checks`, body)
       sub.status = res.status
       if (res.status !== 201) run.failures.push(`a grid check answered ${res.status}: ${await res.text()}`)
       else await res.arrayBuffer()
+      sub.server = parseServerTiming(res.headers.get('server-timing'))
     }
     catch (error) {
       run.failures.push(`a grid check failed: ${(error as Error).message}`)
     }
-    sub.postMs = performance.now() - sub.t0
+    sub.postMs = wallClockMs() - sub.t0
     samplesOf(sub).post.push(sub.postMs)
+    const s = sub.server
+    if (!solo && s && sub.status === 201) {
+      const b = run.breakdown
+      b.postToServer.push(s.start - sub.t0)
+      b.auth.push(s.auth)
+      b.lock.push(s.lock)
+      b.write.push(s.write)
+      b.commit.push(s.commit)
+      b.serverToCommit.push(s.auth + s.lock + s.write + s.commit)
+      b.commitToEmit.push(s.emit)
+      b.emitLoop.push(s.push)
+    }
     lastChecked[i] = performance.now()
     busy[i] = 0
   }
@@ -336,44 +422,13 @@ async function latencyRun(opts: {
     await pause(150)
   }
 
-  // Polling screens: the last check each has seen per entry, so only changed tiles are looked up.
-  const pollState = opts.pollers.map(() => new Map<string, string>())
-  async function poll(p: number): Promise<void> {
-    const res = await opts.pollers[p]!.get(`${base}/board`)
-    const text = await res.text()
-    const now = performance.now()
-    if (res.status !== 200) {
-      run.failures.push(`GET board answered ${res.status}`)
-      return
-    }
-    const seen = pollState[p]!
-    for (const tile of (JSON.parse(text) as BoardSnapshot).tiles) {
-      const at = tile.lastCheck?.at
-      if (!at || seen.get(tile.entryId) === at) continue
-      seen.set(tile.entryId, at)
-      const sub = byKey.get(`${tile.entryId}|${at}`)
-      if (!sub || sub.solo || sub.pollSeen[p]) continue
-      sub.pollSeen[p] = 1
-      run.busy.poll.push(now - sub.t0)
-    }
-  }
-  // Each screen has seen the board as it stood before the busy run.
-  await Promise.all(opts.pollers.map((_, p) => poll(p)))
-
-  let pollingOn = true
-  const pollers = opts.pollers.map(async (_, p) => {
-    // A random phase, then a fixed 2 s rhythm (a slow answer does not shift the next poll).
-    let next = performance.now() + Math.random() * BOARD_BENCH.pollIntervalMs
-    while (pollingOn && !interrupted) {
-      await pause(Math.max(0, next - performance.now()))
-      if (!pollingOn || interrupted) break
-      next += BOARD_BENCH.pollIntervalMs
-      await poll(p).catch(error => run.failures.push(`GET board failed: ${(error as Error).message}`))
-    }
-  })
+  // Each polling screen has seen the board as it stood before the busy run.
+  await screens.all('poll-once')
 
   step(`${opts.scrutineers.length} scrutineers checking for ${BOARD_BENCH.loadMs / 1000} s; ${nBoards} screens pushed to, ${nPollers} polling`)
   run.load[0] = loadavg()[0]!
+  await screens.all('busy')
+  const cpuAtStart = { server: processCpuMs(opts.serverPid), scrutineers: process.cpuUsage(), wall: performance.now() }
   const loadEnds = performance.now() + BOARD_BENCH.loadMs
   const [gapMin, gapMax] = BOARD_BENCH.checkGapMs
   const scrutineers = opts.scrutineers.map(async (client) => {
@@ -387,16 +442,27 @@ async function latencyRun(opts: {
   })
   await Promise.all(scrutineers)
   run.load[1] = loadavg()[0]!
+  const busyWallMs = performance.now() - cpuAtStart.wall
+  const mainCpu = process.cpuUsage(cpuAtStart.scrutineers)
+  run.cpu.server = (100 * (processCpuMs(opts.serverPid) - cpuAtStart.server)) / busyWallMs
+  run.cpu.scrutineers = (100 * (mainCpu.user + mainCpu.system) / 1000) / busyWallMs
 
   // Stragglers: pushed tiles may still be on their way, and every polling screen polls twice
   // more, so a check that never shows counts as lost rather than late.
   const loadDone = performance.now()
   const recorded = run.submissions.filter(s => s.status === 201)
-  while (!interrupted && performance.now() < loadDone + BOARD_BENCH.pushGraceMs && recorded.some(s => s.pushSeen.includes(0))) await pause(100)
+  for (;;) {
+    absorb(await screens.reports())
+    if (interrupted || performance.now() >= loadDone + BOARD_BENCH.pushGraceMs || !recorded.some(s => s.pushSeen.includes(0))) break
+    await pause(100)
+  }
   await pause(loadDone + 2 * BOARD_BENCH.pollIntervalMs + 500 - performance.now())
-  pollingOn = false
-  for (const wake of interruptWaiters) wake()
-  await Promise.all(pollers)
+  const last = await screens.reports('stop-polling')
+  absorb(last)
+  // The screens' CPU over the busy run and the grace after it, in % of one core each added up.
+  run.cpu.screens = last.reduce((sum, r) => sum + (100 * r.cpuMs) / r.wallMs, 0)
+  run.screens.loopDelayP95Ms = Math.max(...last.map(r => r.loopDelayP95Ms))
+  run.screens.loopDelayMaxMs = Math.max(...last.map(r => r.loopDelayMaxMs))
   return run
 }
 
@@ -449,7 +515,7 @@ export async function benchBoard(): Promise<BoardBenchResult> {
   let tempDir: string | undefined
   let cluster: Cluster | undefined
   let server: RunningServer | undefined
-  const sockets: Socket[] = []
+  let screens: ScreenProcesses | undefined
 
   const dbPasswords = randomClusterPasswords()
   try {
@@ -513,13 +579,16 @@ export async function benchBoard(): Promise<BoardBenchResult> {
       competitionId: data.live.id,
       entryIds: data.live.entryIds,
       day,
+      serverPid: server.pid,
       boardCookies: boards.map(b => b.cookie),
       pollers,
       scrutineers,
-      sockets,
+      started: (s) => {
+        screens = s
+      },
     })
     checkInterrupted()
-    for (const s of sockets) s.disconnect()
+    screens?.close()
 
     await timed(`day opened, ${BOARD_BENCH.snapshotEntries} tiles`, () => openDay(director, data.large.id))
     step(`Timing GET …/board on ${BOARD_BENCH.snapshotEntries} entries`)
@@ -529,7 +598,7 @@ export async function benchBoard(): Promise<BoardBenchResult> {
     return summarise(run, snapshot.ms, boards.length, pollers.length)
   }
   finally {
-    for (const s of sockets) s.disconnect()
+    screens?.close()
     try {
       await server?.stop()
     }
@@ -578,9 +647,11 @@ function summarise(run: LatencyRun, snapshotMs: number, nBoards: number, nPoller
     { name: 'polling_board_p95_ms', value: pollP95, unit: 'ms', digits: 1 },
     { name: 'push_vs_poll_ratio', value: pollP95 / p95, unit: 'x', digits: 1 },
     { name: 'board_snapshot_1000_ms', value: snapshotMs, unit: 'ms', digits: 1 },
+    ...breakdownFigures(run),
   ]
   const notes: string[] = []
   if (!(p95 <= TARGETS.scanToBoardP95Ms)) notes.push(`note: scan_to_board_p95_ms is ${p95.toFixed(1)} ms, above its target of ${TARGETS.scanToBoardP95Ms} ms`)
+  if (!(pollP95 / p95 >= TARGETS.pushVsPollRatio)) notes.push(`note: push_vs_poll_ratio is ${(pollP95 / p95).toFixed(1)}, below its target of ${TARGETS.pushVsPollRatio}`)
   if (!(snapshotMs <= TARGETS.boardSnapshot1000Ms)) notes.push(`note: board_snapshot_1000_ms is ${snapshotMs.toFixed(1)} ms, above its target of ${TARGETS.boardSnapshot1000Ms} ms`)
   if (lostPush > 0 || lostPoll > 0) notes.push('note: lost events must be 0')
   const ms = (x: number) => `${x.toFixed(1)} ms`
@@ -592,6 +663,7 @@ function summarise(run: LatencyRun, snapshotMs: number, nBoards: number, nPoller
     `board bench: lost events: ${lostPush} pushed, ${lostPoll} polled; tile events out of order: ${run.outOfOrder}; screens dropped: ${run.disconnects}`,
     `board bench: before that, ${soloPost.length} checks one at a time: POST p50 ${ms(percentile(soloPost, 50))}, on the boards p50 ${ms(percentile(soloPush, 50))}, p95 ${ms(percentile(soloPush, 95))}`,
     `board bench: machine load (1-minute average, ${availableParallelism()} cores): ${run.load[0].toFixed(1)} when the busy run began, ${run.load[1].toFixed(1)} when it ended`,
+    `board bench: screens in ${run.screens.processes} process${run.screens.processes === 1 ? '' : 'es'}; their event loops' worst delay p95 ${ms(run.screens.loopDelayP95Ms)}, max ${ms(run.screens.loopDelayMaxMs)}`,
   ]
   const failed = lostPush > 0 || lostPoll > 0 || run.failures.length > 0 || recorded.length === 0 || run.disconnects > 0
   if (run.failures.length) {
@@ -599,4 +671,38 @@ function summarise(run: LatencyRun, snapshotMs: number, nBoards: number, nPoller
     counts.push(`board bench: ${run.failures.length} failed requests, e.g. ${distinct.slice(0, 3).join(' | ')}`)
   }
   return { figures, notes, counts, failed }
+}
+
+/**
+ * Where the busy run's time went, as p50 and p95 of each part: the bench's POST reaching the
+ * server, the server to the commit (auth, the board's lock, the writes, the commit itself),
+ * commit to emit, the server's loop writing the tile to every screen, emit to a screen's
+ * handler; then the CPU of each side and the screens' event-loop delay.
+ */
+function breakdownFigures(run: LatencyRun): BoardBenchResult['figures'] {
+  const b = run.breakdown
+  const parts: [string, number[]][] = [
+    ['scan_post_to_server', b.postToServer],
+    ['scan_server_to_commit', b.serverToCommit],
+    ['scan_server_auth', b.auth],
+    ['scan_server_lock', b.lock],
+    ['scan_server_write', b.write],
+    ['scan_server_commit', b.commit],
+    ['scan_commit_to_emit', b.commitToEmit],
+    ['scan_emit_loop', b.emitLoop],
+    ['scan_emit_to_client', b.emitToClient],
+  ]
+  const figures: BoardBenchResult['figures'] = []
+  for (const [name, xs] of parts) {
+    const sorted = sortedSamples(xs)
+    figures.push({ name: `${name}_p50_ms`, value: percentile(sorted, 50), unit: 'ms', digits: 2 })
+    figures.push({ name: `${name}_p95_ms`, value: percentile(sorted, 95), unit: 'ms', digits: 2 })
+  }
+  figures.push(
+    { name: 'bench_screens_loop_delay_p95_ms', value: run.screens.loopDelayP95Ms, unit: 'ms', digits: 2 },
+    { name: 'cpu_server_pct', value: run.cpu.server, unit: '%', digits: 0 },
+    { name: 'cpu_bench_scrutineers_pct', value: run.cpu.scrutineers, unit: '%', digits: 0 },
+    { name: 'cpu_bench_screens_pct', value: run.cpu.screens, unit: '%', digits: 0 },
+  )
+  return figures
 }

@@ -8,6 +8,7 @@ import type { Knex } from 'knex'
 import type { IsoDate } from '#shared/engine'
 import type { BoardSeq } from '#shared/types/api-board'
 import { useDb } from '#server/utils/db'
+import { markTiming } from '#server/utils/server-timing'
 import { BoardChanges } from '#domain/realtime/changes'
 import { publishBoardChanges } from '#domain/realtime/realtime'
 
@@ -35,6 +36,7 @@ export function boardChangesOf(trx: Knex.Transaction): BoardChanges {
     changes = mine
     collected.set(root, mine)
     root.executionPromise.then(() => {
+      markTiming('commit')
       if (!mine.empty) publishBoardChanges(mine)
     }, () => { /* rolled back: nothing happened */ })
   }
@@ -43,7 +45,11 @@ export function boardChangesOf(trx: Knex.Transaction): BoardChanges {
 
 /** Runs `work` in one transaction with the board changes it collects (pushed after commit). */
 export async function boardTransaction<T>(work: (trx: Knex.Transaction, changes: BoardChanges) => Promise<T>, db: Knex = useDb()): Promise<T> {
-  return db.transaction(trx => work(trx, boardChangesOf(trx)))
+  return db.transaction(async (trx) => {
+    const result = await work(trx, boardChangesOf(trx))
+    markTiming('write')
+    return result
+  })
 }
 
 // ---------------------------------------------------------------------------------------

@@ -27,6 +27,7 @@ import { type CompetitionDossiers, type DossierPartRow, dossiersOf, dossierState
 import { iso, num } from '#domain/read-model/values'
 import { useDb } from '#server/utils/db'
 import { fieldError, httpError } from '#server/utils/errors'
+import { markTiming } from '#server/utils/server-timing'
 import { gridCheckTimeProblem, gridDayAllowed, todayIn } from '#shared/utils/grid-days'
 import { initialsOf } from '#shared/utils/initials'
 import { rulesOf } from '#shared/utils/rules'
@@ -295,6 +296,7 @@ export async function recordGridCheck(
       `gridmark:grid-check:${body.idempotencyKey.toLowerCase()}`,
       boardLockKey(competition.id),
     ])
+    markTiming('lock')
     // Then, in one statement: a check stored earlier under this key; the entry's dossier (as
     // the board reads an entry of this competition); the director's actions that count today;
     // whether the day is open on the board (opening and closing take the lock we hold); and

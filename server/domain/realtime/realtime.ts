@@ -7,6 +7,7 @@
 //   user:<userId>                       every socket of one person, moved out of the rooms
 //                                       of a competition when their role there is removed
 import type { Server } from 'socket.io'
+import { markTiming } from '#server/utils/server-timing'
 import type { BoardChanges } from './changes'
 
 let io: Server | null = null
@@ -48,7 +49,9 @@ export function publishBoardChanges(changes: BoardChanges): void {
     ...changes.tiles.map(e => ({ seq: e.seq, room: boardRoom(e.competitionId), name: 'board:tile', payload: e as object })),
   ].sort((a, b) => a.seq - b.seq).map(({ room, name, payload }) => ({ room, name, payload }))
   for (const n of changes.entrants) deliveries.push({ room: entrantRoom(n.event.competitionId, n.userId), name: 'entry:readiness', payload: n.event })
+  markTiming('emit')
   deliverLocally(deliveries)
+  markTiming('push')
   io.serverSideEmit(RELAY_EVENT, deliveries)
 }
 

@@ -59,7 +59,7 @@ const LAYERS: readonly (readonly string[])[] = [
 ]
 const layerOf = (area: string) => LAYERS.findIndex(l => l.includes(area))
 
-const ROUTE_KIT = ['authz.ts', 'client-address.ts', 'compression.ts', 'csv-upload.ts', 'db.ts', 'errors.ts', 'same-origin.ts', 'site-url.ts', 'uploads.ts', 'validation.ts']
+const ROUTE_KIT = ['authz.ts', 'client-address.ts', 'compression.ts', 'csv-upload.ts', 'db.ts', 'errors.ts', 'same-origin.ts', 'server-timing.ts', 'site-url.ts', 'uploads.ts', 'validation.ts']
 
 const domainFiles = filesUnder('server/domain')
 const kitFiles = filesUnder('server/utils')

@@ -58,8 +58,18 @@ describe('a grid check on an open day', () => {
     expect(tileOf(before, ids[0]!)).toMatchObject({ readiness: 'unchecked', lastCheck: null })
 
     const body = checkBody(ids[0]!)
+    const sentAt = performance.timeOrigin + performance.now()
     const res = await w.scrutineer.client.post(`${w.base}/grid-checks`, body)
+    const answeredAt = performance.timeOrigin + performance.now()
     expect(res.status).toBe(201)
+    // Where its time went, step by step (the bench splits scan to board with it), and its
+    // arrival on the server's wall clock, the same machine's as ours.
+    const timing = res.headers.get('server-timing')!.split(', ').map(p => p.split(';'))
+    expect(timing.map(([name]) => name)).toEqual(['auth', 'lock', 'write', 'commit', 'emit', 'push', 'start'])
+    for (const [, dur] of timing.slice(0, -1)) expect(Number(dur!.replace('dur=', ''))).toBeGreaterThanOrEqual(0)
+    const arrival = Number(timing.at(-1)![1]!.replace(/^desc="|"$/g, ''))
+    expect(arrival).toBeGreaterThan(sentAt - 5)
+    expect(arrival).toBeLessThan(answeredAt + 5)
     const after = await board()
     const tile = tileOf(after, ids[0]!)
     expect(tile).toMatchObject({
