@@ -72,6 +72,11 @@ export default defineNuxtConfig({
     removeLoggers: false,
   },
 
+  // The app reads the session through its own store (GET /api/me, stores/session.ts); the
+  // module's app plugins would fetch it once more in every server render and ship their code
+  // to every page. Its server routes and helpers stay.
+  auth: { loadStrategy: 'none' },
+
   css: [
     '@fontsource/barlow/400.css',
     '@fontsource/barlow/500.css',
@@ -238,7 +243,23 @@ export default defineNuxtConfig({
     strict: true,
   },
 
+  // Every component is a <script setup>: Vue's Options API support is left out of the bundle.
+  vite: {
+    vue: { features: { optionsAPI: false } },
+  },
+
+  // Nothing is fetched ahead of need on a weak signal (issue "On the field", the JavaScript
+  // budget): a link loads its page's code when touched or focused, not when it scrolls into
+  // view, and the server's HTML names no chunk for later (`prefetch`), such as the camera
+  // scanner's library. The offline worker still precaches every chunk once it is installed.
+  experimental: {
+    defaults: { nuxtLink: { prefetchOn: { visibility: false, interaction: true } } },
+  },
+
   hooks: {
+    'build:manifest'(manifest) {
+      for (const chunk of Object.values(manifest)) chunk.prefetch = false
+    },
     // With Nitro's websockets on, nuxt-auth-utils adds a server plugin that reads the session on
     // every request (for crossws handlers, which we do not use: the board's socket handshake
     // reads the session itself, server/plugins/socket-io.ts). It cost every request a key

@@ -9,17 +9,43 @@
 //           20 polling screens, and GET …/board of 1,000 entries. Targets: p95 ≤ 25 ms from
 //           scan to board (and where that time goes), a push-to-poll ratio ≥ 60, ≤ 20 ms
 //           for the snapshot.
+//   pages   The demo on a throwaway database and the built server (scripts/lib/bench-pages.ts):
+//           the gzipped JavaScript each of five pages loads until the network is idle, and
+//           Lighthouse's mobile performance and accessibility scores (two runs, the better
+//           kept). Budgets: landing 100 KB, grid and grid check 150 KB, board 120 KB; targets:
+//           performance ≥ 90, accessibility 100. `npm run bench -- pages` runs this section alone.
 //
 // Prints one `name: value unit` line per figure, a note under a figure that misses its target,
 // and the counts of the board run (checks, samples, lost events). Exit code 1 when the board
 // run itself went wrong (lost events, failed requests), 130 when interrupted.
 import { performance } from 'node:perf_hooks'
 import { benchBoard, benchInterrupted, type BoardBenchResult } from './lib/bench-board'
+import { benchPages, pagesBenchInterrupted, type PagesBenchResult } from './lib/bench-pages'
 import { reportError } from './lib/common'
 import { DEFAULT_RULES } from '../shared/schemas/competition'
 import { buildField } from '../shared/engine/field'
 import { evaluate } from '../shared/engine/evaluate'
 import type { CompetitionForEngine, Dossier, EngineUnit } from '../shared/engine/types'
+
+/** The page section's figures, or its error; printed after the board's. */
+async function pagesSection(): Promise<boolean> {
+  let pages: PagesBenchResult | undefined
+  try {
+    pages = await benchPages()
+  }
+  catch (error) {
+    reportError(error)
+  }
+  console.log('')
+  if (!pages) console.error('bench: the page figures could not be taken (see above)')
+  for (const line of [...pages?.lines ?? [], ...pages?.notes ?? []]) console.log(line)
+  return pages !== undefined
+}
+
+if (process.argv[2] === 'pages') {
+  const ok = await pagesSection()
+  process.exit(pagesBenchInterrupted() ? 130 : ok ? 0 : 1)
+}
 
 const ENTRIES = 1000
 const CLASSES = [
@@ -152,4 +178,5 @@ else {
   reportError(boardError)
   console.error('bench: the board figures could not be taken (see above)')
 }
-process.exit(benchInterrupted() ? 130 : board && !board.failed ? 0 : 1)
+const pagesOk = benchInterrupted() ? false : await pagesSection()
+process.exit(benchInterrupted() || pagesBenchInterrupted() ? 130 : board && !board.failed && pagesOk ? 0 : 1)

@@ -1,4 +1,4 @@
-import { shortCodeSchema } from '#shared/schemas/tags'
+import { normaliseShortCode, shortCodeProblem } from '#shared/utils/short-code'
 import type { GridPack } from '#shared/types/api-grid'
 import type { ResolvedTag } from '#shared/types/api-tags'
 import { packEntryByCode, packEntryByToken, tagTokenOf } from './gridTag'
@@ -58,9 +58,10 @@ export async function resolveGridScan(competitionId: string, text: string, pack:
 
 /** A typed short code (case, spaces and dashes do not matter). */
 export async function resolveGridCode(competitionId: string, input: string, pack: GridPack | null, online: boolean): Promise<GridResolution> {
-  const parsed = shortCodeSchema.safeParse(input)
-  if (!parsed.success) return { ok: false, kind: 'not-a-tag', message: parsed.error.issues[0]?.message ?? GRID_UI_MESSAGES.notATag }
-  const code = parsed.data
+  // The same rule as the server's shortCodeSchema, without loading zod on the grid page.
+  const code = normaliseShortCode(input)
+  const problem = shortCodeProblem(code)
+  if (problem) return { ok: false, kind: 'not-a-tag', message: problem }
   const offline = fromPack(pack, async p => packEntryByCode(p, code), GRID_UI_MESSAGES.unknownCodeOffline)
   if (!online) return offline()
   return fromServer(competitionId, `/api/competitions/${encodeURIComponent(competitionId)}/tags/by-code/${encodeURIComponent(code)}`, pack, offline)

@@ -1,4 +1,4 @@
-import { TAG_TOKEN_PATTERN, normaliseShortCode } from '#shared/schemas/tags'
+import { TAG_TOKEN_PATTERN, normaliseShortCode } from '#shared/utils/short-code'
 import type { GridPack, GridPackEntry } from '#shared/types/api-grid'
 
 // Reading what the camera decoded or the scrutineer typed, and finding the entry in the day's

@@ -1,5 +1,5 @@
 import type { Role } from '#shared/constants/roles'
-import { MESSAGES } from '#shared/constants/messages'
+import { ACCESS_MESSAGES } from '#shared/constants/messages-access'
 import { decideAccess } from '#shared/utils/access'
 
 export type PageAuth = 'user' | 'guest' | 'public'
@@ -41,7 +41,7 @@ export function decidePageAccess(target: PageAccessTarget, viewer: PageViewer): 
   const roles = target.roles ?? []
   if (roles.length === 0) return { kind: 'allow' }
   const competitionId = typeof target.params.competitionId === 'string' ? target.params.competitionId : ''
-  if (!competitionId) return { kind: 'deny', status: 404, message: MESSAGES.competitionNotFound }
+  if (!competitionId) return { kind: 'deny', status: 404, message: ACCESS_MESSAGES.competitionNotFound }
 
   const decision = decideAccess({ user: viewer.user, competitionExists: true, rolesHeld: viewer.rolesIn(competitionId) }, roles)
   return decision.allowed ? { kind: 'allow' } : { kind: 'deny', status: decision.status, message: decision.message }

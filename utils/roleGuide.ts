@@ -1,13 +1,8 @@
 import type { Role } from '#shared/constants/roles'
+import { roleLinkTo, type RoleLink } from './roleLinks'
 
 // What each role does in a competition and where it goes next, in the product's own words.
 // A role with no page of its own to start from points at its duties on the competition overview.
-export interface RoleLink {
-  label: string
-  /** Path below /competitions/<id>, or an absolute path when it starts with '~' (e.g. '~/entries'). */
-  path: string
-}
-
 export interface RoleGuide {
   /** One line for the home page card. */
   next: string
@@ -20,8 +15,6 @@ export interface RoleGuide {
   /** The role's pages, linked at the top of the competition overview (CompetitionPages). */
   links: RoleLink[]
 }
-
-export const ROLE_ORDER: readonly Role[] = ['organiser', 'director', 'scrutineer', 'entrant']
 
 export const ROLE_GUIDE: Record<Role, RoleGuide> = {
   organiser: {
@@ -101,45 +94,6 @@ export const ROLE_GUIDE: Record<Role, RoleGuide> = {
       { label: 'Rulebook', path: '/checks' },
     ],
   },
-}
-
-/**
- * The header's links per role in each competition held: the page a role works from, and its
- * second most used. Entrants have none here: "My entries" serves every competition at once.
- */
-export const HEADER_LINKS: Record<Role, RoleLink[]> = {
-  organiser: [
-    { label: 'Entries', path: '/entries' },
-    { label: 'Set-up', path: '/setup' },
-  ],
-  director: [
-    { label: 'Readiness board', path: '/board' },
-    { label: 'Contest days', path: '/days' },
-  ],
-  scrutineer: [
-    { label: 'Launch grid', path: '/grid' },
-    { label: 'Document review', path: '/documents' },
-  ],
-  entrant: [],
-}
-
-/** The header links of one competition for the roles held there, once each, in role order. */
-export function headerLinksOf(competitionId: string, roles: readonly Role[]): { label: string, to: string }[] {
-  const seen = new Set<string>()
-  return sortRoles(roles)
-    .flatMap(role => HEADER_LINKS[role])
-    .filter(link => !seen.has(link.path) && seen.add(link.path))
-    .map(link => ({ label: link.label, to: roleLinkTo(competitionId, link.path) }))
-}
-
-export function sortRoles(roles: readonly Role[]): Role[] {
-  return ROLE_ORDER.filter(r => roles.includes(r))
-}
-
-/** The address of a role link in one competition. */
-export function roleLinkTo(competitionId: string, path: string): string {
-  if (path.startsWith('~')) return path.slice(1)
-  return `/competitions/${competitionId}${path}`
 }
 
 /** Where a role's call to action goes in one competition. */

@@ -17,18 +17,16 @@ import { CROSS_SITE_MESSAGES } from './messages-cross-site'
 import { RETENTION_MESSAGES } from './messages-retention'
 import { DOCUMENTS_ACCESS_MESSAGES } from './messages-documents-access'
 import { PRIVACY_MESSAGES } from './messages-privacy'
+import { ACCESS_MESSAGES } from './messages-access'
 
 export const MESSAGES = {
   invalidInput: 'Some fields need attention.',
   invalidJson: 'The request body is not valid JSON.',
-  notSignedIn: 'Please sign in to continue.',
   sessionEnded: 'Your session has ended. Please sign in again.',
   badCredentials: 'That e-mail address and password do not match an account.',
   emailTaken: 'An account with this e-mail address already exists. Sign in instead, or use another address.',
   tooManyAttempts: (minutes: number) =>
     `Too many sign-in attempts. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`,
-  competitionNotFound: 'No such competition, or you are not part of it.',
-  roleRequired: (roles: string) => `This needs the ${roles} role in this competition.`,
   adminRequired: 'Only a site administrator can do this.',
   notFound: 'Nothing was found at this address.',
   entryNotFound: 'No such entry in this competition, or it is not yours.',
@@ -84,6 +82,7 @@ export const MESSAGES = {
   ...RETENTION_MESSAGES,
   ...DOCUMENTS_ACCESS_MESSAGES,
   ...PRIVACY_MESSAGES,
+  ...ACCESS_MESSAGES,
 
   // --- The tracking list and the glider report (the office's paperwork) ---
   trackingStaffOnly: 'The tracking list is for the competition’s organisers, scrutineers and contest director: it lists every glider’s radio IDs.',

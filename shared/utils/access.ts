@@ -2,7 +2,7 @@
 // Pure, so it is unit-tested on its own and runs the same on server and client.
 import type { Role } from '../constants/roles'
 import { ROLE_LABELS } from '../constants/roles'
-import { MESSAGES } from '../constants/messages'
+import { ACCESS_MESSAGES } from '../constants/messages-access'
 
 export type AccessDecision =
   | { allowed: true, roles: Role[] }
@@ -22,15 +22,15 @@ export interface AccessInput {
  * competitions reveal nothing; a member lacking the role gets 403 naming the role needed.
  */
 export function decideAccess(input: AccessInput, allowed: readonly Role[] | 'any'): AccessDecision {
-  if (!input.user) return { allowed: false, status: 401, message: MESSAGES.notSignedIn }
-  if (!input.competitionExists) return { allowed: false, status: 404, message: MESSAGES.competitionNotFound }
+  if (!input.user) return { allowed: false, status: 401, message: ACCESS_MESSAGES.notSignedIn }
+  if (!input.competitionExists) return { allowed: false, status: 404, message: ACCESS_MESSAGES.competitionNotFound }
 
   const roles = effectiveRoles(input.rolesHeld, input.user.isAdmin)
-  if (roles.length === 0) return { allowed: false, status: 404, message: MESSAGES.competitionNotFound }
+  if (roles.length === 0) return { allowed: false, status: 404, message: ACCESS_MESSAGES.competitionNotFound }
   if (allowed === 'any' || roles.some(r => allowed.includes(r))) return { allowed: true, roles }
 
   const names = allowed.map(r => ROLE_LABELS[r].toLowerCase()).join(' or ')
-  return { allowed: false, status: 403, message: MESSAGES.roleRequired(names) }
+  return { allowed: false, status: 403, message: ACCESS_MESSAGES.roleRequired(names) }
 }
 
 export function effectiveRoles(rolesHeld: readonly Role[], isAdmin: boolean): Role[] {

@@ -118,7 +118,9 @@ describe('the CSP on every page of the demo walk', () => {
       await signInThroughForm(page, baseUrl, 'scrutineer@gridmark.example', DEMO_PASSWORD)
       await visit(page, w, ['/', c(), `${c()}/documents`, `${c()}/firmware`])
       await gotoApp(page, baseUrl, `${c()}/grid`)
-      await page.waitForURL(url => url.pathname === `${c()}/grid/${entrantEntryId}`, { timeout: 30_000 })
+      // The camera (and the scanner's library) starts only when asked.
+      await page.getByTestId('open-camera').click()
+      await page.waitForURL(url => url.pathname === `${c()}/grid/${entrantEntryId}`, { timeout: 60_000 })
       await page.locator('[data-testid="grid-check"][data-ready="true"]').waitFor()
       expect(new URL(page.url()).searchParams.get('foundBy')).toBe('scan')
       // The offline worker registered under the policy.

@@ -33,17 +33,34 @@ afterAll(async () => {
 const gridPath = () => `/competitions/${w.competitionId}/grid`
 
 describe('scanning a tag on the grid', () => {
-  it('the camera decodes the tag and the glider’s grid check screen opens', async () => {
+  it('the camera decodes the tag and the glider’s grid check screen opens; its library loads only when the camera is opened', async () => {
     const browser = await launchBrowser({ args: await fakeCameraArgs(tagUrl) })
     browsers.push(browser)
     const page = await openPage(browser.context, baseUrl, '/sign-in', 'phone')
+    // Every script the page fetches, and whether it is the scanner's library (its own name is in it).
+    const scripts: { url: string, scanner: Promise<boolean> }[] = []
+    page.on('response', (response) => {
+      if (response.request().resourceType() !== 'script') return
+      scripts.push({ url: response.url(), scanner: response.text().then(t => t.includes('html5-qrcode'), () => false) })
+    })
     await signInThroughForm(page, baseUrl, w.scrutineer.email, GOOD_PASSWORD, gridPath())
-    await page.waitForURL(url => url.pathname === `${gridPath()}/${entryId}`, { timeout: 30_000 })
+    await page.locator('[data-testid="grid-scanner"][data-ready="true"]').waitFor()
+    expect(await page.getByTestId('tag-scanner').getAttribute('data-state')).toBe('idle')
+    const before = scripts.length
+    expect(before).toBeGreaterThan(0)
+    expect(await Promise.all(scripts.map(s => s.scanner))).not.toContain(true)
+
+    await page.getByTestId('open-camera').click()
+    // The library (about 375 KB before gzip) is fetched and parsed now, then the camera starts and
+    // decodes about a second of frames: generous under a loaded CI machine.
+    await page.waitForURL(url => url.pathname === `${gridPath()}/${entryId}`, { timeout: 60_000 })
+    const after = await Promise.all(scripts.slice(before).map(s => s.scanner))
+    expect(after).toContain(true)
     expect(new URL(page.url()).searchParams.get('foundBy')).toBe('scan')
     await page.getByTestId('grid-check-cid').waitFor()
     expect((await page.getByTestId('grid-check-cid').textContent())?.trim()).toBe('GS')
     expect(await page.locator('h1').count()).toBe(1)
-  })
+  }, 120_000)
 
   it('typing the short code opens the same screen; a check with a weigh-in shows its outcome and is stored', async () => {
     const browser = await launchBrowser()

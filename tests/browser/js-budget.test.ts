@@ -1,0 +1,64 @@
+// The JavaScript budget (issue "On the field", item 1): before anyone touches it, each page loads
+// at most its budget of gzipped script — the launch grid and a grid check 150 KB, the board
+// 120 KB, the landing page 100 KB — counted cold, every script until the network is idle
+// (tests/support/js-weight.ts, the same count `npm run bench` prints). A size, not a time.
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
+import { closeTestDb } from '../support/db'
+import { launchBrowser, type Browser } from '../support/browser'
+import { gridEntry, gridWorld, type GridWorld } from '../support/grid'
+import { JS_BUDGET_KB, measurePageJs } from '../support/js-weight'
+
+const baseUrl = inject('baseUrl')
+
+let w: GridWorld
+let entryId: string
+const browsers: Browser[] = []
+beforeAll(async () => {
+  w = await gridWorld(baseUrl, 'Browser Budget Cup')
+  entryId = await gridEntry(w, { compId: 'JB' })
+  const opened = await w.director.client.post(`${w.base}/days`, { kind: 'practice' })
+  expect([200, 201]).toContain(opened.status)
+})
+afterAll(async () => {
+  for (const b of browsers) await b.close()
+  await closeTestDb()
+})
+
+/**
+ * The page opened in a fresh browser (nothing cached), signed in with `cookie` when given; it
+ * must show `shown` (the page itself, not a sign-in or error page that weighs less).
+ */
+async function weigh(path: string, shown: string, cookie?: string) {
+  const browser = await launchBrowser()
+  browsers.push(browser)
+  if (cookie) {
+    const [name, ...value] = cookie.split('=')
+    await browser.context.addCookies([{ name: name!, value: value.join('='), url: baseUrl }])
+  }
+  const page = await browser.context.newPage()
+  const weight = await measurePageJs(page, new URL(path, baseUrl).toString())
+  expect(await page.locator(shown).count()).toBe(1)
+  return weight
+}
+
+describe('gzipped JavaScript before first interaction', () => {
+  it('the landing page stays within 100 KB', async () => {
+    const weight = await weigh('/', 'h1:has-text("Every glider on the grid")')
+    expect(weight.gzKb, JSON.stringify(weight.scripts)).toBeLessThanOrEqual(JS_BUDGET_KB.landing)
+  })
+
+  it('the launch grid stays within 150 KB, without the camera scanner', async () => {
+    const weight = await weigh(`/competitions/${w.competitionId}/grid`, '[data-testid="grid-scanner"][data-ready="true"]', w.scrutineer.client.cookie)
+    expect(weight.gzKb, JSON.stringify(weight.scripts)).toBeLessThanOrEqual(JS_BUDGET_KB.grid)
+  })
+
+  it('a grid check stays within 150 KB', async () => {
+    const weight = await weigh(`/competitions/${w.competitionId}/grid/${entryId}`, '[data-testid="grid-check-cid"]', w.scrutineer.client.cookie)
+    expect(weight.gzKb, JSON.stringify(weight.scripts)).toBeLessThanOrEqual(JS_BUDGET_KB.grid_check)
+  })
+
+  it('the board stays within 120 KB', async () => {
+    const weight = await weigh(`/competitions/${w.competitionId}/board`, '[data-testid="board"]', w.director.client.cookie)
+    expect(weight.gzKb, JSON.stringify(weight.scripts)).toBeLessThanOrEqual(JS_BUDGET_KB.board)
+  })
+})
