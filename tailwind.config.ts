@@ -57,6 +57,8 @@ export default {
         caution: { DEFAULT: token('caution'), soft: token('caution-soft') },
         held: { DEFAULT: token('held'), soft: token('held-soft') },
         unchecked: { DEFAULT: token('unchecked'), soft: token('unchecked-soft') },
+        // Board tiles: four clearly different brightnesses, so the states part even in grey.
+        tile: { caution: token('tile-caution'), unchecked: token('tile-unchecked') },
       },
       fontFamily: {
         sans: ['Barlow', ...defaultTheme.fontFamily.sans],

@@ -112,7 +112,7 @@ describe('the readiness board', () => {
     await page.locator(`[data-testid="board-tile"][data-entry-id="${target}"][data-readiness="${readiness}"]`).waitFor({ timeout: 1000 })
     expect(Date.now() - answeredAt).toBeLessThan(1000)
     expect(await tileOf(page, target).getAttribute('data-changed')).toBe('true')
-    expect(await tileOf(page, target).getByTestId('board-tile-check').textContent()).toMatch(/\d\d:\d\d · SS/)
+    expect(await tileOf(page, target).getByTestId('board-tile-check').textContent()).toMatch(/\d\d:\d\d by S\. Scrutineer/)
     await screenshot(page, 'board-wall')
 
     // The highlight is brief.
