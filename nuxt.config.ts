@@ -215,6 +215,10 @@ export default defineNuxtConfig({
       icons: [{ src: '/favicon.svg', sizes: 'any', type: 'image/svg+xml', purpose: 'any' }],
     },
     workbox: {
+      // Registered by plugins/grid-page-cache.client.ts (registerPlugin: false below); a new
+      // build's worker takes over at once, as the module's own register plugin would have it.
+      skipWaiting: true,
+      clientsClaim: true,
       navigateFallback: null,
       globPatterns: ['**/*.{js,css,woff2,svg,webmanifest}'],
       cleanupOutdatedCaches: true,
@@ -235,7 +239,7 @@ export default defineNuxtConfig({
         },
       }],
     },
-    client: { installPrompt: true, periodicSyncForUpdates: 0 },
+    client: { registerPlugin: false, installPrompt: false, periodicSyncForUpdates: 0 },
     devOptions: { enabled: false },
   },
 

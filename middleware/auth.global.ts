@@ -27,7 +27,7 @@ async function keptSessionOffline(path: string, status: number | undefined): Pro
 export default defineNuxtRouteMiddleware(async (to) => {
   const session = useSessionStore()
   try {
-    await session.load()
+    await session.load({ path: to.path })
   }
   catch (error) {
     // No answer at all: a launch-grid page may go on offline with the session kept on this

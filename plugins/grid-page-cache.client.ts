@@ -6,12 +6,25 @@ import { GRID_PAGE_CACHE, GRID_SHELL_PATH } from '~/utils/gridPageCache'
 // worker's NetworkFirst rule; the worker then serves these copies when the network is gone.
 // With the first grid page of a visit (when the day's pack comes) it also keeps the grid app
 // shell, which the worker serves for a grid check or tag link never opened online.
+// It also registers the worker (nuxt.config.ts, pwa.client.registerPlugin: false), on the first
+// grid page or tag link of a visit: only the scrutineer's phone needs it, and the other pages
+// (the wall board, the landing page) carry no worker library and fetch no precache.
 const GRID_PAGE = /^\/competitions\/[^/]+\/grid(?:\/|$)|^\/t\//
 
 export default defineNuxtPlugin(() => {
   if (!('serviceWorker' in navigator) || !('caches' in window)) return
   const router = useRouter()
   const ready = navigator.serviceWorker.ready
+  let registered = false
+
+  function register() {
+    if (registered) return
+    registered = true
+    navigator.serviceWorker.register('/sw.js', { scope: '/' }).catch(() => {
+      // Not allowed here (no https, private mode): the grid works online only.
+      registered = false
+    })
+  }
   // Kept again once per visit (it names this build's scripts) and whenever sign-out dropped it.
   let shellFresh = false
 
@@ -31,6 +44,7 @@ export default defineNuxtPlugin(() => {
 
   async function keep(fullPath: string) {
     if (!GRID_PAGE.test(fullPath) || !navigator.onLine) return
+    register()
     await ready
     await put(fullPath)
     if (shellFresh && await caches.match(GRID_SHELL_PATH, { cacheName: GRID_PAGE_CACHE })) return

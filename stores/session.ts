@@ -3,6 +3,10 @@ import type { Role } from '#shared/constants/roles'
 import type { SignInInput, SignUpInput } from '#shared/schemas/auth'
 import { effectiveRoles } from '#shared/utils/access'
 import { forgetGridPages } from '~/utils/gridPageCache'
+import { offlinePageOf } from '~/utils/pageAccess'
+
+/** localStorage: the id of the user whose session utils/keptSession.ts keeps on this phone. */
+const KEPT_FOR = 'gridmark-session-kept-for'
 
 // Who is signed in and which competitions they belong to. Loaded once per page load from
 // /api/me (by middleware/auth.global.ts) and after each sign-in; the server stays the authority.
@@ -29,22 +33,40 @@ export const useSessionStore = defineStore('session', () => {
     offline.value = false
   }
 
-  /** Keeps (or forgets) the server's answer on the phone, once per change; never from an offline copy. */
-  function remember() {
+  /**
+   * Keeps the server's answer on the phone while on a launch-grid page or tag link (where it
+   * is used offline), and forgets a kept one as soon as the answer is nobody or someone else;
+   * never from an offline copy. Elsewhere the storage code is not even fetched: a note in
+   * localStorage says whose session is kept.
+   */
+  function remember(path?: string) {
     if (!import.meta.client || offline.value || !navigator.onLine) return
-    const key = JSON.stringify(user.value ? { user: user.value, memberships: memberships.value } : null)
-    if (key === keptAs) return
-    keptAs = key
-    const me = JSON.parse(key) as MeResponse | null
-    // Loaded apart (IndexedDB), after the page: no page waits for it.
-    void import('~/utils/keptSession').then(kept => (me ? kept.keepSession(me) : kept.forgetSession())).catch(() => {})
+    const keptFor = localStorage.getItem(KEPT_FOR)
+    const me: MeResponse | null = user.value ? { user: user.value, memberships: memberships.value } : null
+    if (me && path && offlinePageOf(path)) {
+      const key = JSON.stringify(me)
+      if (key === keptAs) return
+      keptAs = key
+      localStorage.setItem(KEPT_FOR, me.user.id)
+      // Loaded apart (IndexedDB), after the page: no page waits for it.
+      void import('~/utils/keptSession').then(kept => kept.keepSession(JSON.parse(key) as MeResponse)).catch(() => {})
+    }
+    else if (keptFor !== null && keptFor !== me?.user.id) {
+      forgetKept()
+    }
+  }
+
+  function forgetKept(): Promise<void> {
+    keptAs = undefined
+    localStorage.removeItem(KEPT_FOR)
+    return import('~/utils/keptSession').then(kept => kept.forgetSession()).catch(() => {})
   }
 
   /**
    * Loads /api/me; a 401 means signed out. Other failures are thrown for the caller to show.
    * While the kept copy is in use, each call asks the server again.
    */
-  async function load(options: { force?: boolean } = {}) {
+  async function load(options: { force?: boolean, path?: string } = {}) {
     if (!loaded.value || offline.value || options.force) {
       try {
         apply(await requestFetch<MeResponse>('/api/me'))
@@ -54,7 +76,7 @@ export const useSessionStore = defineStore('session', () => {
         else throw error
       }
     }
-    remember()
+    remember(options.path)
   }
 
   /** Goes on with the session kept on this phone (the page guard decided the server is out of reach). */
@@ -98,8 +120,7 @@ export const useSessionStore = defineStore('session', () => {
       // theirs; the next one must see neither. Grid checks still waiting to be sent stay on the
       // phone (IndexedDB) and are sent when a scrutineer signs in again.
       if (import.meta.client) {
-        keptAs = undefined
-        await Promise.all([forgetGridPages(), import('~/utils/keptSession').then(kept => kept.forgetSession()).catch(() => {})])
+        await Promise.all([forgetGridPages(), forgetKept()])
       }
     }
   }
