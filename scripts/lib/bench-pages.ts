@@ -142,7 +142,8 @@ async function debuggableChromium(): Promise<{ port: number, stop: () => Promise
       await Promise.race([exited, new Promise(resolve => setTimeout(resolve, 5000))])
       if (child.exitCode === null && child.signalCode === null) child.kill('SIGKILL')
     }
-    rmSync(profile, { recursive: true, force: true })
+    // Chromium's helper processes may still be writing into the profile for a moment after it exits.
+    rmSync(profile, { recursive: true, force: true, maxRetries: 10, retryDelay: 200 })
   }
   const deadline = Date.now() + 30_000
   for (;;) {
