@@ -181,6 +181,9 @@ export default defineNuxtConfig({
 
   nitro: {
     experimental: { websocket: true },
+    // Scripts, styles and fonts are stored gzipped and brotli-compressed beside the originals and
+    // served compressed to browsers that accept it: a third of the bytes on a weak signal.
+    compressPublicAssets: { gzip: true, brotli: true },
     // Uploaded documents and IGC files; server/plugins/uploads-storage.ts can swap in an
     // S3-compatible bucket at run time.
     storage: {
