@@ -17,13 +17,18 @@ export default defineNuxtPlugin(() => {
   const ready = navigator.serviceWorker.ready
   let registered = false
 
+  // After the page has loaded and the phone is idle: the worker's install fetches every script
+  // of the app, which must not compete with the page the scrutineer is waiting for.
   function register() {
     if (registered) return
     registered = true
-    navigator.serviceWorker.register('/sw.js', { scope: '/' }).catch(() => {
+    const go = () => navigator.serviceWorker.register('/sw.js', { scope: '/' }).catch(() => {
       // Not allowed here (no https, private mode): the grid works online only.
       registered = false
     })
+    const whenIdle = () => ('requestIdleCallback' in window ? requestIdleCallback(() => void go(), { timeout: 3000 }) : setTimeout(() => void go(), 500))
+    if (document.readyState === 'complete') whenIdle()
+    else window.addEventListener('load', whenIdle, { once: true })
   }
   // Kept again once per visit (it names this build's scripts) and whenever sign-out dropped it.
   let shellFresh = false
