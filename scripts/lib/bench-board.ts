@@ -19,7 +19,7 @@
 // Everything it started (screens, server, cluster, /tmp folder) is removed in every case,
 // Ctrl-C included. The clients keep their work small: a tile event is noted by one set
 // look-up; a polled board is parsed once and only changed tiles are looked at.
-import { readFileSync, rmSync } from 'node:fs'
+import { readFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { performance } from 'node:perf_hooks'
 import { randomBytes, randomUUID } from 'node:crypto'
@@ -29,10 +29,11 @@ import { createKnexConfig } from '../../knexfile'
 import type { BoardSnapshot } from '../../shared/types/api-board'
 import { startServer, type RunningServer } from '../../tests/support/server'
 import { BENCH_PASSWORD, benchToday, createBenchCompetition, createBenchUsers, type BenchUser } from './bench-data'
+import { tearDownBench } from './bench-teardown'
 import { ensureBuild } from './build'
 import { formatDuration, ScriptError, step } from './common'
 import { migrate } from './db'
-import { clusterUrl, createDatabase, ensurePostgresBinaries, isClusterRunning, randomClusterPasswords, startThrowawayCluster, stopCluster, throwawayDir, type Cluster } from './postgres'
+import { clusterUrl, createDatabase, ensurePostgresBinaries, randomClusterPasswords, startThrowawayCluster, throwawayDir, type Cluster } from './postgres'
 import { randomSessionPassword } from './secrets'
 import { ScreenProcesses, type ScreensReport } from './bench-screens'
 
@@ -599,21 +600,7 @@ export async function benchBoard(): Promise<BoardBenchResult> {
   }
   finally {
     screens?.close()
-    try {
-      await server?.stop()
-    }
-    catch (error) {
-      console.error(`Could not stop the bench server: ${(error as Error).message}`)
-    }
-    if (cluster) {
-      try {
-        if (await isClusterRunning(cluster)) await stopCluster(cluster)
-      }
-      catch (error) {
-        console.error(`Could not stop the bench cluster: ${(error as Error).message}`)
-      }
-    }
-    if (tempDir) rmSync(tempDir, { recursive: true, force: true })
+    await tearDownBench({ server, cluster, tempDir })
     process.off('SIGINT', onSignal)
     process.off('SIGTERM', onSignal)
   }

@@ -31,11 +31,12 @@ import { CHROMIUM_ARGS, CHROMIUM_PATH } from '../../tests/support/browser'
 import { JS_BUDGET_KB, measurePageJs } from '../../tests/support/js-weight'
 import { freePort, startServer, type RunningServer } from '../../tests/support/server'
 import { ensureBrowser } from './browser'
+import { tearDownBench } from './bench-teardown'
 import { ensureBuild } from './build'
 import { formatDuration, ScriptError, step } from './common'
 import { migrate, seed } from './db'
 import { playDemoDay } from './demo-day'
-import { clusterUrl, createDatabase, ensurePostgresBinaries, isClusterRunning, randomClusterPasswords, startThrowawayCluster, stopCluster, throwawayDir, type Cluster } from './postgres'
+import { clusterUrl, createDatabase, ensurePostgresBinaries, randomClusterPasswords, startThrowawayCluster, throwawayDir, type Cluster } from './postgres'
 import { randomSessionPassword } from './secrets'
 
 const PAGES_DATABASE = 'gridmark_bench_pages'
@@ -280,21 +281,7 @@ export async function benchPages(): Promise<PagesBenchResult> {
     return { lines, notes }
   }
   finally {
-    try {
-      await server?.stop()
-    }
-    catch (error) {
-      console.error(`Could not stop the bench server: ${(error as Error).message}`)
-    }
-    if (cluster) {
-      try {
-        if (await isClusterRunning(cluster)) await stopCluster(cluster)
-      }
-      catch (error) {
-        console.error(`Could not stop the bench cluster: ${(error as Error).message}`)
-      }
-    }
-    if (tempDir) rmSync(tempDir, { recursive: true, force: true })
+    await tearDownBench({ server, cluster, tempDir })
     process.off('SIGINT', onSignal)
     process.off('SIGTERM', onSignal)
   }
