@@ -27,13 +27,11 @@ import { availableParallelism, loadavg } from 'node:os'
 import knex from 'knex'
 import { createKnexConfig } from '../../knexfile'
 import type { BoardSnapshot } from '../../shared/types/api-board'
-import { startServer, type RunningServer } from '../../tests/support/server'
+import { startServer } from '../../tests/support/server'
 import { BENCH_PASSWORD, benchToday, createBenchCompetition, createBenchUsers, type BenchUser } from './bench-data'
-import { tearDownBench } from './bench-teardown'
+import { startBenchDatabase, tearDownBench, type BenchParts } from './bench-services'
 import { ensureBuild } from './build'
 import { formatDuration, ScriptError, step } from './common'
-import { migrate } from './db'
-import { clusterUrl, createDatabase, ensurePostgresBinaries, randomClusterPasswords, startThrowawayCluster, throwawayDir, type Cluster } from './postgres'
 import { randomSessionPassword } from './secrets'
 import { ScreenProcesses, type ScreensReport } from './bench-screens'
 
@@ -513,22 +511,12 @@ export async function benchBoard(): Promise<BoardBenchResult> {
   process.on('SIGINT', onSignal)
   process.on('SIGTERM', onSignal)
 
-  let tempDir: string | undefined
-  let cluster: Cluster | undefined
-  let server: RunningServer | undefined
+  const parts: BenchParts = {}
   let screens: ScreenProcesses | undefined
 
-  const dbPasswords = randomClusterPasswords()
   try {
     step('Live board: a throwaway database and the built server')
-    const binDir = await timed('PostgreSQL binaries', ensurePostgresBinaries)
-    cluster = await timed('bench cluster started', async () => {
-      tempDir = throwawayDir('gridmark-bench-')
-      return startThrowawayCluster(tempDir, binDir, dbPasswords)
-    })
-    const url = clusterUrl(cluster, dbPasswords, BENCH_DATABASE)
-    await timed(`database ${BENCH_DATABASE} on port ${cluster.port}`, () => createDatabase(cluster!, dbPasswords, BENCH_DATABASE))
-    await timed('migrations', () => migrate(url))
+    const url = await startBenchDatabase(parts, 'gridmark-bench-', BENCH_DATABASE, timed)
     await timed('build', ensureBuild)
 
     const today = benchToday()
@@ -554,12 +542,12 @@ export async function benchBoard(): Promise<BoardBenchResult> {
     })
 
     const sessionSecret = randomSessionPassword()
-    server = await timed('bench server started', () => {
+    const server = parts.server = await timed('bench server started', () => {
       // startServer hands its own environment on to the server, with these on top.
       process.env.DATABASE_URL = url
       return startServer({
         NUXT_SESSION_PASSWORD: sessionSecret,
-        NUXT_UPLOADS_DIR: join(tempDir!, 'uploads'),
+        NUXT_UPLOADS_DIR: join(parts.tempDir!, 'uploads'),
         // Every screen and phone signs in once, each from its own address; successful
         // sign-ins never count against a limit.
       })
@@ -600,7 +588,7 @@ export async function benchBoard(): Promise<BoardBenchResult> {
   }
   finally {
     screens?.close()
-    await tearDownBench({ server, cluster, tempDir })
+    await tearDownBench(parts)
     process.off('SIGINT', onSignal)
     process.off('SIGTERM', onSignal)
   }

@@ -29,14 +29,13 @@ import { DEMO_COMPETITION, DEMO_PASSWORD } from '../../seeds/demo-data'
 import { newFilesKey } from '../../server/domain/files/file-crypt'
 import { CHROMIUM_ARGS, CHROMIUM_PATH } from '../../tests/support/browser'
 import { JS_BUDGET_KB, measurePageJs } from '../../tests/support/js-weight'
-import { freePort, startServer, type RunningServer } from '../../tests/support/server'
+import { freePort, startServer } from '../../tests/support/server'
 import { ensureBrowser } from './browser'
-import { tearDownBench } from './bench-teardown'
+import { startBenchDatabase, tearDownBench, type BenchParts } from './bench-services'
 import { ensureBuild } from './build'
 import { formatDuration, ScriptError, step } from './common'
-import { migrate, seed } from './db'
+import { seed } from './db'
 import { playDemoDay } from './demo-day'
-import { clusterUrl, createDatabase, ensurePostgresBinaries, randomClusterPasswords, startThrowawayCluster, throwawayDir, type Cluster } from './postgres'
 import { randomSessionPassword } from './secrets'
 
 const PAGES_DATABASE = 'gridmark_bench_pages'
@@ -220,29 +219,19 @@ async function scorePages(baseUrl: string, pages: BenchPage[]): Promise<Map<Page
 export async function benchPages(): Promise<PagesBenchResult> {
   process.on('SIGINT', onSignal)
   process.on('SIGTERM', onSignal)
-  let tempDir: string | undefined
-  let cluster: Cluster | undefined
-  let server: RunningServer | undefined
-  const dbPasswords = randomClusterPasswords()
+  const parts: BenchParts = {}
   try {
     step('Pages: the demo on a throwaway database and the built server, weighed and scored in Chromium')
-    const binDir = await timed('PostgreSQL binaries', ensurePostgresBinaries)
-    cluster = await timed('bench cluster started', async () => {
-      tempDir = throwawayDir('gridmark-bench-pages-')
-      return startThrowawayCluster(tempDir, binDir, dbPasswords)
-    })
-    const url = clusterUrl(cluster, dbPasswords, PAGES_DATABASE)
-    await timed(`database ${PAGES_DATABASE} on port ${cluster.port}`, () => createDatabase(cluster!, dbPasswords, PAGES_DATABASE))
-    await timed('migrations', () => migrate(url))
+    const url = await startBenchDatabase(parts, 'gridmark-bench-pages-', PAGES_DATABASE, timed)
     const sessionSecret = randomSessionPassword()
     const filesKey = newFilesKey()
     await timed('demo data', () => seed(url, false, sessionSecret, filesKey))
     await timed('Chromium', ensureBrowser)
     await timed('build', ensureBuild)
 
-    server = await timed('bench server started', () => {
+    const server = parts.server = await timed('bench server started', () => {
       process.env.DATABASE_URL = url
-      return startServer({ NUXT_SESSION_PASSWORD: sessionSecret, NUXT_FILES_KEY: filesKey, NUXT_UPLOADS_DIR: join(tempDir!, 'uploads') })
+      return startServer({ NUXT_SESSION_PASSWORD: sessionSecret, NUXT_FILES_KEY: filesKey, NUXT_UPLOADS_DIR: join(parts.tempDir!, 'uploads') })
     })
     const baseUrl = server.url
     await timed('the demo day played', () => playDemoDay(baseUrl, url))
@@ -281,7 +270,7 @@ export async function benchPages(): Promise<PagesBenchResult> {
     return { lines, notes }
   }
   finally {
-    await tearDownBench({ server, cluster, tempDir })
+    await tearDownBench(parts)
     process.off('SIGINT', onSignal)
     process.off('SIGTERM', onSignal)
   }
