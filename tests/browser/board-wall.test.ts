@@ -74,15 +74,18 @@ afterAll(async () => {
 
 interface Box { x: number, y: number, width: number, height: number }
 
-async function openWall(size: { width: number, height: number }): Promise<Page> {
+/** The board fitted to the wall: in full screen (the button), or on `?wall` (a kiosk browser, no button pressed). */
+async function openWall(size: { width: number, height: number }, how: 'button' | 'address' = 'button'): Promise<Page> {
   const browser = await launchBrowser()
   browsers.push(browser)
   const page = await openPage(browser.context, baseUrl, '/sign-in', 'wall')
   await page.setViewportSize(size)
-  await signInThroughForm(page, baseUrl, w.director.email, GOOD_PASSWORD, `/competitions/${w.competitionId}/board`)
+  await signInThroughForm(page, baseUrl, w.director.email, GOOD_PASSWORD, `/competitions/${w.competitionId}/board${how === 'address' ? '?wall' : ''}`)
   await page.locator('[data-testid="board"][data-connection="live"][data-loaded="true"]').waitFor({ timeout: 20_000 })
-  await page.getByTestId('board-fullscreen').click()
-  await page.waitForFunction(() => document.fullscreenElement?.getAttribute('data-testid') === 'board')
+  if (how === 'button') {
+    await page.getByTestId('board-fullscreen').click()
+    await page.waitForFunction(() => document.fullscreenElement?.getAttribute('data-testid') === 'board')
+  }
   await page.locator('[data-testid="board-tiles"][data-fit-scale]').waitFor()
   await page.evaluate(() => document.fonts.ready.then(() => undefined))
   return page
@@ -121,7 +124,7 @@ async function assertWall(page: Page, size: { width: number, height: number }, n
     expect(b.x + b.width, JSON.stringify(b)).toBeLessThanOrEqual(width)
     expect(b.y + b.height, JSON.stringify(b)).toBeLessThanOrEqual(height)
   }
-  const scrolls = await page.evaluate(() => [document.fullscreenElement!, document.querySelector('[data-testid="board-tiles"]')!]
+  const scrolls = await page.evaluate(() => [document.fullscreenElement ?? document.querySelector('[data-testid="board"]')!, document.querySelector('[data-testid="board-tiles"]')!]
     .map(e => ({ v: e.scrollHeight - e.clientHeight, h: e.scrollWidth - e.clientWidth })))
   for (const s of scrolls) expect(s, JSON.stringify(scrolls)).toEqual({ v: 0, h: 0 })
 
@@ -225,4 +228,14 @@ describe('the wall board in full screen', () => {
     const fresh = await openWall(uhd)
     await assertWall(fresh, uhd, 'uhd-fresh')
   }, 240_000)
+
+  it('fits the same way on a kiosk browser opened on ?wall, without Full screen pressed', async () => {
+    const hd = { width: 1920, height: 1080 }
+    const page = await openWall(hd, 'address')
+    expect(await page.evaluate(() => document.fullscreenElement)).toBeNull()
+    // The board covers the whole window, from its top edge; the page under it does not scroll.
+    expect(await page.getByTestId('board').evaluate(e => e.getBoundingClientRect().top)).toBe(0)
+    expect(await page.evaluate(() => document.scrollingElement!.scrollHeight <= window.innerHeight)).toBe(true)
+    await assertWall(page, hd, 'hd-address')
+  }, 120_000)
 })
