@@ -80,7 +80,19 @@ export default defineNitroPlugin((nitroApp) => {
   // A dropped connection (PostgreSQL restarting) emits 'error' on its client; unhandled, that
   // would end the process. The adapter reconnects by itself on the client's 'end'.
   pool.on('error', logAdapter)
-  pool.on('connect', client => client.on('error', logAdapter))
+  pool.on('connect', (client) => {
+    client.on('error', logAdapter)
+    // The adapter's LISTEN connection is checked out for good and, when it drops, never given
+    // back: the pool would count it against its three forever, and after three PostgreSQL
+    // restarts no connection would be left to listen on (events from other instances lost).
+    // Given back here, with the error that removes it, so the adapter's reconnection finds room.
+    client.on('end', () => {
+      if (client.listenerCount('notification') === 0) return
+      const checkedOut = client as pg.PoolClient
+      try { checkedOut.release(new Error('The LISTEN connection ended')) }
+      catch { /* already given back (the adapter closing) */ }
+    })
+  })
   io.adapter(createAdapter(pool, { errorHandler: logAdapter, heartbeatInterval: 5_000, heartbeatTimeout: 15_000 }))
   io.bind(engine)
 
