@@ -38,11 +38,13 @@ describe('the time of a grid check', () => {
 
   it('is refused outside the contest day’s window', async () => {
     const entryId = await gridEntry(w)
-    const yesterday = shiftDay(todayIn(), -1)
-    // Yesterday's check, made now; today's, made three days ago.
-    const late = await w.scrutineer.client.post(path, checkBody(entryId, { day: yesterday, checkedAt: new Date().toISOString() }))
+    // The day before yesterday: yesterday's check made now would still lie in its day's two
+    // hours of slack in the first two hours after midnight.
+    const earlier = shiftDay(todayIn(), -2)
+    // A check of two days ago, made now; today's, made three days ago.
+    const late = await w.scrutineer.client.post(path, checkBody(entryId, { day: earlier, checkedAt: new Date().toISOString() }))
     expect(late.status).toBe(400)
-    expect(late.body.data.fieldErrors.checkedAt).toEqual([MESSAGES.gridCheckedAtOutsideDay(yesterday)])
+    expect(late.body.data.fieldErrors.checkedAt).toEqual([MESSAGES.gridCheckedAtOutsideDay(earlier)])
     const early = await w.scrutineer.client.post(path, checkBody(entryId, { checkedAt: minutesFromNow(-3 * 24 * 60) }))
     expect(early.status).toBe(400)
     expect(early.body.data.fieldErrors.checkedAt).toEqual([MESSAGES.gridCheckedAtOutsideDay(todayIn())])
