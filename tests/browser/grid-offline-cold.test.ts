@@ -10,16 +10,20 @@ import { randomUUID } from 'node:crypto'
 import type { Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { closeTestDb, createEntry } from '../support/db'
-import { launchBrowser, openLaunchGridForOffline, screenshot, waitForHydration, type Browser } from '../support/browser'
+import { launchBrowser, loseSignal, openLaunchGridForOffline, regainSignal, screenshot, waitForHydration, type Browser } from '../support/browser'
+import { openCuttableLink, type CuttableLink } from '../support/cuttable-link'
 import { entriesWorld, type EntriesWorld } from '../support/entries'
 
 const baseUrl = inject('baseUrl')
 
 let browser: Browser
+// The phone reaches the app through a link the test cuts when the signal goes.
+let link: CuttableLink
 let w: EntriesWorld
 const entries: { id: string, compId: string, tagPath: string }[] = []
 beforeAll(async () => {
   browser = await launchBrowser()
+  link = await openCuttableLink(baseUrl)
   w = await entriesWorld(baseUrl, 'Browser Grid Cold Link Cup')
   const ids: string[] = []
   for (const compId of ['CA', 'CB']) ids.push(await createEntry({ competitionId: w.competitionId, classId: w.classId, entrantUserId: w.entrant.user.id, compId, status: 'accepted' }))
@@ -31,6 +35,7 @@ beforeAll(async () => {
 })
 afterAll(async () => {
   await browser?.close()
+  await link?.close()
   await closeTestDb()
 })
 
@@ -53,18 +58,18 @@ describe('a grid check from a cold link offline', () => {
   it('renders from the pack, keeps a check across a reload, sends it once, and keeps nothing after sign-out', async () => {
     const gridPath = `/competitions/${w.competitionId}/grid`
     const [ca, cb] = entries as [typeof entries[number], typeof entries[number]]
-    const { page, day } = await openLaunchGridForOffline(browser, baseUrl, w.scrutineer.email, w.competitionId)
+    const { page, day } = await openLaunchGridForOffline(browser, link.url, w.scrutineer.email, w.competitionId)
     expect(day).toMatch(/^\d{4}-\d{2}-\d{2}$/)
     // The shell is kept beside the grid page, and the session the server confirmed. (Polled from
     // here: waitForFunction would take the predicate's promise itself for a yes.)
     await expect.poll(() => page.evaluate(async () => (await caches.match('/grid-shell', { cacheName: 'gridmark-grid-pages' })) !== undefined)).toBe(true)
     await expect.poll(() => keptSessionOf(page)).toBe(w.scrutineer.user.name)
 
-    await browser.context.setOffline(true)
+    await loseSignal(browser, link)
     await page.locator('[data-testid="sync-status"][data-online="false"]').waitFor()
 
     // A grid check never opened on this phone, by its address.
-    await page.goto(`${baseUrl}${gridPath}/${ca.id}`, { waitUntil: 'load' })
+    await page.goto(`${link.url}${gridPath}/${ca.id}`, { waitUntil: 'load' })
     await waitForHydration(page)
     await page.locator('[data-testid="grid-check"][data-ready="true"]').waitFor()
     expect(await renderedOnPhone(page)).toBe(true)
@@ -84,17 +89,17 @@ describe('a grid check from a cold link offline', () => {
     await page.locator('[data-testid="sync-status"][data-waiting="1"]').waitFor()
 
     // A tag link never opened on this phone: the pack knows the tag, the page leads to the glider.
-    await page.goto(`${baseUrl}${cb.tagPath}`, { waitUntil: 'load' })
+    await page.goto(`${link.url}${cb.tagPath}`, { waitUntil: 'load' })
     await page.waitForURL(url => url.pathname === `${gridPath}/${cb.id}` && url.searchParams.get('foundBy') === 'scan')
     await page.locator('[data-testid="grid-check"][data-ready="true"]').waitFor()
     expect(await page.getByTestId('grid-check-cid').textContent()).toContain('CB')
 
     // A tag no kept pack knows: said plainly on the page.
-    await page.goto(`${baseUrl}/t/${'Q'.repeat(43)}`, { waitUntil: 'load' })
+    await page.goto(`${link.url}/t/${'Q'.repeat(43)}`, { waitUntil: 'load' })
     await expect.poll(() => page.getByTestId('tag-problem').textContent()).toContain('no pack kept on this phone has this tag')
 
     // A competition whose pack is not on this phone: the guard does not go on offline.
-    await page.goto(`${baseUrl}/competitions/${randomUUID()}/grid/${randomUUID()}`, { waitUntil: 'load' })
+    await page.goto(`${link.url}/competitions/${randomUUID()}/grid/${randomUUID()}`, { waitUntil: 'load' })
     await expect.poll(() => page.locator('body').textContent()).toContain('cannot reach its server')
     expect(await page.getByTestId('grid-check-cid').count()).toBe(0)
 
@@ -102,8 +107,8 @@ describe('a grid check from a cold link offline', () => {
     expect(before.body.gridChecks).toHaveLength(0)
 
     // Back online on the launch grid: the check is sent, once.
-    await browser.context.setOffline(false)
-    await page.goto(`${baseUrl}${gridPath}`, { waitUntil: 'load' })
+    await regainSignal(browser, link)
+    await page.goto(`${link.url}${gridPath}`, { waitUntil: 'load' })
     await waitForHydration(page)
     await page.locator('[data-testid="sync-status"][data-waiting="0"]').waitFor({ timeout: 30_000 })
     await page.getByTestId('sync-now').click()
@@ -117,9 +122,9 @@ describe('a grid check from a cold link offline', () => {
     await page.waitForURL(url => url.pathname === '/sign-in')
     await expect.poll(() => keptSessionOf(page)).toBeNull()
     expect(await page.evaluate(async () => (await caches.keys()).includes('gridmark-grid-pages'))).toBe(false)
-    await browser.context.setOffline(true)
-    const cold = await page.goto(`${baseUrl}${gridPath}/${cb.id}`, { waitUntil: 'load' }).then(() => 'opened', () => 'refused')
+    await loseSignal(browser, link)
+    const cold = await page.goto(`${link.url}${gridPath}/${cb.id}`, { waitUntil: 'load' }).then(() => 'opened', () => 'refused')
     if (cold === 'opened') expect(await page.getByTestId('grid-check-cid').count()).toBe(0)
-    await browser.context.setOffline(false)
+    await regainSignal(browser, link)
   })
 })

@@ -4,16 +4,20 @@
 // three waiting), and when the connection returns they are sent: exactly three stored, none twice.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { closeTestDb, createEntry } from '../support/db'
-import { launchBrowser, openLaunchGridForOffline, screenshot, waitForHydration, type Browser } from '../support/browser'
+import { launchBrowser, loseSignal, openLaunchGridForOffline, regainSignal, screenshot, waitForHydration, type Browser } from '../support/browser'
+import { openCuttableLink, type CuttableLink } from '../support/cuttable-link'
 import { entriesWorld, type EntriesWorld } from '../support/entries'
 
 const baseUrl = inject('baseUrl')
 
 let browser: Browser
+// The phone reaches the app through a link the test cuts when the signal goes.
+let link: CuttableLink
 let w: EntriesWorld
 const entries: { id: string, code: string }[] = []
 beforeAll(async () => {
   browser = await launchBrowser()
+  link = await openCuttableLink(baseUrl)
   w = await entriesWorld(baseUrl, 'Browser Grid Offline Cup')
   const ids: string[] = []
   for (const compId of ['OA', 'OB', 'OC']) ids.push(await createEntry({ competitionId: w.competitionId, classId: w.classId, entrantUserId: w.entrant.user.id, compId, status: 'accepted' }))
@@ -24,6 +28,7 @@ beforeAll(async () => {
 })
 afterAll(async () => {
   await browser?.close()
+  await link?.close()
   await closeTestDb()
 })
 
@@ -31,10 +36,10 @@ describe('the launch grid offline', () => {
   it('keeps three checks made offline across a reload and sends each exactly once when back online', async () => {
     const gridPath = `/competitions/${w.competitionId}/grid`
     // The page itself is in the worker's cache (put there by plugins/grid-page-cache.client.ts).
-    const { page, day } = await openLaunchGridForOffline(browser, baseUrl, w.scrutineer.email, w.competitionId)
+    const { page, day } = await openLaunchGridForOffline(browser, link.url, w.scrutineer.email, w.competitionId)
     expect(day).toMatch(/^\d{4}-\d{2}-\d{2}$/)
 
-    await browser.context.setOffline(true)
+    await loseSignal(browser, link)
     await page.locator('[data-testid="sync-status"][data-online="false"]').waitFor()
     for (const e of entries) {
       await page.getByLabel('Short code').fill(e.code)
@@ -61,7 +66,7 @@ describe('the launch grid offline', () => {
     const before = await w.scrutineer.client.get(`/api/competitions/${w.competitionId}/grid-checks?day=${day}`)
     expect(before.body.gridChecks).toHaveLength(0)
 
-    await browser.context.setOffline(false)
+    await regainSignal(browser, link)
     await page.locator('[data-testid="sync-status"][data-waiting="0"]').waitFor({ timeout: 30_000 })
     // A second sync sends nothing again.
     await page.getByTestId('sync-now').click()

@@ -1,5 +1,6 @@
 // Playwright (playwright-core) driving Debian's Chromium, exactly as STACK.md records: a
 // persistent context in a fresh temporary profile, never a downloaded browser.
+import type { CuttableLink } from './cuttable-link'
 import { mkdir, mkdtemp, rm } from 'node:fs/promises'
 import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
@@ -134,6 +135,21 @@ export async function openGridCheck(browser: Browser, baseUrl: string, email: st
  * A scrutineer's phone on the launch grid, online: signed in, the day's pack kept, the offline
  * worker in control and the grid page in its cache. Returns the page and the pack's day.
  */
+/**
+ * No signal: the link to the server cut (nothing the phone sends arrives) and the browser told
+ * it is offline (navigator.onLine, the offline event).
+ */
+export async function loseSignal(browser: Browser, link: CuttableLink): Promise<void> {
+  link.cut()
+  await browser.context.setOffline(true)
+}
+
+/** The signal back: the link restored and the browser told it is online again. */
+export async function regainSignal(browser: Browser, link: CuttableLink): Promise<void> {
+  link.restore()
+  await browser.context.setOffline(false)
+}
+
 export async function openLaunchGridForOffline(browser: Browser, baseUrl: string, email: string, competitionId: string): Promise<{ page: Page, day: string }> {
   const gridPath = `/competitions/${competitionId}/grid`
   const page = await openPage(browser.context, baseUrl, '/sign-in', 'phone')
