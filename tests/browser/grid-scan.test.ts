@@ -53,7 +53,17 @@ describe('scanning a tag on the grid', () => {
     await page.getByTestId('open-camera').click()
     // The library (about 375 KB before gzip) is fetched and parsed now, then the camera starts and
     // decodes about a second of frames: generous under a loaded CI machine.
-    await page.waitForURL(url => url.pathname === `${gridPath()}/${entryId}`, { timeout: 60_000 })
+    // A camera that fails, or a tag the page refuses, says so on the page: reported as such.
+    const refused = page.locator('[data-testid="scan-message"], [data-testid="tag-scanner"]:is([data-state="failed"], [data-state="denied"], [data-state="no-camera"], [data-state="unsupported"])')
+    const outcome = await Promise.race([
+      page.waitForURL(url => url.pathname === `${gridPath()}/${entryId}`, { timeout: 60_000 }).then(() => 'opened'),
+      refused.first().waitFor({ timeout: 60_000 }).then(() => 'refused'),
+    ]).catch(async (error: Error) => `neither (${error.message.split('\n')[0]}); the camera: ${await page.getByTestId('tag-scanner').getAttribute('data-state').catch(() => '?')}`)
+    if (outcome !== 'opened') {
+      const said = await page.locator('[data-testid="scan-message"], [data-testid="tag-scanner-message"]').allTextContents().catch(() => [])
+      await screenshot(page, 'grid-scan-failed')
+      expect.fail(`The camera did not open the glider: ${outcome}; the page says: ${said.join(' | ')}`)
+    }
     const after = await Promise.all(scripts.slice(before).map(s => s.scanner))
     expect(after).toContain(true)
     expect(new URL(page.url()).searchParams.get('foundBy')).toBe('scan')
