@@ -18,7 +18,7 @@
 // director), entry (its first entrant's own entry page). Everything started is removed in every
 // case, Ctrl-C included.
 import { spawn, type ChildProcess } from 'node:child_process'
-import { mkdtempSync, rmSync } from 'node:fs'
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import knex from 'knex'
@@ -40,6 +40,9 @@ import { randomSessionPassword } from './secrets'
 
 const PAGES_DATABASE = 'gridmark_bench_pages'
 const LIGHTHOUSE_RUNS = 2
+/** Where the better run of each page's Lighthouse report is kept. */
+const LIGHTHOUSE_REPORTS = join('artifacts', 'lighthouse')
+
 export const PAGE_TARGETS = { lighthousePerf: 90, lighthouseA11y: 100 } as const
 
 type PageName = 'landing' | 'grid' | 'grid_check' | 'board' | 'entry'
@@ -204,6 +207,12 @@ async function scorePages(baseUrl: string, pages: BenchPage[]): Promise<Map<Page
         const lcp = lhr.audits['largest-contentful-paint']?.displayValue ?? '?'
         const tbt = lhr.audits['total-blocking-time']?.displayValue ?? '?'
         runs.push(`perf ${perf} (LCP ${lcp}, TBT ${tbt}), a11y ${a11y}`)
+        // The better run's full report, for finding what costs the score (open it in the viewer
+        // Lighthouse itself offers, or read its audits).
+        if (perf >= best.perf) {
+          mkdirSync(LIGHTHOUSE_REPORTS, { recursive: true })
+          writeFileSync(join(LIGHTHOUSE_REPORTS, `${p.name}.json`), JSON.stringify(lhr))
+        }
         best = { perf: Math.max(best.perf, perf), a11y: Math.max(best.a11y, a11y) }
       }
       scores.set(p.name, best)
