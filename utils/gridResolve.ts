@@ -20,12 +20,25 @@ export const GRID_UI_MESSAGES = {
   unknownCodeOffline: 'No glider in today’s pack has that short code. Check the characters under the QR code.',
 } as const
 
+const RESOLVE_TIMEOUT_MS = 4000
+
+/** The request's answer, or a failure with no status (as no signal) once `ms` have passed. */
+function answerWithin<T>(request: Promise<T>, ms: number): Promise<T> {
+  let timer: ReturnType<typeof setTimeout> | undefined
+  const late = new Promise<never>((_, reject) => {
+    timer = setTimeout(() => reject(new Error('No answer from the server in time')), ms)
+  })
+  return Promise.race([request, late]).finally(() => clearTimeout(timer))
+}
+
 const isNetworkFailure = (error: unknown) => apiStatus(error) === undefined
 
 async function fromServer(competitionId: string, url: string, pack: GridPack | null, offlineFallback: () => Promise<GridResolution>): Promise<GridResolution> {
   let resolved: ResolvedTag
   try {
-    resolved = await $fetch<ResolvedTag>(url)
+    // A weak signal that neither answers nor fails must not leave the scan hanging: after a
+    // few seconds the day's pack answers instead, as with no signal at all.
+    resolved = await answerWithin($fetch<ResolvedTag>(url), RESOLVE_TIMEOUT_MS)
   }
   catch (error) {
     if (isNetworkFailure(error)) return offlineFallback()
