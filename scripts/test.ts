@@ -16,7 +16,7 @@ import { join } from 'node:path'
 import { ensureBrowser } from './lib/browser'
 import { ensurePdfTools } from './lib/pdf-tools'
 import { ensureBuild } from './lib/build'
-import { artifactsDir, formatDuration, reportError, repoRoot, runInherited, ScriptError, step } from './lib/common'
+import { artifactsDir, formatDuration, interrupts, reportError, repoRoot, runInherited, step } from './lib/common'
 import { migrate, seed } from './lib/db'
 import { APP_ROLE, clusterEnv, clusterUrl, createDatabase, ensurePostgresBinaries, isClusterRunning, randomClusterPasswords, startThrowawayCluster, stopCluster, superuserUrl, throwawayDir } from './lib/postgres'
 import type { Cluster } from './lib/postgres'
@@ -44,7 +44,6 @@ const steps: StepResult[] = []
 let cluster: Cluster | undefined
 let tempDir: string | undefined
 let currentChild: ChildProcess | undefined
-let interrupted: NodeJS.Signals | undefined
 let fakes: StartedServices | undefined
 let server: RunningServer | undefined
 // Fresh per run: nothing signed in by an earlier run stays valid. Known before seeding, since
@@ -59,30 +58,14 @@ const dbPasswords = randomClusterPasswords()
 // ---------------------------------------------------------------------------------------
 // Signals: finish the current step quickly, skip the rest, still clean up and report.
 
-function onSignal(signal: NodeJS.Signals): void {
-  // The terminal and bootstrap.mjs can both deliver one Ctrl-C; act on the first.
-  if (interrupted) return
-  interrupted = signal
-  console.log(`\n▸ ${signal}: stopping the current step, then cleaning up`)
+const signals = interrupts('stopping the current step', (signal) => {
   if (currentChild && currentChild.exitCode === null && currentChild.signalCode === null) currentChild.kill(signal)
-}
-process.on('SIGINT', onSignal)
-process.on('SIGTERM', onSignal)
-
-function checkInterrupted(): void {
-  if (interrupted) throw new ScriptError(`Interrupted by ${interrupted}`)
-}
+})
+signals.listen()
+const timed = signals.timed
 
 // ---------------------------------------------------------------------------------------
 // Set-up
-
-async function timed<T>(label: string, task: () => Promise<T>): Promise<T> {
-  checkInterrupted()
-  const started = Date.now()
-  const result = await task()
-  console.log(`  ✓ ${label} (${formatDuration(Date.now() - started)})`)
-  return result
-}
 
 /** Prepares the throwaway database, browser and build; returns the database URL. */
 async function setUp(): Promise<string> {
@@ -108,7 +91,7 @@ async function setUp(): Promise<string> {
 // Steps
 
 async function runStep(name: string, command: string, args: string[], env: NodeJS.ProcessEnv = process.env): Promise<StepResult> {
-  if (interrupted) return { name, status: 'skipped', durationMs: 0, error: `interrupted by ${interrupted}` }
+  if (signals.signal) return { name, status: 'skipped', durationMs: 0, error: `interrupted by ${signals.signal}` }
   console.log(`\n━━ ${name}: ${[command.replace(`${repoRoot}/`, ''), ...args].join(' ')}`)
   const started = Date.now()
   let exitCode: number
@@ -212,14 +195,14 @@ function totals(): { passed: number, failed: number } {
     else if (s.status === 'passed' && s.name !== 'setup') passed += 1
     else if (s.status === 'failed') failed += 1
   }
-  if (interrupted && failed === 0) failed = 1 // an interrupted run never counts as green
+  if (signals.signal && failed === 0) failed = 1 // an interrupted run never counts as green
   return { passed, failed }
 }
 
 function writeSummary(): { passed: number, failed: number } {
   const { passed, failed } = totals()
   mkdirSync(artifactsDir, { recursive: true })
-  writeFileSync(summaryFile, `${JSON.stringify({ passed, failed, steps, ...(interrupted ? { interrupted } : {}) }, null, 2)}\n`)
+  writeFileSync(summaryFile, `${JSON.stringify({ passed, failed, steps, ...(signals.signal ? { interrupted: signals.signal } : {}) }, null, 2)}\n`)
 
   console.log('\nSummary')
   for (const s of steps) {
@@ -277,7 +260,7 @@ async function main(): Promise<number> {
     reportError(error)
     steps.push({ name: 'setup', status: 'failed', durationMs: Date.now() - started, error: (error as Error).message })
     writeSummary()
-    return interrupted ? 130 : 1
+    return signals.signal ? 130 : 1
   }
 
   for (const [name, command, args] of [
@@ -291,7 +274,7 @@ async function main(): Promise<number> {
   steps.push(await runVitest(url, extraArgs))
 
   const { failed } = writeSummary()
-  if (interrupted) return 130
+  if (signals.signal) return 130
   return failed > 0 ? 1 : 0
 }
 

@@ -31,7 +31,7 @@ import { startServer } from '../../tests/support/server'
 import { BENCH_PASSWORD, benchToday, createBenchCompetition, createBenchUsers, type BenchUser } from './bench-data'
 import { startBenchDatabase, tearDownBench, type BenchParts } from './bench-services'
 import { ensureBuild } from './build'
-import { formatDuration, ScriptError, step } from './common'
+import { formatDuration, interrupts, ScriptError, step } from './common'
 import { randomSessionPassword } from './secrets'
 import { ScreenProcesses, type ScreensReport } from './bench-screens'
 
@@ -84,23 +84,15 @@ export interface BoardBenchResult {
 // ---------------------------------------------------------------------------------------
 // Interrupts
 
-let interrupted: NodeJS.Signals | undefined
 const interruptWaiters = new Set<() => void>()
-
-function onSignal(signal: NodeJS.Signals): void {
-  if (interrupted) return
-  interrupted = signal
-  console.log(`\n▸ ${signal}: stopping the bench, then cleaning up`)
+const signals = interrupts('stopping the bench', () => {
   for (const wake of interruptWaiters) wake()
-}
-
-function checkInterrupted(): void {
-  if (interrupted) throw new ScriptError(`Interrupted by ${interrupted}`)
-}
+})
+const checkInterrupted = signals.check
 
 /** Sleeps, but wakes at once on Ctrl-C. */
 function pause(ms: number): Promise<void> {
-  if (interrupted) return Promise.resolve()
+  if (signals.signal) return Promise.resolve()
   return new Promise((resolve) => {
     const wake = () => {
       clearTimeout(timer)
@@ -415,7 +407,7 @@ async function latencyRun(opts: {
   // First a few checks one at a time, nothing else going on: what one check costs, before
   // any queue forms. Reported apart from the figures.
   step(`${SOLO_CHECKS} grid checks one at a time`)
-  for (let n = 0; n < SOLO_CHECKS && !interrupted; n++) {
+  for (let n = 0; n < SOLO_CHECKS && !signals.signal; n++) {
     const i = pickEntry()
     if (i !== null) await submit(opts.scrutineers[n % opts.scrutineers.length]!, i, true)
     await pause(150)
@@ -433,7 +425,7 @@ async function latencyRun(opts: {
   const scrutineers = opts.scrutineers.map(async (client) => {
     // Start spread over the first gap, as phones come onto the grid one by one.
     await pause(Math.random() * gapMax)
-    while (performance.now() < loadEnds && !interrupted) {
+    while (performance.now() < loadEnds && !signals.signal) {
       const i = pickEntry()
       if (i !== null) await submit(client, i, false)
       await pause(gapMin + Math.random() * (gapMax - gapMin))
@@ -452,7 +444,7 @@ async function latencyRun(opts: {
   const recorded = run.submissions.filter(s => s.status === 201)
   for (;;) {
     absorb(await screens.reports())
-    if (interrupted || performance.now() >= loadDone + BOARD_BENCH.pushGraceMs || !recorded.some(s => s.pushSeen.includes(0))) break
+    if (signals.signal || performance.now() >= loadDone + BOARD_BENCH.pushGraceMs || !recorded.some(s => s.pushSeen.includes(0))) break
     await pause(100)
   }
   await pause(loadDone + 2 * BOARD_BENCH.pollIntervalMs + 500 - performance.now())
@@ -492,13 +484,7 @@ async function snapshotRun(director: BenchClient, competitionId: string): Promis
 // ---------------------------------------------------------------------------------------
 // Set-up, run, tear-down
 
-async function timed<T>(label: string, task: () => Promise<T>): Promise<T> {
-  checkInterrupted()
-  const started = Date.now()
-  const result = await task()
-  console.log(`  ✓ ${label} (${formatDuration(Date.now() - started)})`)
-  return result
-}
+const timed = signals.timed
 
 async function openDay(director: BenchClient, competitionId: string): Promise<string> {
   const res = await director.post(`/api/competitions/${competitionId}/days`, { kind: 'practice' })
@@ -508,8 +494,7 @@ async function openDay(director: BenchClient, competitionId: string): Promise<st
 }
 
 export async function benchBoard(): Promise<BoardBenchResult> {
-  process.on('SIGINT', onSignal)
-  process.on('SIGTERM', onSignal)
+  signals.listen()
 
   const parts: BenchParts = {}
   let screens: ScreenProcesses | undefined
@@ -589,14 +574,13 @@ export async function benchBoard(): Promise<BoardBenchResult> {
   finally {
     screens?.close()
     await tearDownBench(parts)
-    process.off('SIGINT', onSignal)
-    process.off('SIGTERM', onSignal)
+    signals.release()
   }
 }
 
 /** Whether the bench was stopped by a signal (the caller exits 130). */
 export function benchInterrupted(): NodeJS.Signals | undefined {
-  return interrupted
+  return signals.signal
 }
 
 function summarise(run: LatencyRun, snapshotMs: number, nBoards: number, nPollers: number): BoardBenchResult {

@@ -33,7 +33,7 @@ import { freePort, startServer } from '../../tests/support/server'
 import { ensureBrowser } from './browser'
 import { startBenchDatabase, tearDownBench, type BenchParts } from './bench-services'
 import { ensureBuild } from './build'
-import { formatDuration, ScriptError, step } from './common'
+import { interrupts, ScriptError, step } from './common'
 import { seed } from './db'
 import { playDemoDay } from './demo-day'
 import { randomSessionPassword } from './secrets'
@@ -58,23 +58,9 @@ export interface PagesBenchResult {
   notes: string[]
 }
 
-let interrupted: NodeJS.Signals | undefined
-function onSignal(signal: NodeJS.Signals): void {
-  if (interrupted) return
-  interrupted = signal
-  console.log(`\n▸ ${signal}: stopping the page bench, then cleaning up`)
-}
-function checkInterrupted(): void {
-  if (interrupted) throw new ScriptError(`Interrupted by ${interrupted}`)
-}
-
-async function timed<T>(label: string, task: () => Promise<T>): Promise<T> {
-  checkInterrupted()
-  const started = Date.now()
-  const result = await task()
-  console.log(`  ✓ ${label} (${formatDuration(Date.now() - started)})`)
-  return result
-}
+const signals = interrupts('stopping the page bench')
+const checkInterrupted = signals.check
+const timed = signals.timed
 
 async function signIn(baseUrl: string, email: string): Promise<string> {
   const res = await fetch(`${baseUrl}/api/auth/login`, {
@@ -226,8 +212,7 @@ async function scorePages(baseUrl: string, pages: BenchPage[]): Promise<Map<Page
 }
 
 export async function benchPages(): Promise<PagesBenchResult> {
-  process.on('SIGINT', onSignal)
-  process.on('SIGTERM', onSignal)
+  signals.listen()
   const parts: BenchParts = {}
   try {
     step('Pages: the demo on a throwaway database and the built server, weighed and scored in Chromium')
@@ -280,12 +265,11 @@ export async function benchPages(): Promise<PagesBenchResult> {
   }
   finally {
     await tearDownBench(parts)
-    process.off('SIGINT', onSignal)
-    process.off('SIGTERM', onSignal)
+    signals.release()
   }
 }
 
 /** Whether the page bench was stopped by a signal. */
 export function pagesBenchInterrupted(): NodeJS.Signals | undefined {
-  return interrupted
+  return signals.signal
 }

@@ -103,3 +103,52 @@ export function runInherited(
 export function indent(text: string, prefix = '    '): string {
   return text.split('\n').map(line => prefix + line).join('\n')
 }
+
+/**
+ * A script's Ctrl-C. The first SIGINT or SIGTERM is remembered (a terminal and a parent may
+ * both deliver one): the current step finishes quickly, the rest is skipped, clean-up still
+ * runs. `timed` prints a step with its duration and starts none once interrupted; `onStop`
+ * runs once, on the signal (to stop a child process, or wake a sleeper).
+ */
+export interface Interrupts {
+  /** The signal that stopped the run, if one came. */
+  readonly signal: NodeJS.Signals | undefined
+  /** Throws a ScriptError once a signal came. */
+  check: () => void
+  timed: <T>(label: string, task: () => Promise<T>) => Promise<T>
+  /** Starts listening for the signals (again after `release`). */
+  listen: () => void
+  release: () => void
+}
+
+export function interrupts(stopping: string, onStop?: (signal: NodeJS.Signals) => void): Interrupts {
+  let signal: NodeJS.Signals | undefined
+  const onSignal = (received: NodeJS.Signals) => {
+    if (signal) return
+    signal = received
+    console.log(`\n▸ ${received}: ${stopping}, then cleaning up`)
+    onStop?.(received)
+  }
+  const check = () => {
+    if (signal) throw new ScriptError(`Interrupted by ${signal}`)
+  }
+  return {
+    get signal() { return signal },
+    check,
+    timed: async (label, task) => {
+      check()
+      const started = Date.now()
+      const result = await task()
+      console.log(`  ✓ ${label} (${formatDuration(Date.now() - started)})`)
+      return result
+    },
+    listen: () => {
+      process.on('SIGINT', onSignal)
+      process.on('SIGTERM', onSignal)
+    },
+    release: () => {
+      process.off('SIGINT', onSignal)
+      process.off('SIGTERM', onSignal)
+    },
+  }
+}
