@@ -14,9 +14,25 @@ import { drainQueue, type AttentionItem, type QueuedCheck } from '~/utils/gridQu
 
 export const SYNC_INTERVAL_MS = 20_000
 
+let zone: string | undefined
+/** The phone's own time zone (read once: a new date formatter per read costs). */
+function phoneZone(): string {
+  return zone ??= Intl.DateTimeFormat().resolvedOptions().timeZone
+}
+
+/**
+ * Sets a list read again from IndexedDB only when it differs from what is shown: each new
+ * array re-rendered the day's list of gliders, several times over while the page opened.
+ */
+function keepIfSame<T>(list: Ref<T[]>, next: T[]): void {
+  if (JSON.stringify(list.value) !== JSON.stringify(next)) list.value = next
+}
+
 export const useGridDeskStore = defineStore('gridDesk', () => {
   const competitionId = ref<string | null>(null)
-  const pack = ref<GridPack | null>(null)
+  // Replaced whole, never changed in place: a shallow ref, so the engine and the lists read
+  // plain objects (a deep proxy made every property read of 40 dossiers a tracked read).
+  const pack = shallowRef<GridPack | null>(null)
   const packStoredAt = ref<string | null>(null)
   const packError = ref<string | null>(null)
   const packLoading = ref(false)
@@ -31,7 +47,7 @@ export const useGridDeskStore = defineStore('gridDesk', () => {
   let syncRun: Promise<void> | null = null
 
   /** Today in the competition's time zone (the pack's), else the phone's. */
-  const today = computed(() => dateInZone(new Date(), pack.value?.timeZone ?? Intl.DateTimeFormat().resolvedOptions().timeZone))
+  const today = computed(() => dateInZone(new Date(), pack.value?.timeZone ?? phoneZone()))
   const packIsToday = computed(() => pack.value !== null && pack.value.day === today.value)
 
   function entry(entryId: string): GridPackEntry | undefined {
@@ -39,9 +55,9 @@ export const useGridDeskStore = defineStore('gridDesk', () => {
   }
 
   async function refreshLists() {
-    waiting.value = (await queuedChecks()).sort((a, b) => a.queuedAt.localeCompare(b.queuedAt))
-    attention.value = (await attentionItems()).sort((a, b) => a.movedAt.localeCompare(b.movedAt))
-    if (competitionId.value && pack.value) scans.value = await scansOf(competitionId.value, pack.value.day)
+    keepIfSame(waiting, (await queuedChecks()).sort((a, b) => a.queuedAt.localeCompare(b.queuedAt)))
+    keepIfSame(attention, (await attentionItems()).sort((a, b) => a.movedAt.localeCompare(b.movedAt)))
+    if (competitionId.value && pack.value) keepIfSame(scans, await scansOf(competitionId.value, pack.value.day))
   }
 
   /** Fetches today's pack and keeps it; on failure the kept one stays in use. */
@@ -79,7 +95,7 @@ export const useGridDeskStore = defineStore('gridDesk', () => {
       packError.value = null
     }
     if (!pack.value) {
-      const kept = await loadPack(cid, dateInZone(new Date(), Intl.DateTimeFormat().resolvedOptions().timeZone))
+      const kept = await loadPack(cid, dateInZone(new Date(), phoneZone()))
       if (kept && competitionId.value === cid) {
         pack.value = kept.pack
         packStoredAt.value = kept.storedAt
@@ -96,10 +112,12 @@ export const useGridDeskStore = defineStore('gridDesk', () => {
    * reads the same on this phone before the server's next pack says so too.
    */
   async function keepUnitsShown(body: GridCheckBody): Promise<void> {
-    const kept = pack.value?.entries.find(e => e.dossier.entry.id === body.entryId)
-    if (!pack.value || !kept || !body.unitsShown?.length) return
-    kept.dossier = withUnitsShown(kept.dossier, body.unitsShown)
-    await savePack(JSON.parse(JSON.stringify(pack.value)) as GridPack)
+    const current = pack.value
+    const kept = current?.entries.find(e => e.dossier.entry.id === body.entryId)
+    if (!current || !kept || !body.unitsShown?.length) return
+    const next = { ...current, entries: current.entries.map(e => (e === kept ? { ...e, dossier: withUnitsShown(kept.dossier, body.unitsShown!) } : e)) }
+    pack.value = next
+    await savePack(JSON.parse(JSON.stringify(next)) as GridPack)
   }
 
   /** Writes the check to IndexedDB first, then tries to send it. */
