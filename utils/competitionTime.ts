@@ -3,9 +3,24 @@
 // (the wall screen, the director's laptop and the log agree); server and browser format alike
 // (explicit locale and zone), so the page hydrates without a change.
 
+// One formatter per set of options, made once: toLocaleTimeString and its kin build a new one
+// on every call, which a board of forty tiles paid for on every render.
+const formatters = new Map<string, Intl.DateTimeFormat>()
+
+/** The en-GB formatter for `options` (throws as Intl does for an unknown time zone). */
+function formatter(options: Intl.DateTimeFormatOptions): Intl.DateTimeFormat {
+  const key = JSON.stringify(options)
+  let f = formatters.get(key)
+  if (!f) {
+    f = new Intl.DateTimeFormat('en-GB', options)
+    formatters.set(key, f)
+  }
+  return f
+}
+
 /** "2 Dec, 14:05" — an instant in the competition's time zone. */
 export function atInZone(iso: string, timeZone: string): string {
-  return new Date(iso).toLocaleString('en-GB', { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit', timeZone })
+  return formatter({ day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit', timeZone }).format(new Date(iso))
 }
 
 /** "14:05" — the clock time only, for an instant on the day being shown. */
@@ -19,11 +34,11 @@ export function timeIn(iso: string | Date, timeZone: string, seconds = false): s
   if (Number.isNaN(at.getTime())) return ''
   const format: Intl.DateTimeFormatOptions = { hour: '2-digit', minute: '2-digit', ...(seconds ? { second: '2-digit' } : {}), hourCycle: 'h23' }
   try {
-    return at.toLocaleTimeString('en-GB', { ...format, timeZone })
+    return formatter({ ...format, timeZone }).format(at)
   }
   catch {
     // The zone is typed by the organiser: rather the screen's clock than nothing.
-    return at.toLocaleTimeString('en-GB', format)
+    return formatter(format).format(at)
   }
 }
 
@@ -31,12 +46,12 @@ export function timeIn(iso: string | Date, timeZone: string, seconds = false): s
 export function dayInWords(day: string): string {
   const d = new Date(`${day.slice(0, 10)}T12:00:00Z`)
   if (Number.isNaN(d.getTime())) return day
-  return d.toLocaleDateString('en-GB', { weekday: 'long', day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' })
+  return formatter({ weekday: 'long', day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' }).format(d)
 }
 
 /** "Wed 2 Dec" — a contest day, short. */
 export function dayShort(day: string): string {
   const d = new Date(`${day.slice(0, 10)}T12:00:00Z`)
   if (Number.isNaN(d.getTime())) return day
-  return d.toLocaleDateString('en-GB', { weekday: 'short', day: 'numeric', month: 'short', timeZone: 'UTC' })
+  return formatter({ weekday: 'short', day: 'numeric', month: 'short', timeZone: 'UTC' }).format(d)
 }
