@@ -60,8 +60,8 @@ export const useBoardStore = defineStore('board', () => {
   const competition = ref<BoardSnapshot['competition'] | null>(null)
   const day = ref<BoardDay | null>(null)
   const classes = ref<BoardClass[]>([])
-  /** Tiles by entry id. */
-  const tiles = ref<Record<string, BoardTile>>({})
+  /** Tiles by entry id; replaced whole on every change (a shallow ref: tiles are read as plain objects). */
+  const tiles = shallowRef<Record<string, BoardTile>>({})
   /** Entry ids in the board's order (class, then competition ID), as the snapshot gave them. */
   const order = ref<string[]>([])
   /** The sequence number the board shows. */
