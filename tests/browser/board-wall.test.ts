@@ -146,6 +146,7 @@ async function assertWall(page: Page, size: { width: number, height: number }, n
   expect(reasons.size).toBe(CAUTION.length + 1 + Object.keys(HOLDS).length)
   expect(await page.getByTestId('board-reasons').getAttribute('data-count')).toBe(String(reasons.size))
   const seen = new Set<string>()
+  let datesSeen = 0
   for (let i = 0; i < reasons.size; i++) {
     const shown = page.getByTestId('board-reason')
     const entryId = (await shown.getAttribute('data-entry-id'))!
@@ -170,11 +171,20 @@ async function assertWall(page: Page, size: { width: number, height: number }, n
     expect(whole.right).toBeLessThanOrEqual(width)
     // Large: a long reason is set smaller to fit whole, but never below 1/54 of the screen (20 px at 1080).
     expect(whole.size).toBeGreaterThanOrEqual(height / 54)
+    // A date or a registration is never broken at its hyphen over two lines.
+    const unbroken = await text.evaluate(el => [...el.querySelectorAll('[data-unbroken]')].map(s => ({ text: s.textContent, lines: s.getClientRects().length })))
+    for (const date of reasons.get(entryId)!.match(/\d{4}-\d{2}-\d{2}/g) ?? []) {
+      expect(unbroken.map(u => u.text)).toContain(date)
+      datesSeen++
+    }
+    expect(unbroken.filter(u => u.lines !== 1)).toEqual([])
     if (i === 1) await screenshot(page, `board-wall-fit-${name}-reason`)
     await page.getByTestId('board-reason-next').click()
     await page.locator(`[data-testid="board-reason"]:not([data-entry-id="${entryId}"])`).waitFor()
   }
   expect(seen.size).toBe(reasons.size)
+  // The demo's reasons name dates (a firmware's or a document's expiry): the rule above was met.
+  expect(datesSeen).toBeGreaterThan(0)
 
   // Four states, four brightnesses: each pair of states' tiles differs by at least 15 %.
   const luminance: Record<string, number> = {}
