@@ -1,4 +1,4 @@
-import { z } from 'zod'
+import type { z } from 'zod'
 import { MESSAGES } from '#shared/constants/messages'
 
 export interface ErrorSummaryItem {
@@ -44,8 +44,15 @@ export function useFormErrors<F extends string>(fields: readonly F[], fieldId: (
     formErrors.value = rest
   }
 
-  function fromZod(error: z.ZodError) {
-    set(z.flattenError(error))
+  /** A failed safeParse, flattened as z.flattenError does (first path key, else the form's). */
+  function fromZod(error: Pick<z.ZodError, 'issues'>) {
+    const flat: { formErrors: string[], fieldErrors: Record<string, string[]> } = { formErrors: [], fieldErrors: {} }
+    for (const issue of error.issues) {
+      const key = issue.path[0]
+      if (key === undefined) flat.formErrors.push(issue.message)
+      else (flat.fieldErrors[String(key)] ??= []).push(issue.message)
+    }
+    set(flat)
   }
 
   /** Maps a failed $fetch to messages. `conflictField` receives a 409's message (e.g. e-mail taken). */

@@ -7,7 +7,12 @@ import type { z } from 'zod'
  * The form's error summary must carry `ref="summaryBox"`.
  */
 export function useSchemaForm<S extends z.ZodType, F extends string>(options: {
-  schema: S
+  /**
+   * The schema, or a loader of it: a form always on a page that must load light passes
+   * `() => import('#shared/schemas/…').then(m => m.theSchema)`, and zod is fetched on the first
+   * submit instead of with the page.
+   */
+  schema: S | (() => Promise<S>)
   fields: readonly F[]
   idPrefix: string
   action: (data: z.output<S>) => Promise<void>
@@ -24,10 +29,24 @@ export function useSchemaForm<S extends z.ZodType, F extends string>(options: {
     summaryBox.value?.focus()
   }
 
+  let loaded: S | undefined = typeof options.schema === 'function' ? undefined : options.schema
+  async function schemaOf(): Promise<S> {
+    return loaded ??= await (options.schema as () => Promise<S>)()
+  }
+
   async function submit(values: unknown) {
     if (busy.value) return
     errors.clear()
-    const parsed = options.schema.safeParse(values)
+    let schema: S
+    try {
+      schema = loaded ?? await schemaOf()
+    }
+    catch (error) {
+      // The schema's code could not be fetched: no signal, said as for a failed request.
+      errors.fromApi(error)
+      return showSummary()
+    }
+    const parsed = schema.safeParse(values)
     if (!parsed.success) {
       errors.fromZod(parsed.error)
       return showSummary()
