@@ -11,7 +11,7 @@ const schema = z.object({
 }).refine(v => v.name !== 'nobody', { error: 'Not a glider.' })
 
 async function mountForm(schemaOption: unknown, action = vi.fn(async () => {})) {
-  let form!: ReturnType<typeof useSchemaForm>
+  let form!: ReturnType<typeof useSchemaForm<typeof schema, 'name' | 'span'>>
   const Form = defineComponent({
     setup() {
       form = useSchemaForm({ schema: schemaOption as typeof schema, fields: ['name', 'span'] as const, idPrefix: 't', action })
