@@ -23,6 +23,11 @@ export function atInZone(iso: string, timeZone: string): string {
   return formatter({ day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit', timeZone }).format(new Date(iso))
 }
 
+/** "14:05" on the phone's own clock (its zone): when this phone synced, or made a check. */
+export function clockOnPhone(iso: string): string {
+  return formatter({ hour: '2-digit', minute: '2-digit' }).format(new Date(iso))
+}
+
 /** "14:05" — the clock time only, for an instant on the day being shown. */
 export function clockInZone(iso: string, timeZone: string): string {
   return timeIn(iso, timeZone)

@@ -2,7 +2,7 @@
 // them (the board and the desk hydrate over the server's HTML without a change), with the
 // formatters kept between calls.
 import { describe, expect, it } from 'vitest'
-import { atInZone, clockInZone, dayInWords, dayShort, timeIn } from '~/utils/competitionTime'
+import { atInZone, clockInZone, clockOnPhone, dayInWords, dayShort, timeIn } from '~/utils/competitionTime'
 
 const INSTANTS = ['2027-07-10T06:05:09Z', '2027-07-10T22:59:59Z', '2027-12-31T23:30:00Z']
 const ZONES = ['Europe/Berlin', 'America/Denver', 'Australia/Adelaide', 'UTC']
@@ -19,6 +19,7 @@ describe('times in the competition’s zone', () => {
         }
       }
     }
+    for (const iso of INSTANTS) expect(clockOnPhone(iso)).toBe(new Date(iso).toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit' }))
     expect(clockInZone('2027-07-10T06:05:09Z', 'Europe/Berlin')).toBe('08:05')
     expect(timeIn('2027-07-10T22:59:59Z', 'Europe/Berlin', true)).toBe('00:59:59')
   })
