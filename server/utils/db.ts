@@ -1,4 +1,5 @@
 // The one Knex instance of this server process, created on first use.
+import { createHash } from 'node:crypto'
 import knex, { type Knex } from 'knex'
 import { createKnexConfig } from '../../knexfile'
 import { noteStatement } from './errors'
@@ -19,6 +20,18 @@ export function useDb(): Knex {
     instance.on('query', noteStatement)
   }
   return instance
+}
+
+/**
+ * `query` as a prepared statement of the connection it runs on, named by a digest of its text:
+ * PostgreSQL parses it once per connection and, after a few runs, stops planning it again —
+ * for a large statement the planning took longer than running it. For the few statements run
+ * again and again with only their values changing (a grid check's, under the board's lock);
+ * a statement whose text changes with its input (a list of rows) would fill the cache.
+ */
+export function prepared<Q extends Knex.QueryBuilder | Knex.Raw>(query: Q): Q {
+  const text = query.toSQL().toNative().sql
+  return query.options({ name: `gm_${createHash('sha1').update(text).digest('hex').slice(0, 24)}` }) as Q
 }
 
 /** True when PostgreSQL answers a trivial query within the pool's timeout. */

@@ -10,7 +10,7 @@ import { entryVerdict } from '#shared/utils/entry-verdict'
 import { toTileAction } from '#domain/read-model/day-inputs'
 import { initialsOf } from '#shared/utils/initials'
 import { READINESS_LABELS } from '#shared/constants/readiness'
-import { together } from '#server/utils/db'
+import { prepared, together } from '#server/utils/db'
 import { siteUrl } from '#server/utils/site-url'
 import { audit, type AuditEntry } from '#domain/audit/audit'
 import { personalValuesOfDossier, withoutPersonalValues } from '#domain/audit/personal-fields'
@@ -161,7 +161,9 @@ export async function refreshTiles(
       await upsert
       continue
     }
-    const [taken] = await upsert.returning(trx.raw('(select seq from taken) as seq')) as { seq: string | number }[]
+    // One tile (a grid check, a director's action): the same statement each time, prepared.
+    const statement = upsert.returning(trx.raw('(select seq from taken) as seq'))
+    const [taken] = await (rows.length === 1 ? prepared(statement) : statement) as { seq: string | number }[]
     if (Number(taken!.seq) !== Number(lastSeq) + count) throw new Error(`The board of ${competitionId} was numbered by another writer while locked.`)
   }
   if (!written.length) seq = await takeSeq(trx, competitionId, count)

@@ -25,7 +25,7 @@ import { boardLockKey, boardTransaction } from '#domain/board/transaction'
 import { actionsQuery, type BoardActionRow, type CheckRow, latestGridCheckIds, type TileInputs, tileInputsStatement } from '#domain/read-model/day-inputs'
 import { type CompetitionDossiers, type DossierPartRow, dossiersOf, dossierStatement } from '#domain/read-model/dossiers'
 import { iso, num } from '#domain/read-model/values'
-import { useDb } from '#server/utils/db'
+import { prepared, useDb } from '#server/utils/db'
 import { fieldError, httpError } from '#server/utils/errors'
 import { markTiming } from '#server/utils/server-timing'
 import { gridCheckTimeProblem, gridDayAllowed, todayIn } from '#shared/utils/grid-days'
@@ -218,7 +218,7 @@ async function gridCheckInputs(trx: Knex.Transaction, competitionId: string, bod
   const dossier = dossierStatement(trx, competitionId, { entryIds: [body.entryId], day: body.day })
   const tile = tileInputsStatement(trx, competitionId, body.day, [body.entryId])
   // The dossier's rows, and one row of the grid check's own: [earlier, open, actions, inputs].
-  const { rows } = await trx.raw(`${dossier.sql}
+  const { rows } = await prepared(trx.raw(`${dossier.sql}
     union all select 'grid-check', 0, json_build_array(
       (select json_build_object('id', x.id, 'body_sha256', x.body_sha256) from grid_checks x where x.idempotency_key = :idempotencyKey),
       exists (select 1 from board_days b where b.competition_id = :competitionId and b.day = :day and b.closed_at is null),
@@ -228,7 +228,7 @@ async function gridCheckInputs(trx: Knex.Transaction, competitionId: string, bod
     ...tile.bindings,
     idempotencyKey: body.idempotencyKey,
     actions: actionsQuery(trx, competitionId, body.day, [body.entryId]),
-  }) as { rows: DossierPartRow[] }
+  })) as { rows: DossierPartRow[] }
   const own = rows.find(r => r.part === 'grid-check')!.r as [GridCheckInputs['earlier'], boolean, BoardActionRow[], TileInputs]
   return {
     earlier: own[0],
@@ -398,7 +398,7 @@ export async function recordGridCheck(
         ...(body.unitsShown?.length ? { unitsShown: body.unitsShown } : {}),
       },
     })))
-    const [row] = await writing.select('received_at').from('g') as { received_at: Date }[]
+    const [row] = await prepared(writing.select('received_at').from('g')) as { received_at: Date }[]
     if (open) {
       // The tile reuses the reads above — the board's read of an accepted entry, unchanged
       // since — with this check as the entry's latest when it is (see `withCheck`). A check

@@ -10,7 +10,7 @@ import type { User } from '#auth-utils'
 import type { CompetitionRow, UserRow, UserSessionRow } from '#shared/types/rows'
 import type { Role } from '#shared/constants/roles'
 import { MESSAGES } from '#shared/constants/messages'
-import { useDb } from '#server/utils/db'
+import { prepared, useDb } from '#server/utils/db'
 import { httpError } from '#server/utils/errors'
 import { clientAddress } from '#server/utils/client-address'
 import { disconnectSessionSockets } from '#domain/realtime/realtime'
@@ -161,13 +161,14 @@ export async function sessionUserIn(event: H3Event, competitionId: string): Prom
   }
   const db = useDb()
   const session = await requireSession(event)
-  const row = await sessionUserQuery(db, session.sessionId)
+  // Asked by nearly every request of the grid and the board: prepared once per connection.
+  const row = await prepared(sessionUserQuery(db, session.sessionId)
     .leftJoin('competitions as c', 'c.id', db.raw('?', [competitionId]))
     .first<SessionUserRow & { gm_roles: Role[] }>(
       ...SESSION_USER_COLUMNS,
       ...competitionColumns('gm_c_'),
       db.raw('array(select m.role::text from memberships m where m.user_id = s.user_id and m.competition_id = ?) as gm_roles', [competitionId]),
-    )
+    ))
   const user = await acceptSession(db, session, row) ?? await sessionEnded(event)
   event.context.gridmarkUser = user
   return { user, competition: prefixedCompetition(row!, 'gm_c_'), rolesHeld: row!.gm_roles }
