@@ -19,6 +19,10 @@ describe('FindingList', () => {
       '/competitions/comp-7/checks#igc.security-record',
     ])
     expect(links[0]!.text()).toBe('Rule: firmware.valid-through-contest')
+    // Broken over two lines only after its dot: each part on one line, its hyphens kept.
+    expect(links[0]!.findAll('[data-testid="finding-rule-id"] span').map(p => [p.text(), p.classes('whitespace-nowrap')]))
+      .toEqual([['firmware', true], ['valid-through-contest', true]])
+    expect(links[0]!.find('[data-testid="finding-rule-id"] wbr').exists()).toBe(true)
     expect(list.findAll('[data-testid="finding-caution"]')).toHaveLength(1)
     list.unmount()
   })
