@@ -263,10 +263,6 @@ export default defineNuxtConfig({
     defaults: { nuxtLink: { prefetchOn: { visibility: false, interaction: true } } },
   },
 
-  // The stylesheet (some 8 KB gzipped) comes inside the page's HTML instead of as a second
-  // request the first paint waits for: one round trip less on a weak signal.
-  features: { inlineStyles: true },
-
   hooks: {
     'build:manifest'(manifest) {
       for (const chunk of Object.values(manifest)) chunk.prefetch = false
