@@ -214,15 +214,23 @@ export const useBoardStore = defineStore('board', () => {
     }
   }
 
-  /** Replaces the whole board; on the same day, tiles that moved on are highlighted. */
+  /**
+   * Replaces the whole board; on the same day, tiles that moved on are highlighted, and a tile
+   * that did not (the same sequence number) keeps its object, so it is not drawn again: a board
+   * fetched after a reconnect or a gap redraws only what changed.
+   */
   function applySnapshot(snapshot: BoardSnapshot) {
     const sameDay = loaded.value && competition.value?.id === snapshot.competition.id && day.value?.day === snapshot.day?.day
     const before = tiles.value
     competition.value = snapshot.competition
     day.value = snapshot.day
     classes.value = snapshot.classes
-    tiles.value = Object.fromEntries(snapshot.tiles.map(t => [t.entryId, t]))
-    order.value = snapshot.tiles.map(t => t.entryId)
+    tiles.value = Object.fromEntries(snapshot.tiles.map((t) => {
+      const old = sameDay ? before[t.entryId] : undefined
+      return [t.entryId, old && old.seq === t.seq ? old : t]
+    }))
+    const nextOrder = snapshot.tiles.map(t => t.entryId)
+    if (nextOrder.length !== order.value.length || nextOrder.some((id, i) => id !== order.value[i])) order.value = nextOrder
     loaded.value = true
     let held = 0
     if (sameDay) {

@@ -147,6 +147,26 @@ describe('board store', () => {
     expect(board.offlineSince).toBeNull()
   })
 
+  it('draws again only the tiles that changed when the board is fetched again', async () => {
+    const { board, socket } = await openLive()
+    const before = { ...board.tiles }
+    const orderBefore = board.order
+    // e3 changes on the server while the screen is away; it comes back and fetches the board.
+    change(tile('e3', 'K9', 'held', 0, 'k-std'))
+    socket.on.disconnected()
+    socket.on.joined({ ok: true, scope: 'staff' })
+    await vi.waitFor(() => expect(board.connection).toBe('live'))
+    expect(board.seq).toBe(11)
+    // The unchanged tiles keep their objects (not drawn again), the changed one is new and
+    // highlighted, and the order, the same, keeps its list.
+    expect(board.tiles.e1).toBe(before.e1)
+    expect(board.tiles.e2).toBe(before.e2)
+    expect(board.tiles.e3).not.toBe(before.e3)
+    expect(board.tiles.e3!.readiness).toBe('held')
+    expect(board.changed).toEqual(['e3'])
+    expect(board.order).toBe(orderBefore)
+  })
+
   it('applies the next change at once, highlights it, and the counters follow', async () => {
     const { board, socket } = await openLive()
     expect(board.counts.overall).toMatchObject({ ready: 1, caution: 1, held: 0, unchecked: 1, total: 3 })
