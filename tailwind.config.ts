@@ -8,6 +8,10 @@ const token = (name: string) => `rgb(var(--c-${name}) / <alpha-value>)`
 
 export default {
   content: [],
+  // The utilities' default custom properties (rings, shadows, transforms) go only on the
+  // elements that use them, not on every element: thirty fewer properties for the browser to
+  // work out per element when it styles a page.
+  experimental: { optimizeUniversalDefaults: true },
   theme: {
     extend: {
       colors: {
