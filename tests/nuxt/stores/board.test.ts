@@ -153,7 +153,7 @@ describe('board store', () => {
     const orderBefore = board.order
     // e3 changes on the server while the screen is away; it comes back and fetches the board.
     change(tile('e3', 'K9', 'held', 0, 'k-std'))
-    socket.on.disconnected()
+    socket.on.disconnected('transport close')
     socket.on.joined({ ok: true, scope: 'staff' })
     await vi.waitFor(() => expect(board.connection).toBe('live'))
     expect(board.seq).toBe(11)
