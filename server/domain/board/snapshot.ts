@@ -6,7 +6,7 @@ import type { IsoDate } from '#shared/engine'
 import type { BoardDay, BoardSnapshot, BoardTile, EntryDayReadiness } from '#shared/types/api-board'
 import type { BoardDayRow, BoardTileRow } from '#shared/types/rows-board'
 import { compareCompIds } from '#shared/utils/comp-id-order'
-import { useDb } from '#server/utils/db'
+import { prepared, useDb } from '#server/utils/db'
 import { actionsQuery, type BoardActionRow, type Instant, toTileAction } from '#domain/read-model/day-inputs'
 import { iso } from '#domain/read-model/values'
 
@@ -70,7 +70,8 @@ export function toBoardTile(r: Pick<BoardTileRow, 'tile'> & { seq: string | numb
  * The day is the one asked for, else the open day, else the latest opened (as `boardDayOf`).
  */
 export async function boardSnapshotJson(competition: { id: string, name: string, time_zone: string }, day?: IsoDate, db: Knex = useDb()): Promise<string> {
-  const { rows } = await db.raw(`with shown as (
+  // Read by every screen as it connects and by every polling one: prepared once per connection.
+  const { rows } = await prepared(db.raw(`with shown as (
       select d.competition_id, d.kind, d.opened_at, d.closed_at, d.opened_by, d.closed_by, d.day as day_date,
         d.day as day, o.name as opened_by_name, c.name as closed_by_name
       from board_days d join users o on o.id = d.opened_by left join users c on c.id = d.closed_by
@@ -88,7 +89,7 @@ export async function boardSnapshotJson(competition: { id: string, name: string,
       null::text as tile, null::int as class_order, null::text as comp_id
     union all
     select 1, null, null, null, t.shown::text, t.class_order, t.comp_id
-      from shown s join board_tiles t on t.competition_id = s.competition_id and t.day = s.day_date`, day ? { competitionId: competition.id, day } : { competitionId: competition.id }) as {
+      from shown s join board_tiles t on t.competition_id = s.competition_id and t.day = s.day_date`, day ? { competitionId: competition.id, day } : { competitionId: competition.id })) as {
     rows: {
       part: number
       // Timestamps inside JSON values arrive as text; toBoardDay reads them as instants.
