@@ -32,7 +32,8 @@ describe('prepared statements', () => {
     const a = prepared(db('entries').where({ id: '00000000-0000-4000-8000-000000000001' }).first('id'))
     const b = prepared(db('entries').where({ id: '00000000-0000-4000-8000-000000000002' }).first('id'))
     const c = prepared(db('entries').where({ comp_id: 'AB1' }).first('id'))
-    const nameOf = (q: typeof a) => (q as unknown as { _options: { name: string }[] })._options.at(-1)!.name
+    // The name the driver is handed, as knex compiles the statement for it.
+    const nameOf = (q: typeof a) => (q.toSQL() as { options?: { name?: string } }).options?.name
     expect(nameOf(a)).toMatch(/^gm_[0-9a-f]{24}$/)
     expect(nameOf(b)).toBe(nameOf(a))
     expect(nameOf(c)).not.toBe(nameOf(a))
