@@ -123,16 +123,27 @@ async function weighPages(baseUrl: string, pages: BenchPage[]): Promise<Map<Page
 async function debuggableChromium(): Promise<{ port: number, stop: () => Promise<void> }> {
   const port = await freePort()
   const profile = mkdtempSync(join(tmpdir(), 'gridmark-lighthouse-'))
-  const child: ChildProcess = spawn(CHROMIUM_PATH, [...CHROMIUM_ARGS, `--remote-debugging-port=${port}`, `--user-data-dir=${profile}`, 'about:blank'], { stdio: 'ignore' })
+  // In a process group of its own, so that stopping it stops its helper processes too.
+  const child: ChildProcess = spawn(CHROMIUM_PATH, [...CHROMIUM_ARGS, `--remote-debugging-port=${port}`, `--user-data-dir=${profile}`, 'about:blank'], { stdio: 'ignore', detached: true })
+  const signalGroup = (signal: NodeJS.Signals) => {
+    try { process.kill(-child.pid!, signal) }
+    catch { /* the group has ended */ }
+  }
   const stop = async () => {
     if (child.exitCode === null && child.signalCode === null) {
       const exited = new Promise(resolve => child.once('exit', resolve))
-      child.kill('SIGTERM')
+      signalGroup('SIGTERM')
       await Promise.race([exited, new Promise(resolve => setTimeout(resolve, 5000))])
-      if (child.exitCode === null && child.signalCode === null) child.kill('SIGKILL')
     }
-    // Chromium's helper processes may still be writing into the profile for a moment after it exits.
-    rmSync(profile, { recursive: true, force: true, maxRetries: 10, retryDelay: 200 })
+    signalGroup('SIGKILL')
+    // A helper may still be writing into the profile for a moment: a profile left behind in the
+    // temporary folder is not worth failing the figures for.
+    try {
+      rmSync(profile, { recursive: true, force: true, maxRetries: 10, retryDelay: 200 })
+    }
+    catch (error) {
+      console.warn(`  ! could not remove Chromium's profile ${profile}: ${(error as Error).message}`)
+    }
   }
   const deadline = Date.now() + 30_000
   for (;;) {
