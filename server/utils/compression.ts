@@ -39,3 +39,51 @@ export async function sendJsonText(event: H3Event, text: string): Promise<string
   setResponseHeader(event, 'content-encoding', 'gzip')
   return gzipAsync(text, { level: 1 })
 }
+
+/** What is worth gzipping when a handler answers: pages, JSON, CSV and plain text. */
+const TEXT_TYPES = /^(?:text\/(?:html|csv|plain)|application\/json)\b/i
+
+/** Below this, an answer goes as it is: the gzip header and the work would cost more than they save. */
+export const GZIP_MIN_ANSWER_BYTES = 1024
+
+/** A handler's answer that h3 sends as JSON text: not a web Response, a stream, bytes, a file or an error. */
+function jsonValue(body: unknown): boolean {
+  const t = typeof body
+  if (t === 'boolean' || t === 'number') return true
+  if (t !== 'object' || body === null) return false
+  const o = body as Record<string, unknown>
+  return !(body instanceof Error) && !o.buffer && typeof o.pipe !== 'function' && typeof o.getReader !== 'function'
+    && typeof o.arrayBuffer !== 'function' && typeof o.end !== 'function' && !(body instanceof Response)
+}
+
+/**
+ * An answer as sent, gzipped (zlib's default level) when the client takes gzip and the answer is
+ * a page's HTML, JSON, CSV or plain text of at least GZIP_MIN_ANSWER_BYTES: a page's HTML and
+ * the day's pack go to a phone on a weak signal at a fifth of their size. Undefined to send the
+ * body as it is: bytes and streams (files, PDFs, images), an answer encoded already (the
+ * board's snapshot, `sendJsonText`), a small one, a client that does not take gzip, or the
+ * error page as the framework's error handler fetches it in-process (it reads the text and
+ * sends it on itself, with the visitor's own headers copied into its request).
+ */
+export async function gzippedAnswer(event: H3Event, body: unknown): Promise<Buffer | undefined> {
+  const res = event.node.res
+  if (res.headersSent || res.getHeader('content-encoding')) return undefined
+  // The error page rendered for the server's own error handler, which reads it as text.
+  if (getRequestHeader(event, 'x-nuxt-error')) return undefined
+  const status = res.statusCode
+  if (status === 204 || status === 304 || event.method === 'HEAD') return undefined
+  const isText = typeof body === 'string'
+  if (!isText && !jsonValue(body)) return undefined
+  // As h3 sends them: a string as HTML, any other value as JSON, unless the handler said otherwise.
+  const type = String(res.getHeader('content-type') ?? (isText ? 'text/html' : 'application/json'))
+  if (!TEXT_TYPES.test(type)) return undefined
+  const text = isText ? body as string : JSON.stringify(body)
+  if (Buffer.byteLength(text) < GZIP_MIN_ANSWER_BYTES) return undefined
+  appendResponseHeader(event, 'vary', 'accept-encoding')
+  if (!acceptsGzip(getRequestHeader(event, 'accept-encoding'))) return undefined
+  const zipped = await gzipAsync(text)
+  if (!res.getHeader('content-type')) setResponseHeader(event, 'content-type', isText ? 'text/html;charset=utf-8' : 'application/json')
+  setResponseHeader(event, 'content-encoding', 'gzip')
+  return zipped
+}
+
