@@ -360,6 +360,33 @@ export const useBoardStore = defineStore('board', () => {
     }
   }
 
+  /**
+   * After joining the board's room: changes made before the join were not pushed to this
+   * screen. A board held whole (fetched, no gap) is current when the server's sequence number,
+   * read after the join, is no further than its own — changes since the join come pushed — so
+   * the screen goes live without fetching the whole board again (on a page load it was fetched
+   * a moment before; a wall of screens reconnecting at once asks for a number each, not a
+   * board). Otherwise, or when the number cannot be read, the board is fetched.
+   */
+  async function catchUpAfterJoin(gen: number) {
+    const cid = competitionId.value
+    const serial = joinSerial
+    if (!cid || fetching || !loaded.value || !snapshotOk.value || hasGap(sequence)) return refresh()
+    try {
+      const answer = await $fetch<BoardSeq>(`/api/competitions/${encodeURIComponent(cid)}/board/seq`)
+      if (gen !== generation || serial !== joinSerial || socketState.value !== 'joining') return
+      if (!fetching && !hasGap(sequence) && answer.seq <= sequence.seq) {
+        socketState.value = 'joined'
+        settle()
+        return
+      }
+    }
+    catch {
+      if (gen !== generation) return
+    }
+    if (serial === joinSerial) await refresh()
+  }
+
   // ---------------------------------------------------------------------------------------
   // Opening and closing
 
@@ -377,8 +404,7 @@ export const useBoardStore = defineStore('board', () => {
         liveError.value = null
         socketState.value = 'joining'
         joinSerial++
-        // Changes made while this screen was away were not pushed to it.
-        void refresh()
+        void catchUpAfterJoin(gen)
       },
       disconnected() {
         if (!current()) return

@@ -131,7 +131,7 @@ function expectNotFetched(board: ReturnType<typeof useBoardStore>, snapshotsBefo
 }
 
 describe('board store', () => {
-  it('shows the snapshot, then goes live once it has joined and fetched the board after joining', async () => {
+  it('shows the snapshot, then goes live once it has joined and the server’s number shows nothing missed', async () => {
     const board = useBoardStore()
     const socket = fakeSocket()
     await board.open(cid, { connect: socket.connect })
@@ -139,12 +139,40 @@ describe('board store', () => {
     expect(board.connection).toBe('connecting')
     expect(board.orderedTiles.map(t => t.compId)).toEqual(['11', '22', 'K9'])
     expect(board.seq).toBe(10)
-    const before = server.snapshots
+    const before = { snapshots: server.snapshots, seqChecks: server.seqChecks }
     socket.on.joined({ ok: true, scope: 'staff' })
     await vi.waitFor(() => expect(board.connection).toBe('live'))
-    // The board is fetched again after the join: changes before it were not pushed to this socket.
-    expect(server.snapshots).toBe(before + 1)
+    // The number read after the join is the board's own: nothing was missed, the board is not
+    // fetched again.
+    expect(server.seqChecks).toBe(before.seqChecks + 1)
+    expect(server.snapshots).toBe(before.snapshots)
     expect(board.offlineSince).toBeNull()
+  })
+
+  it('fetches the board after joining when it changed before the join (not pushed to this screen)', async () => {
+    const board = useBoardStore()
+    const socket = fakeSocket()
+    await board.open(cid, { connect: socket.connect })
+    const before = server.snapshots
+    change(tile('e2', '22', 'held', 0))
+    socket.on.joined({ ok: true, scope: 'staff' })
+    await vi.waitFor(() => expect(board.connection).toBe('live'))
+    expect(server.snapshots).toBe(before + 1)
+    expect(board.seq).toBe(11)
+    expect(board.tiles.e2!.readiness).toBe('held')
+  })
+
+  it('goes live without fetching when the changes since the board was read came pushed before the number', async () => {
+    const board = useBoardStore()
+    const socket = fakeSocket()
+    await board.open(cid, { connect: socket.connect })
+    const before = server.snapshots
+    socket.on.joined({ ok: true, scope: 'staff' })
+    socket.on.tile(change(tile('e1', '11', 'ready', 0)))
+    await vi.waitFor(() => expect(board.connection).toBe('live'))
+    expect(server.snapshots).toBe(before)
+    expect(board.seq).toBe(11)
+    expect(board.tiles.e1!.readiness).toBe('ready')
   })
 
   it('draws again only the tiles that changed when the board is fetched again', async () => {
