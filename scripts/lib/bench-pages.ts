@@ -187,15 +187,22 @@ async function scorePages(baseUrl: string, pages: BenchPage[]): Promise<Map<Page
       let best = { perf: 0, a11y: 0 }
       for (let run = 0; run < LIGHTHOUSE_RUNS; run++) {
         checkInterrupted()
-        await setBrowserCookie(chrome.port, baseUrl, p.cookie)
-        const result = await lighthouse(baseUrl + p.path, {
-          port: chrome.port,
-          logLevel: 'error',
-          output: 'json',
-          onlyCategories: ['performance', 'accessibility'],
-        })
-        const lhr = result?.lhr
-        if (!lhr || lhr.runtimeError) throw new ScriptError(`Lighthouse could not score ${p.name}: ${lhr?.runtimeError?.message ?? 'no result'}`)
+        // Lighthouse now and then fails to record a load's trace (NO_NAVSTART) and asks to be
+        // run again: a run is tried up to three times before the bench gives up.
+        let lhr: NonNullable<Awaited<ReturnType<typeof lighthouse>>>['lhr'] | undefined
+        for (let attempt = 1; ; attempt++) {
+          await setBrowserCookie(chrome.port, baseUrl, p.cookie)
+          const result = await lighthouse(baseUrl + p.path, {
+            port: chrome.port,
+            logLevel: 'error',
+            output: 'json',
+            onlyCategories: ['performance', 'accessibility'],
+          })
+          lhr = result?.lhr
+          if (lhr && !lhr.runtimeError) break
+          if (attempt === 3) throw new ScriptError(`Lighthouse could not score ${p.name}: ${lhr?.runtimeError?.message ?? 'no result'}`)
+          console.warn(`  ! Lighthouse could not score ${p.name} (${lhr?.runtimeError?.code ?? 'no result'}); running it again`)
+        }
         if (new URL(lhr.finalDisplayedUrl).pathname !== new URL(baseUrl + p.path).pathname) {
           throw new ScriptError(`Lighthouse was sent from ${p.name} (${p.path}) to ${lhr.finalDisplayedUrl}; it would score the wrong page.`)
         }
