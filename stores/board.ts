@@ -345,13 +345,18 @@ export const useBoardStore = defineStore('board', () => {
     return run
   }
 
+  /** The board's last sequence number and open day on the server (a few bytes, not the board). */
+  function fetchSeq(cid: string): Promise<BoardSeq> {
+    return $fetch<BoardSeq>(`/api/competitions/${encodeURIComponent(cid)}/board/seq`)
+  }
+
   /** Every so often while live: has the server moved on without telling this screen? */
   async function checkSeq() {
     const cid = competitionId.value
     if (!cid || connection.value !== 'live' || fetching || hasGap(sequence)) return
     const gen = generation
     try {
-      const answer = await $fetch<BoardSeq>(`/api/competitions/${encodeURIComponent(cid)}/board/seq`)
+      const answer = await fetchSeq(cid)
       if (gen !== generation) return
       if (answer.seq > sequence.seq && !hasGap(sequence) && !fetching) await refresh()
     }
@@ -373,7 +378,7 @@ export const useBoardStore = defineStore('board', () => {
     const serial = joinSerial
     if (!cid || fetching || !loaded.value || !snapshotOk.value || hasGap(sequence)) return refresh()
     try {
-      const answer = await $fetch<BoardSeq>(`/api/competitions/${encodeURIComponent(cid)}/board/seq`)
+      const answer = await fetchSeq(cid)
       if (gen !== generation || serial !== joinSerial || socketState.value !== 'joining') return
       if (!fetching && !hasGap(sequence) && answer.seq <= sequence.seq) {
         socketState.value = 'joined'

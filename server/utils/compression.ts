@@ -58,12 +58,13 @@ function jsonValue(body: unknown): boolean {
 
 /**
  * An answer as sent, gzipped (zlib's default level) when the client takes gzip and the answer is
- * a page's HTML, JSON, CSV or plain text of at least GZIP_MIN_ANSWER_BYTES: a page's HTML and
- * the day's pack go to a phone on a weak signal at a fifth of their size. Undefined to send the
- * body as it is: bytes and streams (files, PDFs, images), an answer encoded already (the
- * board's snapshot, `sendJsonText`), a small one, a client that does not take gzip, or the
- * error page as the framework's error handler fetches it in-process (it reads the text and
- * sends it on itself, with the visitor's own headers copied into its request).
+ * a page's HTML, JSON, CSV or plain text of at least GZIP_MIN_ANSWER_BYTES: a page's HTML goes
+ * to a phone on a weak signal at a third to a quarter of its size, the day's pack at a fifth.
+ * Undefined to send the body as it is: bytes and streams (files, PDFs, images), an answer
+ * encoded already (the board's snapshot, `sendJsonText`), a small one, a client that does not
+ * take gzip, or the error page as the framework's error handler fetches it in-process (it
+ * reads the text and sends it on itself, with the visitor's own headers copied into its
+ * request).
  */
 export async function gzippedAnswer(event: H3Event, body: unknown): Promise<Buffer | undefined> {
   const res = event.node.res
