@@ -78,10 +78,11 @@ export async function gzippedAnswer(event: H3Event, body: unknown): Promise<Buff
   // As h3 sends them: a string as HTML, any other value as JSON, unless the handler said otherwise.
   const type = String(res.getHeader('content-type') ?? (isText ? 'text/html' : 'application/json'))
   if (!TEXT_TYPES.test(type)) return undefined
+  appendResponseHeader(event, 'vary', 'accept-encoding')
+  // A client that does not take gzip: h3 serialises the value itself, once.
+  if (!acceptsGzip(getRequestHeader(event, 'accept-encoding'))) return undefined
   const text = isText ? body as string : JSON.stringify(body)
   if (Buffer.byteLength(text) < GZIP_MIN_ANSWER_BYTES) return undefined
-  appendResponseHeader(event, 'vary', 'accept-encoding')
-  if (!acceptsGzip(getRequestHeader(event, 'accept-encoding'))) return undefined
   const zipped = await gzipAsync(text)
   if (!res.getHeader('content-type')) setResponseHeader(event, 'content-type', isText ? 'text/html;charset=utf-8' : 'application/json')
   setResponseHeader(event, 'content-encoding', 'gzip')
