@@ -100,7 +100,9 @@ export default defineNuxtConfig({
       // probes for it as each schema is built: blocked, the probe is swallowed but still reported
       // as a violation. Told before any module runs (this classic script runs before the deferred
       // module scripts; nuxt-security gives it the page's nonce), zod never tries.
-      script: [{ innerHTML: 'globalThis.__zod_globalConfig=Object.assign(globalThis.__zod_globalConfig||{},{jitless:true})', tagPriority: 'critical' }],
+      // The same script starts public/warm-intl.js: the browser's locale data is loaded in a
+      // worker while the page is parsed, not in the middle of the app's start (docs/bench.md).
+      script: [{ innerHTML: 'globalThis.__zod_globalConfig=Object.assign(globalThis.__zod_globalConfig||{},{jitless:true});try{new Worker(\'/warm-intl.js\')}catch{}', tagPriority: 'critical' }],
     },
   },
 

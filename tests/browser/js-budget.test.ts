@@ -62,3 +62,29 @@ describe('gzipped JavaScript before first interaction', () => {
     expect(weight.gzKb, JSON.stringify(weight.scripts)).toBeLessThanOrEqual(JS_BUDGET_KB.board)
   })
 })
+
+describe('the browser\'s locale data', () => {
+  // Its first date or number format costs a page 30–70 ms on a desktop (docs/bench.md); a worker
+  // started by the page's head pays it beside the page, and must run to its end under the CSP.
+  it('is loaded by a worker the page starts from its head, which runs to its end', async () => {
+    const browser = await launchBrowser()
+    browsers.push(browser)
+    const [name, ...value] = w.director.client.cookie.split('=')
+    await browser.context.addCookies([{ name: name!, value: value.join('='), url: baseUrl }])
+    const page = await browser.context.newPage()
+    const errors: string[] = []
+    page.on('console', msg => msg.type() === 'error' && errors.push(msg.text()))
+    page.on('pageerror', error => errors.push(error.message))
+    // Heard from the moment it starts: it may well end before the page has loaded.
+    const ended = new Promise<void>((resolve) => {
+      page.on('worker', (worker) => {
+        if (new URL(worker.url()).pathname === '/warm-intl.js') worker.once('close', () => resolve())
+      })
+    })
+    await page.goto(new URL(`/competitions/${w.competitionId}/board`, baseUrl).toString())
+    await ended
+    // The board, which formats times as it starts, came up.
+    await page.locator('[data-testid="board"][data-connection="live"]').waitFor()
+    expect(errors).toEqual([])
+  })
+})
