@@ -1,5 +1,4 @@
 import type { Config } from 'tailwindcss'
-import defaultTheme from 'tailwindcss/defaultTheme'
 import plugin from 'tailwindcss/plugin'
 
 // Semantic colours read CSS variables (set in assets/css/main.css) so sunlight mode can swap the
@@ -65,7 +64,11 @@ export default {
         tile: { caution: token('tile-caution'), unchecked: token('tile-unchecked') },
       },
       fontFamily: {
-        sans: ['Barlow', ...defaultTheme.fontFamily.sans],
+        // Barlow, and the platform's own sans-serif until it has loaded. Not Tailwind's longer
+        // stack: every family named is looked up by the browser as the page is first laid out,
+        // and its emoji and system-ui fonts made that first layout two to three times as long
+        // (docs/bench.md). Characters Barlow lacks still fall back to a font that has them.
+        sans: ['Barlow', 'Arial', 'sans-serif'],
       },
       minHeight: {
         // Touch target for every control; rem-based, so sunlight mode's larger root size lifts it past 48 px.
