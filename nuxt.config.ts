@@ -2,6 +2,9 @@
 // so a stray file under app/ cannot silently move it.
 import { fileURLToPath } from 'node:url'
 
+/** V8's explicit compile hint: the first line of a script every function of which runs on load. */
+const COMPILE_HINT = '//# allFunctionsCalledOnLoad'
+
 export default defineNuxtConfig({
   srcDir: '.',
 
@@ -266,6 +269,36 @@ export default defineNuxtConfig({
   },
 
   hooks: {
+    // V8's compile hint on the app's scripts: a script marked so is compiled whole on a background
+    // thread while it downloads, instead of function by function on the page's main thread as
+    // each is first called (some 130 ms of a grid page's start on this machine; docs/bench.md).
+    // Nearly all of these scripts run as their page starts. Not the camera scanner's library,
+    // loaded when the camera opens and mostly formats the tags never use; not scripts under
+    // 8 KB, which compile in a few milliseconds at most and whose hint (some 20 bytes gzipped
+    // each) would cost more on the wire than it saves: the board loads fourteen of them, and is
+    // some 0.1 KB under its JavaScript budget. Browsers without the hint read a comment.
+    'vite:extendConfig'(config, { isClient }) {
+      if (!isClient) return
+      const plugins = (config.plugins ?? []) as unknown[]
+      plugins.push({
+        name: 'gridmark:compile-hints',
+        apply: 'build',
+        enforce: 'post',
+        // Last, after the bundler's own additions to a chunk's head: the hint must be its first
+        // line (a client source map, when one is made for profiling, is then one line off).
+        generateBundle: {
+          order: 'post',
+          handler(_: unknown, bundle: Record<string, { type: string, code?: string, moduleIds?: string[] }>) {
+            for (const chunk of Object.values(bundle)) {
+              if (chunk.type !== 'chunk' || (chunk.code?.length ?? 0) < 8192) continue
+              if (chunk.moduleIds?.some(id => id.includes('/node_modules/html5-qrcode/'))) continue
+              chunk.code = `${COMPILE_HINT}\n${chunk.code}`
+            }
+          },
+        },
+      })
+      ;(config as { plugins?: unknown[] }).plugins = plugins
+    },
     'build:manifest'(manifest) {
       for (const chunk of Object.values(manifest)) chunk.prefetch = false
     },

@@ -88,3 +88,28 @@ describe('the browser\'s locale data', () => {
     expect(errors).toEqual([])
   })
 })
+
+describe('V8\'s compile hint', () => {
+  // A script marked `//# allFunctionsCalledOnLoad` is compiled whole off the main thread while it
+  // downloads (nuxt.config.ts, docs/bench.md): every script of 8 KB or more that the launch grid
+  // loads carries it; smaller ones are left as they are.
+  it('heads every script of 8 KB or more that the launch grid loads as it starts', async () => {
+    const browser = await launchBrowser()
+    browsers.push(browser)
+    const [name, ...value] = w.scrutineer.client.cookie.split('=')
+    await browser.context.addCookies([{ name: name!, value: value.join('='), url: baseUrl }])
+    const page = await browser.context.newPage()
+    const heads = new Map<string, Promise<string>>()
+    page.on('response', (response) => {
+      if (response.request().resourceType() !== 'script' || !new URL(response.url()).pathname.startsWith('/_nuxt/')) return
+      heads.set(response.url(), response.text().then(text => (text.length >= 8192 ? text.slice(0, 40) : 'small')))
+    })
+    await page.goto(new URL(`/competitions/${w.competitionId}/grid`, baseUrl).toString())
+    await page.locator('[data-testid="grid-scanner"][data-ready="true"]').waitFor()
+    await page.waitForLoadState('networkidle')
+    const large = (await Promise.all([...heads].map(async ([url, head]) => [url, await head] as const))).filter(([, head]) => head !== 'small')
+    expect(large.length).toBeGreaterThanOrEqual(3)
+    for (const [url, head] of large) expect(head, url).toMatch(/^\/\/# allFunctionsCalledOnLoad\n/)
+  })
+})
+
