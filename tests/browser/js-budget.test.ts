@@ -24,18 +24,23 @@ afterAll(async () => {
   await closeTestDb()
 })
 
-/**
- * The page opened in a fresh browser (nothing cached), signed in with `cookie` when given; it
- * must show `shown` (the page itself, not a sign-in or error page that weighs less).
- */
-async function weigh(path: string, shown: string, cookie?: string) {
+/** A blank page in a fresh browser (nothing cached), signed in with `cookie` when given. */
+async function freshPage(cookie?: string) {
   const browser = await launchBrowser()
   browsers.push(browser)
   if (cookie) {
     const [name, ...value] = cookie.split('=')
     await browser.context.addCookies([{ name: name!, value: value.join('='), url: baseUrl }])
   }
-  const page = await browser.context.newPage()
+  return await browser.context.newPage()
+}
+
+/**
+ * The page opened in a fresh browser, signed in with `cookie` when given; it must show `shown`
+ * (the page itself, not a sign-in or error page that weighs less).
+ */
+async function weigh(path: string, shown: string, cookie?: string) {
+  const page = await freshPage(cookie)
   const weight = await measurePageJs(page, new URL(path, baseUrl).toString())
   expect(await page.locator(shown).count()).toBe(1)
   return weight
@@ -67,11 +72,7 @@ describe('the browser\'s locale data', () => {
   // Its first date or number format costs a page 30–70 ms on a desktop (docs/bench.md); a worker
   // started by the page's head pays it beside the page, and must run to its end under the CSP.
   it('is loaded by a worker the page starts from its head, which runs to its end', async () => {
-    const browser = await launchBrowser()
-    browsers.push(browser)
-    const [name, ...value] = w.director.client.cookie.split('=')
-    await browser.context.addCookies([{ name: name!, value: value.join('='), url: baseUrl }])
-    const page = await browser.context.newPage()
+    const page = await freshPage(w.director.client.cookie)
     const errors: string[] = []
     page.on('console', msg => msg.type() === 'error' && errors.push(msg.text()))
     page.on('pageerror', error => errors.push(error.message))
@@ -94,11 +95,7 @@ describe('V8\'s compile hint', () => {
   // downloads (nuxt.config.ts, docs/bench.md): every script of 8 KB or more that the launch grid
   // loads carries it; smaller ones are left as they are.
   it('heads every script of 8 KB or more that the launch grid loads as it starts', async () => {
-    const browser = await launchBrowser()
-    browsers.push(browser)
-    const [name, ...value] = w.scrutineer.client.cookie.split('=')
-    await browser.context.addCookies([{ name: name!, value: value.join('='), url: baseUrl }])
-    const page = await browser.context.newPage()
+    const page = await freshPage(w.scrutineer.client.cookie)
     const heads = new Map<string, Promise<string>>()
     page.on('response', (response) => {
       if (response.request().resourceType() !== 'script' || !new URL(response.url()).pathname.startsWith('/_nuxt/')) return
