@@ -64,8 +64,8 @@ export default {
         tile: { caution: token('tile-caution'), unchecked: token('tile-unchecked') },
       },
       fontFamily: {
-        // Barlow, and the platform's own sans-serif until it has loaded. Not Tailwind's longer
-        // stack: every family named is looked up by the browser as the page is first laid out,
+        // Barlow, and Arial or the platform's own sans-serif until it has loaded. Not Tailwind's
+        // longer stack: every family named is looked up by the browser as a page is first laid out,
         // and its emoji and system-ui fonts made that first layout two to three times as long
         // (docs/bench.md). Characters Barlow lacks still fall back to a font that has them.
         sans: ['Barlow', 'Arial', 'sans-serif'],
