@@ -7,12 +7,15 @@ import {
   type LocalScan,
 } from '~/utils/gridDeskDb'
 import { drainQueue, type AttentionItem, type QueuedCheck } from '~/utils/gridQueue'
+import { servedPackUse } from '~/utils/servedPack'
 
 // The scrutineer's desk on the phone: the day's pack (kept in IndexedDB, so the grid works
 // without signal), the outbox of grid checks and its sync state. Client state shared by the
 // scanner and the grid check screen; the server stays the record.
 
 export const SYNC_INTERVAL_MS = 20_000
+
+const PACK_NOT_KEPT = 'This phone could not keep the day’s pack (its storage refused): the grid works while there is signal, not without.'
 
 let zone: string | undefined
 /** The phone's own time zone (read once: a new date formatter per read costs). */
@@ -29,10 +32,15 @@ function keepIfSame<T>(list: Ref<T[]>, next: T[]): void {
 }
 
 export const useGridDeskStore = defineStore('gridDesk', () => {
+  // On the server, a plain $fetch would not carry the browser's cookie.
+  const requestFetch = useRequestFetch()
   const competitionId = ref<string | null>(null)
   // Replaced whole, never changed in place: a shallow ref, so the engine and the lists read
-  // plain objects (a deep proxy made every property read of 40 dossiers a tracked read).
+  // plain objects (a deep proxy made every property read of 40 dossiers a tracked read). A pack
+  // the server's render sent with the page arrives as a shallow ref too: a plain object.
   const pack = shallowRef<GridPack | null>(null)
+  /** The pack came with the page from the server's render, and `open` has not yet weighed it. */
+  const served = ref(false)
   const packStoredAt = ref<string | null>(null)
   const packError = ref<string | null>(null)
   const packLoading = ref(false)
@@ -85,16 +93,64 @@ export const useGridDeskStore = defineStore('gridDesk', () => {
     }
   }
 
+  /**
+   * The server's render of a grid page (a reload, a link opened): the desk holds the day's pack
+   * as the page was rendered with it, so the glider is on the first paint.
+   */
+  async function serve(cid: string): Promise<void> {
+    try {
+      const fresh = await requestFetch<GridPack>(`/api/competitions/${encodeURIComponent(cid)}/grid/pack`)
+      competitionId.value = cid
+      pack.value = fresh
+      served.value = true
+    }
+    catch {
+      // The phone opens its own pack, as on any other page.
+    }
+  }
+
+  /**
+   * The pack the page came with, weighed against the one kept on the phone: true when it is
+   * the newest there is (just rendered by the server), kept then, and no fresh one is needed.
+   * A copy of the page kept by the worker brings an older pack: the phone's newer one wins.
+   */
+  async function takeServed(cid: string, fromPage: GridPack): Promise<boolean> {
+    const kept = await loadPack(cid, fromPage.day)
+    const use = servedPackUse(fromPage, kept?.pack)
+    if (competitionId.value !== cid) return false
+    if (use === 'kept') {
+      pack.value = kept!.pack
+      packStoredAt.value = kept!.storedAt
+      return false
+    }
+    if (use === 'same') {
+      packStoredAt.value = kept!.storedAt
+      return false
+    }
+    try {
+      await savePack(fromPage)
+      if (competitionId.value === cid && pack.value === fromPage) packStoredAt.value = new Date().toISOString()
+    }
+    catch {
+      packError.value = PACK_NOT_KEPT
+    }
+    return true
+  }
+
   /** Opens the desk of a competition: the kept pack at once, then a fresh one when online. */
   async function open(cid: string): Promise<void> {
     start()
+    const fromPage = served.value && competitionId.value === cid ? pack.value : null
+    served.value = false
     if (competitionId.value !== cid) {
       competitionId.value = cid
       pack.value = null
       packStoredAt.value = null
       packError.value = null
     }
-    if (!pack.value) {
+    let current = false
+    if (fromPage) current = await takeServed(cid, fromPage)
+    else if (!pack.value) {
       const kept = await loadPack(cid, dateInZone(new Date(), phoneZone()))
       if (kept && competitionId.value === cid) {
         pack.value = kept.pack
@@ -102,7 +158,7 @@ export const useGridDeskStore = defineStore('gridDesk', () => {
       }
     }
     await refreshLists()
-    if (online.value) await fetchPack()
+    if (online.value && !current) await fetchPack()
     await refreshLists()
     void sync()
   }
@@ -189,7 +245,7 @@ export const useGridDeskStore = defineStore('gridDesk', () => {
   }
 
   return {
-    competitionId, pack, packStoredAt, packError, packLoading, waiting, attention, scans, lastSyncedAt, lastSyncProblem, syncing, online,
-    today, packIsToday, entry, open, fetchPack, submit, sync, dismiss, refreshLists,
+    competitionId, pack, served, packStoredAt, packError, packLoading, waiting, attention, scans, lastSyncedAt, lastSyncProblem, syncing, online,
+    today, packIsToday, entry, open, serve, fetchPack, submit, sync, dismiss, refreshLists,
   }
 })
