@@ -15,8 +15,6 @@ import { servedPackUse } from '~/utils/servedPack'
 
 export const SYNC_INTERVAL_MS = 20_000
 
-const PACK_NOT_KEPT = 'This phone could not keep the day’s pack (its storage refused): the grid works while there is signal, not without.'
-
 let zone: string | undefined
 /** The phone's own time zone (read once: a new date formatter per read costs). */
 function phoneZone(): string {
@@ -111,7 +109,7 @@ export const useGridDeskStore = defineStore('gridDesk', () => {
 
   /**
    * The pack the page came with, weighed against the one kept on the phone: true when it is
-   * the newest there is (just rendered by the server), kept then, and no fresh one is needed.
+   * the newest there is (just rendered by the server) and is now kept: no fresh one is needed.
    * A copy of the page kept by the worker brings an older pack: the phone's newer one wins.
    */
   async function takeServed(cid: string, fromPage: GridPack): Promise<boolean> {
@@ -129,11 +127,12 @@ export const useGridDeskStore = defineStore('gridDesk', () => {
     }
     try {
       await savePack(fromPage)
-      if (competitionId.value === cid && pack.value === fromPage) packStoredAt.value = new Date().toISOString()
     }
     catch {
-      packError.value = PACK_NOT_KEPT
+      // Not kept (the phone's storage refused): the usual download tries again.
+      return false
     }
+    if (competitionId.value === cid && pack.value === fromPage) packStoredAt.value = new Date().toISOString()
     return true
   }
 
