@@ -360,8 +360,13 @@ export const useBoardStore = defineStore('board', () => {
       if (gen !== generation) return
       if (answer.seq > sequence.seq && !hasGap(sequence) && !fetching) await refresh()
     }
-    catch {
-      // The socket and the next fetch tell whether the server is gone; one failed poll is not news.
+    catch (error) {
+      // A refusal is news: this screen's access ended (its role in the competition removed, its
+      // sign-in ended elsewhere) while its socket stayed connected, out of the board's room.
+      // The board's read says so on the screen. No answer at all is not: the socket and the
+      // next fetch tell whether the server is gone.
+      const status = apiStatus(error)
+      if (gen === generation && (status === 401 || status === 403 || status === 404)) void refresh()
     }
   }
 

@@ -34,6 +34,8 @@ interface FakeServer {
   tiles: BoardTile[]
   day: BoardSnapshot['day']
   fail: boolean
+  /** While set, both routes refuse this screen with this status (its access ended). */
+  refused: 401 | 403 | null
   snapshots: number
   seqChecks: number
   /** While set, the snapshot answer waits for it. */
@@ -50,6 +52,12 @@ function snapshot(): BoardSnapshot {
     tiles: structuredClone(server.tiles),
     generatedAt: new Date().toISOString(),
   }
+}
+
+const REFUSED = 'You hold no role in this competition that lets you see its board.'
+function refusal(event: Parameters<typeof setResponseStatus>[0]) {
+  setResponseStatus(event, server.refused!)
+  return { statusCode: server.refused, message: REFUSED }
 }
 
 /** The server records a change: its tile and the next number, and the event it would push. */
@@ -79,6 +87,7 @@ beforeEach(() => {
     tiles: [tile('e1', '11', 'unchecked', 3), tile('e2', '22', 'ready', 7), tile('e3', 'K9', 'caution', 9, 'k-std')],
     day: { day: DAY, kind: 'contest', status: 'open', openedAt: '2027-07-13T06:00:00Z', openedBy: 'Dana Director', closedAt: null, closedBy: null },
     fail: false,
+    refused: null,
     snapshots: 0,
     seqChecks: 0,
     gate: null,
@@ -86,14 +95,16 @@ beforeEach(() => {
   cleanups.push(registerEndpoint(`/api/competitions/${cid}/board`, async (event) => {
     server.snapshots++
     if (server.gate) await server.gate
+    if (server.refused) return refusal(event)
     if (server.fail) {
       setResponseStatus(event, 503)
       return { statusCode: 503, message: 'The database is not reachable just now.' }
     }
     return snapshot()
   }))
-  cleanups.push(registerEndpoint(`/api/competitions/${cid}/board/seq`, () => {
+  cleanups.push(registerEndpoint(`/api/competitions/${cid}/board/seq`, (event) => {
     server.seqChecks++
+    if (server.refused) return refusal(event)
     return { seq: server.seq, openDay: DAY }
   }))
 })
@@ -338,6 +349,18 @@ describe('board store', () => {
     await vi.waitFor(() => expect(board.tiles.e3!.readiness).toBe('ready'), { timeout: 2000 })
     expect(server.seqChecks).toBeGreaterThan(0)
     expect(server.snapshots).toBe(snapshotsBefore + 1)
+  })
+
+  it('says so when the server refuses its sequence poll (the screen’s access ended), keeping the board shown', async () => {
+    const { board } = await openLive({ seqPollMs: 60, snapshotRetryMs: 10_000 })
+    const snapshotsBefore = server.snapshots
+    // The director's role removed while the screen's socket stays connected, out of the room:
+    // no push says anything; the next poll is refused.
+    server.refused = 403
+    await vi.waitFor(() => expect(board.loadError).toBe(REFUSED), { timeout: 2000 })
+    expect(board.connection).not.toBe('live')
+    expect(server.snapshots).toBe(snapshotsBefore + 1)
+    expect(board.orderedTiles).toHaveLength(3)
   })
 
   it('is not live when the board cannot be fetched, and says offline after a long outage', async () => {
