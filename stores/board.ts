@@ -14,7 +14,7 @@ import { createBoardChime, type BoardChime } from '~/utils/boardChime'
 // fetch runs, pushed changes wait and are applied on top of it. A screen that cannot be sure
 // it is current says so (the connection state), never showing an old state as live.
 
-export type BoardConnection = 'connecting' | 'live' | 'reconnecting' | 'offline'
+export type BoardConnection = 'connecting' | 'live' | 'reconnecting' | 'offline' | 'refused'
 
 export interface BoardFilters {
   classIds: string[]
@@ -72,6 +72,8 @@ export const useBoardStore = defineStore('board', () => {
   const loadError = ref<string | null>(null)
   /** Why the live connection was refused (not signed in, not part of the board), while that lasts. */
   const liveError = ref<string | null>(null)
+  /** The server refused this screen the board (401, 403, 404): its access ended, not its signal. */
+  const refused = ref(false)
 
   // What the connection indicator is made of.
   // 'joining': joined, but the board fetched after the join has not arrived yet.
@@ -93,6 +95,7 @@ export const useBoardStore = defineStore('board', () => {
 
   const connection = computed<BoardConnection>(() => {
     if (!browserOnline.value) return 'offline'
+    if (refused.value) return 'refused'
     if (socketState.value === 'joined' && snapshotOk.value) return 'live'
     if (outageLong.value) return 'offline'
     if ((socketState.value === 'connecting' || socketState.value === 'joining') && offlineSince.value === null) return 'connecting'
@@ -294,6 +297,7 @@ export const useBoardStore = defineStore('board', () => {
       snapshotOk.value = true
       if (socketState.value === 'joining' && afterJoin === joinSerial) socketState.value = 'joined'
       loadError.value = null
+      refused.value = false
       clearTimeout(retryTimer)
       settle()
     }
@@ -303,6 +307,7 @@ export const useBoardStore = defineStore('board', () => {
       loadError.value = status
         ? (apiErrorBody(error).message ?? `The board could not be loaded (${status}).`)
         : UI_MESSAGES.offline
+      refused.value = status === 401 || status === 403 || status === 404
       snapshotOk.value = false
       markDown()
       clearTimeout(retryTimer)
@@ -464,6 +469,7 @@ export const useBoardStore = defineStore('board', () => {
     sequence = sequenceState<BoardTileEvent>(seq.value)
     loadError.value = null
     liveError.value = null
+    refused.value = false
     snapshotOk.value = true
     outageLong.value = false
     offlineSince.value = null

@@ -358,9 +358,14 @@ describe('board store', () => {
     // no push says anything; the next poll is refused.
     server.refused = 403
     await vi.waitFor(() => expect(board.loadError).toBe(REFUSED), { timeout: 2000 })
-    expect(board.connection).not.toBe('live')
+    expect(board.connection).toBe('refused')
     expect(server.snapshots).toBe(snapshotsBefore + 1)
     expect(board.orderedTiles).toHaveLength(3)
+    // Given access again, the next fetch makes it live.
+    server.refused = null
+    await board.refresh()
+    expect(board.connection).toBe('live')
+    expect(board.loadError).toBeNull()
   })
 
   it('is not live when the board cannot be fetched, and says offline after a long outage', async () => {
