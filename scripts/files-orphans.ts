@@ -2,8 +2,7 @@
 // crash between placing a file and committing its row) and the uploads' temporary files; with
 // --remove it removes those older than an hour, so an upload under way is never touched. Same
 // database and storage settings as the server.
-import { incomingFolder } from '../server/domain/files/incoming'
-import { findOrphans } from '../server/domain/files/orphans'
+import { findOrphans, incomingFolder } from '../server/domain/files/orphans'
 import { runMain, ScriptError, step } from './lib/common'
 import { withFileMaintenance } from './lib/file-maintenance'
 

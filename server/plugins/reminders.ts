@@ -5,13 +5,25 @@
 import { runReminders } from '#domain/mail/reminders'
 
 export default defineNitroPlugin((nitroApp) => {
-  startIntervalJob(nitroApp, {
-    name: 'reminder job',
-    intervalMs: Number(useRuntimeConfig().reminders.intervalMs) || 0,
-    firstAfterMs: 30_000,
-    run: async () => {
-      const r = await runReminders()
-      if (r.queued) console.info(`[gridmark] queued ${r.queued} reminder(s)`)
-    },
+  const intervalMs = Number(useRuntimeConfig().reminders.intervalMs) || 0
+  if (intervalMs <= 0) return
+
+  let running: Promise<unknown> | undefined
+  const run = () => {
+    if (running) return
+    running = runReminders()
+      .then((r) => {
+        if (r.queued) console.info(`[gridmark] queued ${r.queued} reminder(s)`)
+      })
+      .catch(error => console.warn(`[gridmark] reminder job: ${(error as Error).message}`))
+      .finally(() => { running = undefined })
+  }
+  // A first run shortly after start, once migrations had their chance.
+  const first = setTimeout(run, 30_000)
+  const timer = setInterval(run, intervalMs)
+  nitroApp.hooks.hook('close', async () => {
+    clearTimeout(first)
+    clearInterval(timer)
+    await running
   })
 })

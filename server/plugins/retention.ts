@@ -5,15 +5,27 @@
 import { runRetention } from '#domain/files/retention'
 
 export default defineNitroPlugin((nitroApp) => {
-  startIntervalJob(nitroApp, {
-    name: 'retention job',
-    intervalMs: Number(useRuntimeConfig().retention.intervalMs) || 0,
-    firstAfterMs: 45_000,
-    run: async () => {
-      const r = await runRetention()
-      if (r.medicalDeleted || r.supersededDeleted) {
-        console.info(`[gridmark] retention: deleted ${r.medicalDeleted} medical or licence file(s) and ${r.supersededDeleted} replaced one(s)`)
-      }
-    },
+  const intervalMs = Number(useRuntimeConfig().retention.intervalMs) || 0
+  if (intervalMs <= 0) return
+
+  let running: Promise<unknown> | undefined
+  const run = () => {
+    if (running) return
+    running = runRetention()
+      .then((r) => {
+        if (r.medicalDeleted || r.supersededDeleted) {
+          console.info(`[gridmark] retention: deleted ${r.medicalDeleted} medical or licence file(s) and ${r.supersededDeleted} replaced one(s)`)
+        }
+      })
+      .catch(error => console.warn(`[gridmark] retention job: ${(error as Error).message}`))
+      .finally(() => { running = undefined })
+  }
+  // A first run shortly after start, once migrations had their chance.
+  const first = setTimeout(run, 45_000)
+  const timer = setInterval(run, intervalMs)
+  nitroApp.hooks.hook('close', async () => {
+    clearTimeout(first)
+    clearInterval(timer)
+    await running
   })
 })

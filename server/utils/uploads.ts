@@ -10,6 +10,7 @@ import { createHash, randomUUID } from 'node:crypto'
 import { createWriteStream } from 'node:fs'
 import { mkdir, readFile, rm } from 'node:fs/promises'
 import type { IncomingMessage } from 'node:http'
+import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { Transform, type Readable } from 'node:stream'
 import { pipeline } from 'node:stream/promises'
@@ -17,7 +18,6 @@ import busboy from 'busboy'
 import type { H3Event } from 'h3'
 import type { z } from 'zod'
 import { MESSAGES } from '#shared/constants/messages'
-import { incomingFolder } from '#domain/files/incoming'
 import { httpError } from './errors'
 import { assertPlainText } from './validation'
 
@@ -41,6 +41,11 @@ const HEAD_BYTES = 4100
 const LINGER_MS = 5000
 /** Text fields of the app's upload forms are short. */
 const FIELD_MAX_BYTES = 8 * 1024
+
+/** Where uploads wait until they are whole and valid (NUXT_UPLOADS_TMP_DIR, else the system's). */
+function incomingFolder(): string {
+  return process.env.NUXT_UPLOADS_TMP_DIR || join(tmpdir(), 'gridmark-incoming')
+}
 
 interface Received {
   text: Record<string, string>

@@ -4,14 +4,19 @@
 // request. Only those older than an hour are removed, so an upload or a rekey under way is never
 // touched. Free of Nitro's globals: the script and the tests pass the database and the storage.
 import { readdir, rm, stat } from 'node:fs/promises'
+import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import type { Knex } from 'knex'
 import { listStoredFiles, removeStoredFile, type StoredFileListing, type UploadsStore } from './file-store'
 import { FILE_TABLES } from './rekey'
-import { incomingFolder } from './incoming'
 
 /** How old a file without a row must be before it is removed. */
 export const ORPHAN_MIN_AGE_MS = 60 * 60 * 1000
+
+/** Where uploads wait while they arrive (as server/utils/uploads.ts chooses it). */
+export function incomingFolder(env: NodeJS.ProcessEnv = process.env): string {
+  return env.NUXT_UPLOADS_TMP_DIR || join(tmpdir(), 'gridmark-incoming')
+}
 
 export interface OrphanReport {
   /** Stored files no row points at, oldest first. */
