@@ -80,9 +80,10 @@ export default defineNuxtConfig({
   // to every page. Its server routes and helpers stay.
   auth: { loadStrategy: 'none' },
 
+  // The faces of Barlow the templates use, and no other (tests/unit/font-weights.test.ts): each
+  // face is one more download on a weak signal and one more layout of the page as it arrives.
   css: [
     '@fontsource/barlow/400.css',
-    '@fontsource/barlow/500.css',
     '@fontsource/barlow/600.css',
     '@fontsource/barlow/700.css',
     '@fontsource/barlow/800.css',
