@@ -14,7 +14,10 @@
 //              Before that, 20 checks one at a time show what a check costs with no queue
 //              (reported apart, with the machine's load: other work shows in every figure).
 //   snapshot   competition of 1,000 entries with its day open: GET …/board, the median of
-//              30 sequential requests after a warm-up, timed here on loopback.
+//              30 sequential requests after a warm-up, timed here on loopback, and where it
+//              went (its Server-Timing: auth, read, zip). The board does not change meanwhile,
+//              so the server sends the tiles it read first (server/domain/board/snapshot.ts);
+//              the first read, which reads them, is printed beside.
 //
 // Everything it started (screens, server, cluster, /tmp folder) is removed in every case,
 // Ctrl-C included. The clients keep their work small: a tile event is noted by one set
@@ -462,16 +465,29 @@ async function latencyRun(opts: {
 // ---------------------------------------------------------------------------------------
 // The snapshot run
 
-async function snapshotRun(director: BenchClient, competitionId: string): Promise<{ ms: number, tiles: number }> {
+/** GET …/board's time, and where it went (its Server-Timing: auth, read, zip), as medians. */
+interface SnapshotRun {
+  ms: number
+  /** The first read, of tiles the server had not read yet (server/domain/board/snapshot.ts keeps them until the board changes). */
+  firstMs: number
+  tiles: number
+  parts: { auth: number, read: number, zip: number } | undefined
+}
+
+async function snapshotRun(director: BenchClient, competitionId: string): Promise<SnapshotRun> {
   const path = `/api/competitions/${competitionId}/board`
   let tiles = 0
+  let firstMs = 0
   for (let i = 0; i < BOARD_BENCH.snapshotWarmUp; i++) {
+    const t0 = performance.now()
     const res = await director.get(path)
     const text = await res.text()
+    if (i === 0) firstMs = performance.now() - t0
     if (res.status !== 200) throw new ScriptError(`GET ${path} answered ${res.status}: ${text}`)
     tiles = (JSON.parse(text) as BoardSnapshot).tiles.length
   }
   const times: number[] = []
+  const parts: Record<'auth' | 'read' | 'zip', number[]> = { auth: [], read: [], zip: [] }
   for (let i = 0; i < BOARD_BENCH.snapshotRuns; i++) {
     checkInterrupted()
     const t0 = performance.now()
@@ -479,8 +495,18 @@ async function snapshotRun(director: BenchClient, competitionId: string): Promis
     await res.arrayBuffer()
     times.push(performance.now() - t0)
     if (res.status !== 200) throw new ScriptError(`GET ${path} answered ${res.status}`)
+    for (const part of (res.headers.get('server-timing') ?? '').split(',')) {
+      const [name, dur] = part.trim().split(';dur=')
+      if (name && name in parts && dur) parts[name as keyof typeof parts].push(Number(dur))
+    }
   }
-  return { ms: median(times), tiles }
+  const complete = Object.values(parts).every(xs => xs.length === times.length)
+  return {
+    ms: median(times),
+    firstMs,
+    tiles,
+    parts: complete ? { auth: median(parts.auth), read: median(parts.read), zip: median(parts.zip) } : undefined,
+  }
 }
 
 // ---------------------------------------------------------------------------------------
@@ -571,7 +597,7 @@ export async function benchBoard(): Promise<BoardBenchResult> {
     const snapshot = await snapshotRun(director, data.large.id)
     if (snapshot.tiles !== BOARD_BENCH.snapshotEntries) throw new ScriptError(`The board of ${BOARD_BENCH.snapshotEntries} entries showed ${snapshot.tiles} tiles.`)
 
-    return summarise(run, snapshot.ms, boards.length, pollers.length)
+    return summarise(run, snapshot, boards.length, pollers.length)
   }
   finally {
     screens?.close()
@@ -585,7 +611,8 @@ export function benchInterrupted(): NodeJS.Signals | undefined {
   return signals.signal
 }
 
-function summarise(run: LatencyRun, snapshotMs: number, nBoards: number, nPollers: number): BoardBenchResult {
+function summarise(run: LatencyRun, snapshot: SnapshotRun, nBoards: number, nPollers: number): BoardBenchResult {
+  const snapshotMs = snapshot.ms
   const recorded = run.submissions.filter(s => s.status === 201)
   const busyRecorded = recorded.filter(s => !s.solo)
   let lostPush = 0
@@ -624,6 +651,11 @@ function summarise(run: LatencyRun, snapshotMs: number, nBoards: number, nPoller
     `board bench: lost events: ${lostPush} pushed, ${lostPoll} polled; tile events out of order: ${run.outOfOrder}; screens dropped: ${run.disconnects}`,
     `board bench: before that, ${soloPost.length} checks one at a time: POST p50 ${ms(percentile(soloPost, 50))}, on the boards p50 ${ms(percentile(soloPush, 50))}, p95 ${ms(percentile(soloPush, 95))}`,
     `board bench: machine load (1-minute average, ${availableParallelism()} cores): ${run.load[0].toFixed(1)} when the busy run began, ${run.load[1].toFixed(1)} when it ended`,
+    snapshot.parts
+      ? `board bench: GET …/board of ${snapshot.tiles} tiles, median of each part: auth ${ms(snapshot.parts.auth)}, read ${ms(snapshot.parts.read)}, zip ${ms(snapshot.parts.zip)}; `
+      + `the rest (the request's way, sending, the bench's unzip) ${ms(snapshotMs - snapshot.parts.auth - snapshot.parts.read - snapshot.parts.zip)}; `
+      + `the first read, its tiles from the database, ${ms(snapshot.firstMs)}`
+      : 'board bench: GET …/board sent no complete Server-Timing',
     `board bench: screens in ${run.screens.processes} process${run.screens.processes === 1 ? '' : 'es'}; their event loops' worst delay p95 ${ms(run.screens.loopDelayP95Ms)}, max ${ms(run.screens.loopDelayMaxMs)}`,
   ]
   const failed = lostPush > 0 || lostPoll > 0 || run.failures.length > 0 || recorded.length === 0 || run.disconnects > 0

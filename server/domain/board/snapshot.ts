@@ -68,8 +68,11 @@ export function toBoardTile(r: Pick<BoardTileRow, 'tile'> & { seq: string | numb
  * number, classes): a 1,000-tile board as one aggregated value is a single 400 KB message,
  * which the driver reassembles at twice the cost of 1,000 small rows.
  * The day is the one asked for, else the open day, else the latest opened (as `boardDayOf`).
+ * The tiles' text read last is kept (`tilesRead`) and read again only when the board changed.
  */
 export async function boardSnapshotJson(competition: { id: string, name: string, time_zone: string }, day?: IsoDate, db: Knex = useDb()): Promise<string> {
+  const key = `${competition.id}/${day ?? ''}`
+  const known = tilesRead.get(key)
   // Read by every screen as it connects and by every polling one: prepared once per connection.
   const { rows } = await prepared(db.raw(`with shown as (
       select d.competition_id, d.kind, d.opened_at, d.closed_at, d.opened_by, d.closed_by, d.day as day_date,
@@ -78,8 +81,15 @@ export async function boardSnapshotJson(competition: { id: string, name: string,
       where d.competition_id = :competitionId ${day ? 'and d.day = :day' : ''}
       order by d.closed_at is null desc, d.day desc
       limit 1
+    ),
+    -- The board as it was when its tiles were read last: the same day, opened at the same time,
+    -- at the same number (then its tiles are left out, and the ones kept are sent).
+    same as (
+      select ${known ? `s.day_date = :knownDay::date and s.opened_at = :knownOpenedAt::timestamptz
+        and coalesce((select seq from board_sequences where competition_id = :competitionId), 0) = :knownSeq` : 'false'} as unchanged
+      from shown s
     )
-    select 0 as part,
+    select 0 as part, coalesce((select unchanged from same), false) as unchanged,
       (select json_build_object('competition_id', s.competition_id, 'kind', s.kind, 'opened_at', s.opened_at, 'closed_at', s.closed_at,
           'opened_by', s.opened_by, 'closed_by', s.closed_by, 'day', s.day, 'opened_by_name', s.opened_by_name, 'closed_by_name', s.closed_by_name)
         from shown s) as shown,
@@ -88,10 +98,16 @@ export async function boardSnapshotJson(competition: { id: string, name: string,
         from classes k where k.competition_id = :competitionId) as classes,
       null::text as tile, null::int as class_order, null::text as comp_id
     union all
-    select 1, null, null, null, t.shown::text, t.class_order, t.comp_id
-      from shown s join board_tiles t on t.competition_id = s.competition_id and t.day = s.day_date`, day ? { competitionId: competition.id, day } : { competitionId: competition.id })) as {
+    select 1, null, null, null, null, t.shown::text, t.class_order, t.comp_id
+      from shown s join board_tiles t on t.competition_id = s.competition_id and t.day = s.day_date
+      where not coalesce((select unchanged from same), false)`, {
+    competitionId: competition.id,
+    ...day ? { day } : {},
+    ...known ? { knownDay: known.day, knownOpenedAt: known.openedAt, knownSeq: known.seq } : {},
+  })) as {
     rows: {
       part: number
+      unchanged: boolean | null
       // Timestamps inside JSON values arrive as text; toBoardDay reads them as instants.
       shown: (Omit<BoardDayJoinedRow, 'opened_at' | 'closed_at'> & { opened_at: string, closed_at: string | null }) | null
       seq: string | null
@@ -108,13 +124,43 @@ export async function boardSnapshotJson(competition: { id: string, name: string,
     seq: Number(top!.seq),
     classes: top!.classes ?? [],
   }
-  // In board order: here rather than in PostgreSQL, whose sort of 1,000 rows carrying their
-  // tiles' text costs several times this one over the keys (the same order: comp-id-order.ts).
-  const placed = rows.filter(r => r.part === 1)
-  placed.sort((a, b) => a.class_order! - b.class_order! || compareCompIds(a.comp_id!, b.comp_id!))
-  const tiles = placed.map(r => r.tile!)
+  const shown = top!.shown
+  const now = shown ? { day: shown.day, openedAt: shown.opened_at, seq: head.seq } : null
+  let tiles: string
+  if (known && top!.unchanged) {
+    // The statement sent no tiles: the board is as it was when they were read last.
+    tiles = known.tiles
+  }
+  else {
+    // In board order: here rather than in PostgreSQL, whose sort of 1,000 rows carrying their
+    // tiles' text costs several times this one over the keys (the same order: comp-id-order.ts).
+    const placed = rows.filter(r => r.part === 1)
+    placed.sort((a, b) => a.class_order! - b.class_order! || compareCompIds(a.comp_id!, b.comp_id!))
+    tiles = placed.map(r => r.tile!).join(',')
+    if (now) keepTiles(key, { ...now, tiles })
+  }
   // The keys in BoardSnapshot's order, with the tiles' text as it came.
-  return `${JSON.stringify(head).slice(0, -1)},"tiles":[${tiles.join(',')}],"generatedAt":${JSON.stringify(new Date().toISOString())}}`
+  return `${JSON.stringify(head).slice(0, -1)},"tiles":[${tiles}],"generatedAt":${JSON.stringify(new Date().toISOString())}}`
+}
+
+/**
+ * The tiles' text of the boards read last (by competition and the day asked for, in board
+ * order, joined), with the day and the sequence number they were read at. Every change of a
+ * day's tiles takes the competition's next number (transaction.ts, tiles.ts), so while the day
+ * (and when it was opened: a day opened again starts afresh) and the number are the same, so
+ * are the tiles: the snapshot's statement then leaves them out, and a board of 1,000 tiles
+ * (some 400 KB) is not read again for every screen that asks while nothing changed — the wall
+ * screens reconnecting after a restart, the polling ones. The statement reads the number in
+ * the same snapshot as the rest, and each server keeps its own, so several servers agree.
+ */
+const tilesRead = new Map<string, { day: string, openedAt: string, seq: number, tiles: string }>()
+/** Boards kept at most (the oldest read goes first): a few competitions' days. */
+const TILES_KEPT = 16
+
+function keepTiles(key: string, value: { day: string, openedAt: string, seq: number, tiles: string }): void {
+  tilesRead.delete(key)
+  tilesRead.set(key, value)
+  if (tilesRead.size > TILES_KEPT) tilesRead.delete(tilesRead.keys().next().value!)
 }
 
 /** The board of one day at one sequence number (see boardSnapshotJson), as an object. */

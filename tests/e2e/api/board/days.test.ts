@@ -187,6 +187,42 @@ describe('closing the day', () => {
   })
 })
 
+describe('a board read again', () => {
+  it('is not read from the database again while its number stands, and is as soon as it moves', async () => {
+    const f = await gridWorld(baseUrl, 'Board Kept Cup')
+    const first = await gridEntry(f, { compId: 'K1' })
+    const second = await gridEntry(f, { compId: 'K2' })
+    await openToday(f)
+    const read = async () => (await f.director.client.get(`${f.base}/board`)).body
+    const before = await read()
+    expect(before.tiles.map((t: any) => t.compId)).toEqual(['K1', 'K2'])
+
+    // A tile's stored text changed with no number taken — no writer of the board does this; here
+    // it tells which read sent the tiles.
+    const stored = testDb()('board_tiles').where({ competition_id: f.competitionId, entry_id: second })
+    await stored.clone().update({ shown: testDb().raw(`json_build_object('marked', true)::jsonb || shown::jsonb`) })
+    const again = await read()
+    expect(again.seq).toBe(before.seq)
+    expect(again.tiles).toEqual(before.tiles)
+    expect(again.generatedAt >= before.generatedAt).toBe(true)
+
+    // A grid check of the other glider takes the next number: the tiles are read afresh.
+    const res = await f.scrutineer.client.post(`${f.base}/grid-checks`, checkBody(first))
+    expect(res.status).toBe(201)
+    const after = await read()
+    expect(after.seq).toBe(before.seq + 1)
+    expect(after.tiles.find((t: any) => t.entryId === first)).toMatchObject({ readiness: 'ready', seq: after.seq })
+    expect(after.tiles.find((t: any) => t.entryId === second).marked).toBe(true)
+
+    // Closing the day changes no tile: the board says it is closed, with the same tiles.
+    const closed = await f.director.client.post(`${f.base}/days/${todayIn()}/close`)
+    expect(closed.status).toBe(200)
+    const afterClose = await read()
+    expect(afterClose.day.status).toBe('closed')
+    expect(afterClose.tiles).toEqual(after.tiles)
+  })
+})
+
 describe('a board of a whole field', () => {
   it('comes in board order — classes in their order, competition IDs in number order — and gzipped when asked', async () => {
     const f = await gridWorld(baseUrl, 'Board Field Cup')
@@ -219,6 +255,13 @@ describe('a board of a whole field', () => {
     expect(zipped.headers.get('vary')).toMatch(/accept-encoding/i)
     const plain = await fetch(baseUrl + path, { headers: headers('identity') })
     expect(plain.headers.get('content-encoding')).toBeNull()
+    // Where its time went (the bench splits the snapshot's time with it), zipped or not; the
+    // arrival on the server's clock closes the list.
+    for (const res of [zipped, plain]) {
+      const timing = res.headers.get('server-timing')!.split(', ').map(p => p.split(';'))
+      expect(timing.map(([name]) => name)).toEqual(['auth', 'read', 'zip', 'start'])
+      for (const [, dur] of timing.slice(0, -1)) expect(Number(dur!.replace('dur=', ''))).toBeGreaterThanOrEqual(0)
+    }
     const zippedBody = await zipped.json() as any // fetch undoes the gzip
     const plainBody = await plain.json() as any
     expect(zippedBody.tiles).toEqual(plainBody.tiles)
