@@ -84,16 +84,18 @@ export async function boardSnapshotJson(competition: { id: string, name: string,
     ),
     -- The board as it was when its tiles were read last: the same day, opened at the same time,
     -- at the same number (then its tiles are left out, and the ones kept are sent).
+    numbered as (
+      select coalesce((select seq from board_sequences where competition_id = :competitionId), 0) as seq
+    ),
     same as (
-      select ${known ? `s.day_date = :knownDay::date and s.opened_at = :knownOpenedAt::timestamptz
-        and coalesce((select seq from board_sequences where competition_id = :competitionId), 0) = :knownSeq` : 'false'} as unchanged
-      from shown s
+      select ${known ? 's.day_date = :knownDay::date and s.opened_at = :knownOpenedAt::timestamptz and n.seq = :knownSeq' : 'false'} as unchanged
+      from shown s, numbered n
     )
     select 0 as part, coalesce((select unchanged from same), false) as unchanged,
       (select json_build_object('competition_id', s.competition_id, 'kind', s.kind, 'opened_at', s.opened_at, 'closed_at', s.closed_at,
           'opened_by', s.opened_by, 'closed_by', s.closed_by, 'day', s.day, 'opened_by_name', s.opened_by_name, 'closed_by_name', s.closed_by_name)
         from shown s) as shown,
-      coalesce((select seq from board_sequences where competition_id = :competitionId), 0) as seq,
+      (select seq from numbered) as seq,
       (select coalesce(json_agg(json_build_object('id', k.id, 'name', k.name) order by k.sort_order, k.name), '[]')
         from classes k where k.competition_id = :competitionId) as classes,
       null::text as tile, null::int as class_order, null::text as comp_id
