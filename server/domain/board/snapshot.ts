@@ -82,11 +82,11 @@ export async function boardSnapshotJson(competition: { id: string, name: string,
       order by d.closed_at is null desc, d.day desc
       limit 1
     ),
-    -- The board as it was when its tiles were read last: the same day, opened at the same time,
-    -- at the same number (then its tiles are left out, and the ones kept are sent).
     numbered as (
       select coalesce((select seq from board_sequences where competition_id = :competitionId), 0) as seq
     ),
+    -- The board as it was when its tiles were read last: the same day, opened at the same time,
+    -- at the same number (then its tiles are left out, and the ones kept are sent).
     same as (
       select ${known ? 's.day_date = :knownDay::date and s.opened_at = :knownOpenedAt::timestamptz and n.seq = :knownSeq' : 'false'} as unchanged
       from shown s, numbered n
@@ -149,11 +149,12 @@ export async function boardSnapshotJson(competition: { id: string, name: string,
  * The tiles' text of the boards read last (by competition and the day asked for, in board
  * order, joined), with the day and the sequence number they were read at. Every change of a
  * day's tiles takes the competition's next number (transaction.ts, tiles.ts), so while the day
- * (and when it was opened: a day opened again starts afresh) and the number are the same, so
- * are the tiles: the snapshot's statement then leaves them out, and a board of 1,000 tiles
- * (some 400 KB) is not read again for every screen that asks while nothing changed — the wall
- * screens reconnecting after a restart, the polling ones. The statement reads the number in
- * the same snapshot as the rest, and each server keeps its own, so several servers agree.
+ * and the number are the same, so are the tiles (the day's opening time is compared too, should
+ * the database be reset under a running server): the statement then leaves them out, and a
+ * board of 1,000 tiles (some 400 KB) is not read again for every screen that asks while nothing
+ * changed — the wall screens reconnecting after a restart, the polling ones. The statement
+ * reads the number in the same snapshot as the rest, and each server keeps its own, so several
+ * servers agree.
  */
 const tilesRead = new Map<string, { day: string, openedAt: string, seq: number, tiles: string }>()
 /** Boards kept at most (the oldest read goes first): a few competitions' days. */
