@@ -257,8 +257,13 @@ export default defineNuxtConfig({
   },
 
   // Every component is a <script setup>: Vue's Options API support is left out of the bundle.
+  // Chunks under 1 KB are merged into others (where that runs no code a page would not run): each
+  // script is a request, a round trip on a weak signal, and the entry page asked for 38 (now
+  // 28), most of them a few hundred bytes. Larger merges put other pages' code on the board,
+  // over its JavaScript budget (docs/bench.md).
   vite: {
     vue: { features: { optionsAPI: false } },
+    build: { rollupOptions: { output: { experimentalMinChunkSize: 1024 } } },
   },
 
   // Nothing is fetched ahead of need on a weak signal (issue "On the field", the JavaScript

@@ -1,5 +1,7 @@
 import type { Ref } from 'vue'
-import { boardLayout, screenUnit, type BoardLayout } from '#shared/utils/board-layout'
+import type { BoardLayout } from '#shared/utils/board-layout'
+
+type LayoutModule = typeof import('#shared/utils/board-layout')
 
 /** The wall's computed size for one class. */
 export interface BoardGroupFit {
@@ -21,10 +23,15 @@ export interface BoardFit {
 // The wall board in full screen: measures the area left for the tiles (what the header,
 // counters and reason strip leave of the screen) and lays the field out to fill it
 // (shared/utils/board-layout.ts). Null while not enabled or not measured, so the page keeps
-// its ordinary flowing layout on a laptop or a phone.
+// its ordinary flowing layout on a laptop or a phone. The layout's arithmetic is loaded when the
+// wall is first shown: a phone or a laptop never needs it (the board's JavaScript budget).
 export function useBoardFit(area: Ref<HTMLElement | null>, counts: Ref<number[]>, enabled: Ref<boolean>) {
   const size = ref<{ width: number, height: number, screenWidth: number, screenHeight: number } | null>(null)
+  const lib = shallowRef<LayoutModule | null>(null)
   let observer: ResizeObserver | null = null
+  watch(enabled, (on) => {
+    if (on && import.meta.client && !lib.value) void import('#shared/utils/board-layout').then((m) => { lib.value = m })
+  }, { immediate: true })
 
   const measure = () => {
     const el = area.value
@@ -44,15 +51,16 @@ export function useBoardFit(area: Ref<HTMLElement | null>, counts: Ref<number[]>
   onBeforeUnmount(() => observer?.disconnect())
 
   // The reason strip and counters follow the screen, not the field: their base size in px.
-  const stripPx = computed(() => Math.round(30 * (size.value ? screenUnit(size.value.screenWidth, size.value.screenHeight) : 1)))
+  const stripPx = computed(() => Math.round(30 * (size.value && lib.value ? lib.value.screenUnit(size.value.screenWidth, size.value.screenHeight) : 1)))
 
   const fit = computed<BoardFit | null>(() => {
     const s = size.value
-    if (!enabled.value || !s) return null
-    const u = screenUnit(s.screenWidth, s.screenHeight)
+    const m = lib.value
+    if (!enabled.value || !s || !m) return null
+    const u = m.screenUnit(s.screenWidth, s.screenHeight)
     const gap = Math.round(6 * u)
     const headingHeight = Math.round(38 * u)
-    const layout = boardLayout({ width: s.width, height: s.height, groups: counts.value, unit: u, gap, headingHeight })
+    const layout = m.boardLayout({ width: s.width, height: s.height, groups: counts.value, unit: u, gap, headingHeight })
     return {
       layout,
       groups: layout.columns.map((columns, i) => ({

@@ -56,6 +56,8 @@ export const BOARD_CHIME_KEY = 'gridmark-board-chime'
 type Timer = ReturnType<typeof setTimeout>
 
 export const useBoardStore = defineStore('board', () => {
+  // On the server, a plain $fetch would not carry the browser's cookie.
+  const requestFetch = useRequestFetch()
   const competitionId = ref<string | null>(null)
   const competition = ref<BoardSnapshot['competition'] | null>(null)
   const day = ref<BoardDay | null>(null)
@@ -67,6 +69,8 @@ export const useBoardStore = defineStore('board', () => {
   /** The sequence number the board shows. */
   const seq = ref(0)
   const loaded = ref(false)
+  /** The board came with the page from the server's render, and `open` has not yet taken it. */
+  const served = ref(false)
   const loading = ref(false)
   /** Why the board could not be fetched (the API's message), while that lasts. */
   const loadError = ref<string | null>(null)
@@ -98,7 +102,8 @@ export const useBoardStore = defineStore('board', () => {
     if (refused.value) return 'refused'
     if (socketState.value === 'joined' && snapshotOk.value) return 'live'
     if (outageLong.value) return 'offline'
-    if ((socketState.value === 'connecting' || socketState.value === 'joining') && offlineSince.value === null) return 'connecting'
+    // 'idle': not yet opened (the server's render, the page not mounted yet).
+    if (['idle', 'connecting', 'joining'].includes(socketState.value) && offlineSince.value === null) return 'connecting'
     return 'reconnecting'
   })
 
@@ -448,12 +453,29 @@ export const useBoardStore = defineStore('board', () => {
   }
 
   /**
+   * On the server: reads the board into the page's render, so it arrives drawn, not after the
+   * page has started (the browser then lays out 40 tiles once, while the page is parsed). A
+   * refusal is left to `open`, which says it on the screen.
+   */
+  async function serve(cid: string): Promise<void> {
+    if (import.meta.client) return
+    const snapshot = await requestFetch<BoardSnapshot>(`/api/competitions/${encodeURIComponent(cid)}/board`).catch(() => null)
+    if (!snapshot) return
+    competitionId.value = cid
+    applySnapshot(snapshot)
+    served.value = true
+  }
+
+  /**
    * Opens the board of a competition: fetches it and connects the live updates. Client only
    * (call from onMounted). `connect` is the socket factory (tests hand in their own).
    */
   async function open(cid: string, options: { connect?: BoardSocketConnector, timing?: Partial<BoardTiming> } = {}): Promise<void> {
     if (import.meta.server) return
     close()
+    // The board the server's render read: the socket's join asks whether it is still current.
+    const fresh = served.value && loaded.value && competitionId.value === cid
+    served.value = false
     const gen = generation
     timing = { ...BOARD_TIMING, ...options.timing }
     if (competitionId.value !== cid) {
@@ -495,7 +517,7 @@ export const useBoardStore = defineStore('board', () => {
     socketState.value = 'connecting'
     socket = (options.connect ?? connectBoardSocket)(cid, socketHandlers(gen))
     pollTimer = setInterval(() => void checkSeq(), timing.seqPollMs)
-    await refresh()
+    if (!fresh) await refresh()
   }
 
   /** Disconnects and stops every timer (the page is left). The last board stays in memory. */
@@ -556,9 +578,9 @@ export const useBoardStore = defineStore('board', () => {
   }
 
   return {
-    competitionId, competition, day, classes, tiles, order, seq, loaded, loading, loadError, liveError,
+    competitionId, competition, day, classes, tiles, order, seq, loaded, served, loading, loadError, liveError,
     connection, offlineSince, filters, changed, heldAlerts, chimeEnabled, chimeBlocked,
     orderedTiles, counts, groups, shownCount, filtering,
-    open, close, refresh, setFilters, setChime, unlockChime,
+    serve, open, close, refresh, setFilters, setChime, unlockChime,
   }
 })

@@ -141,6 +141,23 @@ function expectNotFetched(board: ReturnType<typeof useBoardStore>, snapshotsBefo
   expect(server.snapshots).toBe(snapshotsBefore)
 }
 
+/**
+ * The board as a page arrives with it: the server's render read it (`serve`), and the page's
+ * payload brings the store's state, every field of it, to the browser's store.
+ */
+function servedBoard() {
+  const read = snapshot()
+  const payload = {
+    ...useBoardStore().$state,
+    competitionId: cid, competition: read.competition, day: read.day, classes: read.classes, seq: read.seq,
+    tiles: Object.fromEntries(read.tiles.map(t => [t.entryId, t])), order: read.tiles.map(t => t.entryId), loaded: true, served: true,
+  }
+  const pinia = createPinia()
+  pinia.state.value.board = JSON.parse(JSON.stringify(payload))
+  setActivePinia(pinia)
+  return useBoardStore()
+}
+
 describe('board store', () => {
   it('shows the snapshot, then goes live once it has joined and the server’s number shows nothing missed', async () => {
     const board = useBoardStore()
@@ -158,6 +175,36 @@ describe('board store', () => {
     expect(server.seqChecks).toBe(before.seqChecks + 1)
     expect(server.snapshots).toBe(before.snapshots)
     expect(board.offlineSince).toBeNull()
+  })
+
+  it('goes live from the board the server’s render read, asking only for the number', async () => {
+    const board = servedBoard()
+    server.snapshots = 0
+    // Drawn as the server drew it: connecting, not "not live".
+    expect(board.connection).toBe('connecting')
+    expect(board.orderedTiles.map(t => t.compId)).toEqual(['11', '22', 'K9'])
+    const socket = fakeSocket()
+    await board.open(cid, { connect: socket.connect })
+    expect(server.snapshots).toBe(0)
+    expect(board.served).toBe(false)
+    socket.on.joined({ ok: true, scope: 'staff' })
+    await vi.waitFor(() => expect(board.connection).toBe('live'))
+    expect(server.snapshots).toBe(0)
+    expect(server.seqChecks).toBe(1)
+    expect(board.seq).toBe(10)
+  })
+
+  it('fetches the board after joining when it changed since the server’s render read it', async () => {
+    const board = servedBoard()
+    server.snapshots = 0
+    const socket = fakeSocket()
+    await board.open(cid, { connect: socket.connect })
+    change(tile('e2', '22', 'held', 0))
+    socket.on.joined({ ok: true, scope: 'staff' })
+    await vi.waitFor(() => expect(board.connection).toBe('live'))
+    expect(server.snapshots).toBe(1)
+    expect(board.seq).toBe(11)
+    expect(board.tiles.e2!.readiness).toBe('held')
   })
 
   it('fetches the board after joining when it changed before the join (not pushed to this screen)', async () => {
