@@ -146,6 +146,12 @@ describe('no dead ends', () => {
       await panel.getByRole('link', { name: 'Launch grid' }).click()
       await page.waitForURL(url => url.pathname === `/competitions/${t.competitionId}/grid`)
       await expect.poll(() => toggle.getAttribute('aria-expanded')).toBe('false')
+
+      // A wider phone (412 px, where the wordmark's name shows) still holds the whole header.
+      await page.setViewportSize({ width: 412, height: 915 })
+      const signOut = await page.getByTestId('sign-out').boundingBox()
+      expect(signOut!.x + signOut!.width).toBeLessThanOrEqual(412)
+      expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(412)
     }
     finally {
       await page.close()
