@@ -5,7 +5,7 @@ import { fieldIndex, othersLabel } from '../field'
 import { nNumberToAddress } from '../nnumber'
 import { normaliseRadioId } from '../normalise'
 import type { Check, Finding } from '../types'
-import { collisionWarningUnits, unitLabel } from './helpers'
+import { collisionWarningUnits } from './helpers'
 
 const SIX_HEX = /^[0-9A-F]{6}$/
 
@@ -64,7 +64,7 @@ export const radioIdUnique: Check = {
         severity: 'blocking',
         unitId: u.id,
         caution: HARDWARE_CAUTION,
-        reason: `The radio ID ${r} of the ${unitLabel(u)} is also declared by ${others.length === 1 ? 'entry' : 'entries'} ${others.join(', ')}. Two gliders with one address cannot warn each other.`,
+        reason: `The radio ID ${r} of the collision-warning unit ${u.model} is also declared by ${others.length === 1 ? 'entry' : 'entries'} ${others.join(', ')}. Two gliders with one address cannot warn each other.`,
         fixHint: 'Check the radio ID on the unit. If it is entered wrongly, correct it; if two units really share it, one must be reconfigured with its glider’s own address.',
       })
     }
@@ -89,7 +89,7 @@ export const radioIdRegistration: Check = {
         severity: 'advisory',
         unitId: u.id,
         caution: HARDWARE_CAUTION,
-        reason: `The registration ${dossier.entry.registration} has the assigned address ${expected}, but the ${unitLabel(u)} sends ${r}.`,
+        reason: `The registration ${dossier.entry.registration} has the assigned address ${expected}, but its collision-warning unit ${u.model} sends ${r}.`,
         fixHint: `If the unit should send the glider’s own address, have it configured to ${expected}; otherwise check the registration entered.`,
       })
     }

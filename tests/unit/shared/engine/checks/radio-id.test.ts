@@ -25,6 +25,8 @@ describe('radio-id.unique (common practice)', () => {
     expect(f).toMatchObject({ severity: 'blocking' })
     expect(f!.reason).toContain('3E91C4')
     expect(f!.reason).toContain('M5')
+    // The address is named once: the unit by its model, not again by its radio ID.
+    expect(f!.reason.match(/3E91C4/g)).toHaveLength(1)
     expect(radioIdUnique.run(ctx(m5, undefined, field))[0]!.reason).toContain('B2')
   })
 
@@ -41,6 +43,7 @@ describe('radio-id.registration (the published N-number → ICAO address mapping
     const [f] = radioIdRegistration.run(ctx(withRadio('A061DA', { registration: 'N12345' })))
     expect(f).toMatchObject({ severity: 'advisory' })
     expect(f!.reason).toContain('A061D9')
+    expect(f!.reason.match(/A061DA/g)).toHaveLength(1)
   })
 
   it('passes the matching address and registrations that are not N-numbers', () => {
