@@ -284,6 +284,26 @@ describe('the director’s desk', () => {
     expect(await page.getByTestId('desk-hold-info').textContent()).toContain('Wing tape missing')
   })
 
+  it('a desk left before it has loaded (Back on a slow signal) leaves the board as it was', async () => {
+    const page = await signedIn(w.director.email, `/competitions/${w.competitionId}/board`)
+    const tile = page.locator(`[data-testid="board-tile"][data-entry-id="${entryId}"]`)
+    await tile.waitFor()
+    // The desk's read is held back, so its page is still loading when Back is pressed.
+    const held: { continue: () => Promise<void> }[] = []
+    await page.route('**/board/entries/**', (route) => { held.push(route) })
+    await tile.click()
+    await expect.poll(() => held.length).toBeGreaterThan(0)
+    await page.goBack()
+    await page.waitForURL(url => url.pathname === `/competitions/${w.competitionId}/board`)
+    for (const r of held.splice(0)) await r.continue()
+    await page.unroute('**/board/entries/**')
+    await page.locator('[data-testid="board"][data-loaded="true"]').waitFor()
+    await tile.waitFor()
+    expect(await page.getByText('Not found').count()).toBe(0)
+    expect(await page.getByText('This entry could not be loaded').count()).toBe(0)
+    await page.close()
+  })
+
   it('the director withdraws the waiver with a reason: held again; the entrant sees it withdrawn', async () => {
     const page = await signedIn(w.director.email, deskPath())
     await page.locator('[data-testid="desk"][data-can-direct="true"]').waitFor()
