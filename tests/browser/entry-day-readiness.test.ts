@@ -45,4 +45,23 @@ describe('the entrant’s view of today’s board', () => {
     await page.locator('[data-testid="entry-day-readiness"][data-readiness="ready"]').waitFor({ timeout: 3000 })
     expect(await page.getByTestId('entry-day-hold').count()).toBe(0)
   })
+
+  it('says it is connecting until it is live, and what its status line says never moves what follows on a phone', async () => {
+    const page = await openPage(browser.context, baseUrl, `/competitions/${w.competitionId}/entries/${entryId}`, 'phone')
+    // The server's page (no script run) says the truth of that moment.
+    const html = await (await page.request.get(`${baseUrl}/competitions/${w.competitionId}/entries/${entryId}`)).text()
+    expect(html).toMatch(/data-testid="entry-day-live"[^>]*>\s*Connecting…/)
+    await page.getByTestId('entry-day-live').filter({ hasText: 'Live' }).waitFor()
+    // Each of the line's three states in place: the next section stays where it is (a pilot
+    // reading the finding below does not see it jump as the page goes live or loses the line).
+    const tops = await page.evaluate(() => {
+      const live = document.querySelector('[data-testid="entry-day-live"]')!
+      const next = document.querySelector('[data-testid="status-banner"]')!
+      return ['Connecting…', 'Live', 'Updates when the page is reloaded'].map((words) => {
+        live.textContent = words
+        return next.getBoundingClientRect().top
+      })
+    })
+    expect(new Set(tops).size).toBe(1)
+  })
 })
