@@ -68,7 +68,9 @@ export default {
         // longer stack: every family named is looked up by the browser as a page is first laid out,
         // and its emoji and system-ui fonts made that first layout two to three times as long
         // (docs/bench.md). Characters Barlow lacks still fall back to a font that has them.
-        sans: ['Barlow', 'Arial', 'sans-serif'],
+        // Until Barlow has loaded, the stand-ins of assets/css/main.css: the platform's font sized
+        // to Barlow, so nothing moves when it arrives.
+        sans: ['Barlow', '"Barlow-sized Arial"', '"Barlow-sized Roboto"', '"Barlow-sized DejaVu Sans"', 'Arial', 'sans-serif'],
       },
       minHeight: {
         // Touch target for every control; rem-based, so sunlight mode's larger root size lifts it past 48 px.
