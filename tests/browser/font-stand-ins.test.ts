@@ -4,10 +4,12 @@
 // must not see the page jump under the finger. Here Barlow's files are held back until the page
 // is up and settled, then let through; every block of the page's main part keeps its place.
 // (Before the stand-ins, this machine's fallback moved the entry page's last blocks by 530 px.)
+// Nor may the page move as the app takes over the server's HTML: what the server draws is where
+// it stays (the layout shifts the browser reports, from the start of the load).
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import type { Page } from 'playwright-core'
 import { closeTestDb } from '../support/db'
-import { launchBrowser, VIEWPORTS, waitForHydration, type ViewportName } from '../support/browser'
+import { launchBrowser, openPage, VIEWPORTS, waitForHydration, type ViewportName } from '../support/browser'
 import { checkBody, gridEntry, gridWorld, type GridWorld } from '../support/grid'
 import { openToday } from '../support/board'
 
@@ -94,5 +96,45 @@ describe('the page set in Barlow’s stand-in keeps its layout when Barlow arriv
       page => page.locator('[data-connection="live"]').first().waitFor())
     expect(n).toBeGreaterThan(2)
     expect(moved).toEqual([])
+  })
+})
+
+/** The layout shifts the browser reported since the page began loading, with what moved. */
+async function layoutShifts(page: Page): Promise<{ total: number, moved: string[] }> {
+  return page.evaluate(() => new Promise((resolve) => {
+    const moved: string[] = []
+    let total = 0
+    new PerformanceObserver((list) => {
+      for (const e of list.getEntries() as (PerformanceEntry & { value: number, hadRecentInput: boolean, sources: { node?: Node }[] })[]) {
+        if (e.hadRecentInput) continue
+        total += e.value
+        // A hair (a button nudged sideways by a shorter word beside it) is not a jump.
+        if (e.value >= 0.001) for (const s of e.sources) moved.push(`${e.value.toFixed(4)} ${(s.node?.textContent ?? '').trim().slice(0, 60)}`)
+      }
+      resolve({ total, moved })
+    }).observe({ type: 'layout-shift', buffered: true })
+    // No shift at all: the observer has nothing to report.
+    setTimeout(() => resolve({ total, moved }), 500)
+  }))
+}
+
+describe('the page as the server drew it does not move as the app starts (common practice: no layout shift)', () => {
+  it('the launch grid on a phone: the camera’s button is drawn by the server, the short code stays put', async () => {
+    const browser = await launchBrowser()
+    try {
+      const [name, ...value] = w.scrutineer.client.cookie.split('=')
+      await browser.context.addCookies([{ name: name!, value: value.join('='), url: baseUrl }])
+      const page = await openPage(browser.context, baseUrl, `/competitions/${w.competitionId}/grid`, 'phone')
+      await page.locator('[data-testid="grid-scanner"][data-ready="true"]').waitFor()
+      await page.evaluate(() => document.fonts.ready.then(() => undefined))
+      const html = await (await page.request.get(`${baseUrl}/competitions/${w.competitionId}/grid`)).text()
+      expect(html).toContain('data-testid="open-camera"')
+      const { total, moved } = await layoutShifts(page)
+      expect(moved).toEqual([])
+      expect(total).toBeLessThan(0.002)
+    }
+    finally {
+      await browser.close()
+    }
   })
 })
