@@ -37,14 +37,20 @@ function blocks(page: Page): Promise<string[]> {
     }))
 }
 
+/** A browser of its own (nothing cached: Barlow is fetched anew), signed in with `cookie`. */
+async function browserWith(cookie: string) {
+  const browser = await launchBrowser()
+  const [name, ...value] = cookie.split('=')
+  await browser.context.addCookies([{ name: name!, value: value.join('='), url: baseUrl }])
+  return browser
+}
+
 const barlowLoaded = (page: Page) => page.evaluate(() => [...document.fonts].filter(f => f.family === 'Barlow' && f.status === 'loaded').length)
 
 /** The page drawn in the stand-ins and settled (`settled` resolves), then Barlow let through. */
 async function movesWhenBarlowArrives(cookie: string, path: string, viewport: ViewportName, settled: (page: Page) => Promise<unknown>) {
-  const browser = await launchBrowser()
+  const browser = await browserWith(cookie)
   try {
-    const [name, ...value] = cookie.split('=')
-    await browser.context.addCookies([{ name: name!, value: value.join('='), url: baseUrl }])
     const page = await browser.context.newPage()
     await page.setViewportSize(VIEWPORTS[viewport])
     let release!: () => void
@@ -120,10 +126,8 @@ async function layoutShifts(page: Page): Promise<{ total: number, moved: string[
 
 describe('the page as the server drew it does not move as the app starts (common practice: no layout shift)', () => {
   it('the launch grid on a phone: the camera’s button is drawn by the server, the short code stays put', async () => {
-    const browser = await launchBrowser()
+    const browser = await browserWith(w.scrutineer.client.cookie)
     try {
-      const [name, ...value] = w.scrutineer.client.cookie.split('=')
-      await browser.context.addCookies([{ name: name!, value: value.join('='), url: baseUrl }])
       const page = await openPage(browser.context, baseUrl, `/competitions/${w.competitionId}/grid`, 'phone')
       await page.locator('[data-testid="grid-scanner"][data-ready="true"]').waitFor()
       await page.evaluate(() => document.fonts.ready.then(() => undefined))
